@@ -1,0 +1,14 @@
+import { Command } from 'commander';
+import { registerInspect } from './inspect.js';
+import { EXIT_USAGE_OR_UNREADABLE } from './run-action.js';
+
+const program = new Command('zvet')
+  .description('Measure and vet redshifts of 1-D spectra. Automatic redshifts are suggestions until a person vets them.')
+  .version('0.1.0')
+  .exitOverride((err) => {
+    process.exit(err.exitCode === 0 ? 0 : EXIT_USAGE_OR_UNREADABLE);
+  });
+
+registerInspect(program);
+
+await program.parseAsync(process.argv);

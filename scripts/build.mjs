@@ -1,0 +1,16 @@
+// Bundles the command-line program (and, as they exist, the worker, the window and the
+// Electron host) with esbuild into dist/. Run by `npm run build` and on install (`prepare`).
+import { build } from 'esbuild';
+
+const nodeEsm = {
+  bundle: true,
+  platform: 'node',
+  format: 'esm',
+  target: 'node20',
+  sourcemap: true,
+  logLevel: 'warning',
+  // Bundled CommonJS dependencies call require(); give ESM output one.
+  banner: { js: "import { createRequire as __zvetCreateRequire } from 'node:module'; const require = __zvetCreateRequire(import.meta.url);" },
+};
+
+await build({ ...nodeEsm, entryPoints: { cli: 'core/node/cli/main.ts' }, outdir: 'dist' });
