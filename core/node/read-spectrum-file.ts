@@ -1,0 +1,30 @@
+/**
+ * Reads a spectrum file from disk: the bytes go to readSpectrum with the file's base name;
+ * file-system failures become SpectrumReadError with a plain reason.
+ */
+import { readFile } from 'node:fs/promises';
+import { basename } from 'node:path';
+import { readSpectrum, type ReadOptions } from '../spectrum/read.js';
+import { SpectrumReadError, type Spectrum } from '../spectrum/spectrum.js';
+
+const REASONS: Record<string, string> = {
+  ENOENT: 'no such file',
+  EACCES: 'permission denied',
+  EPERM: 'permission denied',
+  EISDIR: 'is a folder, not a file',
+  ENOTDIR: 'a part of the path is not a folder',
+  EMFILE: 'too many open files',
+};
+
+export async function readSpectrumFile(path: string, options?: ReadOptions): Promise<Spectrum> {
+  const name = basename(path);
+  let bytes: Uint8Array;
+  try {
+    const buf = await readFile(path);
+    bytes = new Uint8Array(buf.buffer, buf.byteOffset, buf.byteLength);
+  } catch (err) {
+    const code = (err as NodeJS.ErrnoException).code ?? '';
+    throw new SpectrumReadError(name, REASONS[code] ?? `cannot be read (${code || String(err)})`);
+  }
+  return readSpectrum(bytes, name, options);
+}

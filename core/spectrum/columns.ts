@@ -1,0 +1,69 @@
+/**
+ * Which table column (FITS table or text header) plays which part, by common names, compared
+ * without regard to case. Shared by the FITS table readers and the text reader.
+ */
+
+export type ColumnRole = 'wave' | 'loglam' | 'flux' | 'sigma' | 'ivar' | 'variance' | 'mask' | 'sky' | 'contam' | 'sensitivity';
+
+/** Names per role, in order of preference (common practice, no single source). */
+export const COLUMN_NAMES: Record<ColumnRole, string[]> = {
+  wave: ['wave', 'wavelength', 'lambda', 'lam', 'wl', 'awav', 'wave_air', 'wave_vac', 'wavelength_air', 'wavelength_vac', 'vacuum_wavelength', 'air_wavelength', 'lambda_air', 'lambda_vac', 'wav'],
+  loglam: ['loglam', 'log_lambda', 'log_wave', 'logwave', 'loglambda'],
+  flux: ['flux', 'flux_density', 'flam', 'f_lambda', 'flambda', 'fluxdensity', 'spec', 'spectrum', 'intensity', 'counts', 'data'],
+  sigma: ['error', 'err', 'sigma', 'noise', 'flux_err', 'flux_error', 'fluxerr', 'e_flux', 'err_flux', 'error_flux', 'uncertainty', 'unc', 'flux_unc', 'stddev', 'std', 'dflux', 'sig'],
+  ivar: ['ivar', 'inverse_variance', 'invvar', 'flux_ivar', 'inv_var'],
+  variance: ['variance', 'var', 'flux_var', 'flux_variance'],
+  mask: ['and_mask', 'mask', 'badpix', 'bad', 'flag', 'flags', 'quality', 'dq', 'pixel_mask'],
+  sky: ['sky', 'sky_flux', 'skyflux', 'background', 'bkg'],
+  contam: ['contam', 'contamination'],
+  sensitivity: ['sensitivity', 'sens'],
+};
+
+/** The first name of the role's list that `has` accepts. */
+export function findByRole<T>(role: ColumnRole, lookup: (name: string) => T | undefined): T | undefined {
+  for (const name of COLUMN_NAMES[role]) {
+    const hit = lookup(name);
+    if (hit !== undefined) return hit;
+  }
+  return undefined;
+}
+
+/** Roles whose column gives an uncertainty, in order of preference. */
+export const ERROR_ROLES = ['sigma', 'ivar', 'variance'] as const;
+export type ErrorRole = (typeof ERROR_ROLES)[number];
+
+/**
+ * 1σ errors from the file's uncertainty column: σ as is, σ = 1/√ivar (ivar ≤ 0 or non-finite:
+ * bad pixel, σ = NaN), σ = √variance. Marks bad pixels in `mask`.
+ */
+export function sigmaFrom(role: ErrorRole, values: Float64Array, mask: Uint8Array): Float64Array {
+  const out = new Float64Array(values.length);
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i];
+    const s = role === 'sigma' ? v : role === 'ivar' ? (v > 0 ? 1 / Math.sqrt(v) : NaN) : v >= 0 ? Math.sqrt(v) : NaN;
+    out[i] = s;
+    if (!(Number.isFinite(s) && s > 0)) mask[i] = 1;
+  }
+  return out;
+}
+
+export const ERROR_KIND: Record<ErrorRole, 'sigma' | 'ivar' | 'variance'> = { sigma: 'sigma', ivar: 'ivar', variance: 'variance' };
+
+/** Bad-pixel flags from a mask column: any non-zero (or non-finite) value is bad. */
+export function maskFrom(values: Float64Array, mask: Uint8Array): void {
+  for (let i = 0; i < values.length; i++) if (values[i] !== 0) mask[i] = 1;
+}
+
+/**
+ * SDSS and_mask / spSpec mask: only the per-pixel "bad data" bits of SPPIXMASK mark a pixel bad
+ * (FULLREJECT 18, NOSKY 22, BRIGHTSKY 23, NODATA 24, COMBINEREJ 25, BADFLUXFACTOR 26,
+ * BADSKYCHI 27; SDSS bitmask documentation, bit numbers from memory). Bits 0–15 flag the whole
+ * fibre (BADFLAT is often set on every pixel) and LOWFLAT, NEARBADPIXEL, PARTIALREJECT,
+ * SCATTEREDLIGHT and CROSSTALK are warnings; the pipeline already sets ivar = 0 where the data
+ * are unusable.
+ */
+export const SDSS_BAD_PIXEL_BITS = (1 << 18) | (1 << 22) | (1 << 23) | (1 << 24) | (1 << 25) | (1 << 26) | (1 << 27);
+
+export function sdssMaskFrom(values: Float64Array, mask: Uint8Array): void {
+  for (let i = 0; i < values.length; i++) if (!Number.isFinite(values[i]) || (values[i] & SDSS_BAD_PIXEL_BITS) !== 0) mask[i] = 1;
+}

@@ -1,0 +1,109 @@
+/**
+ * Spectra in FITS tables: one row per pixel (SDSS spec-*.fits COADD and its re-packaged
+ * upper-case variant, generic tables), one row holding array columns, and slitless-grism
+ * tables (3D-HST: flux density = (flux − contam)/sensitivity, error/sensitivity; Brammer et
+ * al. 2012, ApJS 200, 13). SDSS: λ = 10^loglam; σ = 1/√ivar, ivar = 0 bad; and_mask ≠ 0 bad
+ * (SDSS data model, spec file HDU 1).
+ */
+import { openTable, type FitsTable, type TableColumn } from '../../fits/table.js';
+import { ERROR_KIND, ERROR_ROLES, findByRole, maskFrom, sdssMaskFrom, sigmaFrom } from '../columns.js';
+import { mediumFromName } from '../medium.js';
+import { guessWaveUnit, parseWaveUnit, type WaveUnit } from '../units.js';
+import { bunit, headerParts, type HduContext, type LayoutDraft, type LayoutVerdict } from './layout.js';
+import { GRISM_DEFAULTS, sdssDefaults } from './surveys.js';
+
+export function matchTable(ctx: HduContext): LayoutVerdict {
+  const { hdu } = ctx;
+  if (hdu.kind !== 'bintable' && hdu.kind !== 'ascii-table') return undefined;
+  const table = openTable(hdu);
+  const waveCol = findByRole('wave', table.find) ?? findByRole('loglam', table.find);
+  const fluxCol = findByRole('flux', table.find);
+  if (!waveCol || !fluxCol) return `table without ${waveCol ? 'a flux' : 'a wavelength'} column`;
+  if (waveCol.isText || fluxCol.isText) return 'table whose wavelength or flux column holds text';
+  if (table.rows === 0) return 'table with no rows';
+  const arrays = table.rows === 1 || waveCol.repeat > 1 || waveCol.isVariable;
+  const grism = findByRole('contam', table.find) && findByRole('sensitivity', table.find);
+  const format = grism ? 'fits-grism-table' : arrays ? 'fits-table-arrays' : 'fits-table-rows';
+  return { format, read: () => readTable(ctx, table, format, arrays, waveCol, fluxCol) };
+}
+
+function readTable(
+  ctx: HduContext,
+  table: FitsTable,
+  format: string,
+  arrays: boolean,
+  waveCol: TableColumn,
+  fluxCol: TableColumn,
+): LayoutDraft {
+  // Array tables: the first row holds the spectrum; row tables: every row is a pixel.
+  const get = (c: TableColumn) => (arrays ? table.rowValues(c, 0) : table.values(c));
+  const isLog = findByRole('loglam', table.find) === waveCol;
+  const rawWave = get(waveCol);
+  const wave = isLog ? rawWave.map((v) => 10 ** v) : rawWave;
+  let flux = get(fluxCol);
+  const n = flux.length;
+  const mask = new Uint8Array(n);
+  let error: Float64Array | undefined;
+  let errorKind: LayoutDraft['errorKind'] = 'none';
+  for (const role of ERROR_ROLES) {
+    const col = findByRole(role, table.find);
+    if (col && !col.isText) {
+      const values = get(col);
+      if (values.length === n) {
+        error = sigmaFrom(role, values, mask);
+        errorKind = ERROR_KIND[role];
+      } else error = values; // length mismatch is reported by finish
+      break;
+    }
+  }
+  const maskCol = findByRole('mask', table.find);
+  if (maskCol && !maskCol.isText) {
+    const values = get(maskCol);
+    if (values.length === n) (maskCol.name.toLowerCase() === 'and_mask' ? sdssMaskFrom : maskFrom)(values, mask);
+  }
+  const skyCol = findByRole('sky', table.find);
+  const sky = skyCol && !skyCol.isText ? get(skyCol) : undefined;
+  let fluxUnit = fluxCol.unit ?? bunit(ctx.keywords) ?? 'unknown';
+  if (format === 'fits-grism-table') {
+    const contamCol = findByRole('contam', table.find)!;
+    const sensCol = findByRole('sensitivity', table.find)!;
+    const contam = get(contamCol);
+    const sens = get(sensCol);
+    flux = flux.map((f, i) => (sens[i] > 0 ? (f - contam[i]) / sens[i] : NaN));
+    if (error) error = error.map((e, i) => (sens[i] > 0 ? e / sens[i] : NaN));
+    fluxUnit = grismFluxUnit(sensCol.unit, fluxUnit);
+  }
+  const defaults = sdssDefaults(ctx.keywords) ?? (format === 'fits-grism-table' ? GRISM_DEFAULTS : {});
+  const parts = headerParts(ctx, defaults);
+  const named = mediumFromName(waveCol.name);
+  return {
+    format,
+    wave,
+    waveUnit: waveUnitOf(waveCol, wave, isLog),
+    dispersion: isLog ? 'log10' : 'tabulated',
+    flux,
+    error,
+    errorKind,
+    mask: maskCol || errorKind !== 'none' ? mask : undefined,
+    sky,
+    fluxUnit,
+    ...parts,
+    medium: parts.medium.reason.startsWith('assumed') && named ? named : parts.medium,
+  };
+}
+
+/** 'E/S / 1E-17 CGS' (3D-HST) → the flux density unit the division gives. */
+function grismFluxUnit(sensitivityUnit: string | undefined, countUnit: string): string {
+  const m = sensitivityUnit ? /\/\s*(1E-?\d+)\s*CGS/i.exec(sensitivityUnit) : null;
+  if (m) return `${m[1].toLowerCase().replace('e', 'e')} erg/s/cm^2/Angstrom`;
+  return sensitivityUnit ? `(${countUnit}) / (${sensitivityUnit})` : 'unknown';
+}
+
+function waveUnitOf(col: TableColumn, wave: Float64Array, isLog: boolean): WaveUnit {
+  const text = col.unit?.replace(/^log\s*\(?\s*|\s*\)$/gi, '');
+  const unit = text ? parseWaveUnit(text) : undefined;
+  if (unit) return unit;
+  // loglam columns of SDSS carry no unit: log10 of Å (SDSS data model).
+  if (isLog) return { name: 'Å', toAngstrom: 1, assumed: false };
+  return guessWaveUnit(wave);
+}

@@ -1,0 +1,43 @@
+/**
+ * Gzip-compressed files (RFC 1952), inflated in pure JavaScript with fflate, in chunks so that
+ * a file that would inflate past MAX_INFLATED_BYTES (a "gzip bomb") is refused early.
+ */
+import { Gunzip } from 'fflate';
+import { SpectrumReadError } from './spectrum.js';
+
+/** Largest inflated size accepted: room for 50 million 4-byte pixels plus headers. */
+export const MAX_INFLATED_BYTES = 256 * 1024 * 1024;
+
+const CHUNK = 64 * 1024;
+
+export function isGzip(bytes: Uint8Array): boolean {
+  return bytes.length >= 2 && bytes[0] === 0x1f && bytes[1] === 0x8b;
+}
+
+export function gunzip(bytes: Uint8Array, fileName: string, maxBytes = MAX_INFLATED_BYTES): Uint8Array {
+  const parts: Uint8Array[] = [];
+  let total = 0;
+  let done = false;
+  const inflater = new Gunzip((chunk, final) => {
+    total += chunk.length;
+    if (total > maxBytes) throw new SpectrumReadError(fileName, `gzip data inflates to more than ${maxBytes} bytes; refused`);
+    parts.push(chunk);
+    if (final) done = true;
+  });
+  try {
+    for (let at = 0; at < bytes.length; at += CHUNK) {
+      inflater.push(bytes.subarray(at, Math.min(at + CHUNK, bytes.length)), at + CHUNK >= bytes.length);
+    }
+  } catch (err) {
+    if (err instanceof SpectrumReadError) throw err;
+    throw new SpectrumReadError(fileName, `corrupt gzip data (${err instanceof Error ? err.message : String(err)})`);
+  }
+  if (!done) throw new SpectrumReadError(fileName, 'truncated gzip data');
+  const out = new Uint8Array(total);
+  let at = 0;
+  for (const p of parts) {
+    out.set(p, at);
+    at += p.length;
+  }
+  return out;
+}

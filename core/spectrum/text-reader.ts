@@ -1,0 +1,163 @@
+/**
+ * Plain-text spectra: whitespace-, comma- or tab-separated columns, '#' comments, an optional
+ * header row naming the columns (with units: 'wave_A', 'wavelength[nm]', 'lambda (um)'),
+ * 2–4 columns read as wavelength, flux, error (σ, or ivar/variance when the header says so)
+ * and mask. Comment lines 'KEY = value' or 'KEY: value' are kept as header cards, so that
+ * OBJECT, RA, DATE-OBS, AIRORVAC, SPECSYS and the like work as in FITS.
+ */
+import { FitsHeader, parseFitsNumber, type FitsCard } from '../fits/header.js';
+import { COLUMN_NAMES, ERROR_KIND, findByRole, maskFrom, sigmaFrom, type ColumnRole, type ErrorRole } from './columns.js';
+import type { SpectrumDraft } from './draft.js';
+import { stackKeywords } from './keywords.js';
+import { ASSUMED_AIR, mediumFromKeywords, mediumFromName } from './medium.js';
+import { metadataOf } from './metadata.js';
+import { SpectrumReadError } from './spectrum.js';
+import { guessWaveUnit, parseWaveUnit, type WaveUnit } from './units.js';
+
+interface HeaderColumn {
+  role?: ColumnRole;
+  name: string;
+  unit?: string;
+}
+
+export function readTextSpectrum(bytes: Uint8Array, fileName: string): SpectrumDraft {
+  const fail = (reason: string): never => {
+    throw new SpectrumReadError(fileName, reason);
+  };
+  if (bytes.length === 0) fail('the file is empty');
+  if (bytes.subarray(0, 4096).includes(0)) fail('not a spectrum: binary data that is neither FITS nor gzip');
+  const text = new TextDecoder('utf-8', { fatal: false }).decode(bytes);
+  const cards: FitsCard[] = [];
+  let headerRow: string[] | undefined;
+  let lastComment: string | undefined;
+  let delimiter: RegExp | undefined;
+  let ncols = 0;
+  const columns: number[][] = [];
+  const lines = text.split(/\r\n|\r|\n/);
+  for (let ln = 0; ln < lines.length; ln++) {
+    const line = lines[ln].trim();
+    if (line === '') continue;
+    if (line.startsWith('#') || line.startsWith('%') || line.startsWith('!')) {
+      const body = line.replace(/^[#%!]+\s*/, '');
+      const kv = /^([A-Za-z][\w-]{0,15})\s*[=:]\s*(.*)$/.exec(body);
+      if (kv) cards.push({ key: kv[1].toUpperCase(), value: cardValue(kv[2]) });
+      else lastComment = body;
+      continue;
+    }
+    delimiter ??= line.includes(',') ? /\s*,\s*/ : line.includes('\t') ? /\s*\t\s*/ : /\s+/;
+    const fields = line.split(delimiter);
+    const numbers = fields.map(parseNumber);
+    if (ncols === 0) {
+      if (numbers.some((v) => v === null)) {
+        if (headerRow) fail(`line ${ln + 1}: '${line.slice(0, 40)}' is neither a header row nor numbers`);
+        headerRow = fields;
+        continue;
+      }
+      ncols = fields.length;
+      if (ncols < 2 || ncols > 4) fail(`line ${ln + 1} has ${ncols} columns; zvet reads 2 to 4 (wavelength, flux, error, mask)`);
+      for (let c = 0; c < ncols; c++) columns.push([]);
+      // A commented-out header row just above the data ('# wave flux err') names the columns too.
+      if (!headerRow && lastComment && lastComment.split(delimiter).length === ncols && lastComment.split(delimiter).every((f) => parseNumber(f) === null)) {
+        headerRow = lastComment.split(delimiter);
+      }
+    }
+    if (fields.length !== ncols) fail(`line ${ln + 1} has ${fields.length} columns, but earlier lines have ${ncols}`);
+    for (let c = 0; c < ncols; c++) {
+      if (numbers[c] === null) fail(`line ${ln + 1}: '${fields[c].slice(0, 20)}' is not a number`);
+      columns[c].push(numbers[c]!);
+    }
+  }
+  if (ncols === 0) fail('not a spectrum: no numeric data lines');
+  if (headerRow && headerRow.length !== ncols) fail(`the header row names ${headerRow.length} columns but the data has ${ncols}`);
+  const named = headerRow ? headerRow.map(describeColumn) : undefined;
+  const roleIndex = (role: ColumnRole, position: number): number => {
+    if (!named) return position < ncols ? position : -1;
+    return named.findIndex((c) => c.role === role);
+  };
+  const waveAt = named ? Math.max(roleIndex('wave', 0), -1) : 0;
+  const fluxAt = named ? roleIndex('flux', 1) : 1;
+  if (waveAt < 0 || fluxAt < 0) fail(`the header row '${headerRow!.join(' ')}' names no ${waveAt < 0 ? 'wavelength' : 'flux'} column`);
+  const arr = (i: number) => Float64Array.from(columns[i]);
+  const wave = arr(waveAt);
+  const flux = arr(fluxAt);
+  const n = wave.length;
+  const mask = new Uint8Array(n);
+  let error: Float64Array | undefined;
+  let errorKind: SpectrumDraft['errorKind'] = 'none';
+  const errorRoles: ErrorRole[] = ['sigma', 'ivar', 'variance'];
+  for (const role of errorRoles) {
+    const at = named ? roleIndex(role, -1) : ncols >= 3 && role === 'sigma' ? 2 : -1;
+    if (at >= 0) {
+      error = sigmaFrom(role, arr(at), mask);
+      errorKind = ERROR_KIND[role];
+      break;
+    }
+  }
+  const maskAt = named ? roleIndex('mask', -1) : ncols === 4 ? 3 : -1;
+  if (maskAt >= 0) maskFrom(arr(maskAt), mask);
+  const skyAt = named ? roleIndex('sky', -1) : -1;
+  const header = new FitsHeader(cards);
+  const keywords = stackKeywords(header);
+  const waveName = named?.[waveAt];
+  const waveUnit: WaveUnit = (waveName?.unit && parseWaveUnit(waveName.unit)) || guessWaveUnit(wave);
+  const medium = mediumFromKeywords(keywords) ?? (waveName ? mediumFromName(waveName.name) : undefined) ?? ASSUMED_AIR;
+  return {
+    format: headerRow ? 'text (named columns)' : 'text',
+    hdu: null,
+    spectrumHdus: [],
+    wave,
+    waveUnit,
+    dispersion: 'tabulated',
+    flux,
+    error,
+    errorKind,
+    mask: error || maskAt >= 0 ? mask : undefined,
+    sky: skyAt >= 0 ? arr(skyAt) : undefined,
+    fluxUnit: (fluxAt >= 0 && named?.[fluxAt].unit) || keywords.string('BUNIT') || 'unknown',
+    medium,
+    meta: metadataOf(keywords),
+    header: cards.map((c) => ({ key: c.key, value: c.value })),
+  };
+}
+
+function parseNumber(field: string): number | null {
+  const f = field.trim();
+  if (/^[+-]?(nan|inf|infinity)$/i.test(f)) return /nan/i.test(f) ? NaN : f.startsWith('-') ? -Infinity : Infinity;
+  return parseFitsNumber(f);
+}
+
+function cardValue(text: string): string | number | boolean {
+  const t = text.trim().replace(/^'(.*)'$/, '$1').replace(/^"(.*)"$/, '$1');
+  if (t === 'T' || t === 'F') return t === 'T';
+  return parseFitsNumber(t) ?? t;
+}
+
+/**
+ * 'wavelength[nm]', 'wave (um)', 'wave_A', 'flux_err' → role and unit. The name without its
+ * unit is matched against the common column names of columns.ts.
+ */
+export function describeColumn(raw: string): HeaderColumn {
+  const text = raw.trim().replace(/^["']|["']$/g, '');
+  let name = text;
+  let unit: string | undefined;
+  const bracket = /^(.*?)\s*[[(]\s*([^\])]*)\s*[\])]$/.exec(text);
+  if (bracket) {
+    name = bracket[1];
+    unit = bracket[2];
+  } else {
+    const suffix = /^(.*?)[_-](a|aa|ang|angstrom|angstroms|nm|um|micron|microns|m)$/i.exec(text);
+    if (suffix && roleOf(suffix[1])) {
+      name = suffix[1];
+      unit = suffix[2];
+    }
+  }
+  return { role: roleOf(name), name: text, unit };
+}
+
+function roleOf(name: string): ColumnRole | undefined {
+  const lower = name.toLowerCase();
+  for (const role of Object.keys(COLUMN_NAMES) as ColumnRole[]) {
+    if (findByRole(role, (n) => (n === lower ? n : undefined))) return role === 'loglam' ? undefined : role;
+  }
+  return undefined;
+}

@@ -1,0 +1,41 @@
+/**
+ * Wavelength units as written in CUNITn, TUNITn, IRAF WAT strings or text headers, and their
+ * factor to Å (1 Å = 0.1 nm = 1e-4 µm = 1e-10 m).
+ */
+
+export interface WaveUnit {
+  /** Name shown to the user ('Å', 'nm', 'µm', 'm', 'cm', 'mm'). */
+  name: string;
+  toAngstrom: number;
+  /** True when the file named no unit and zvet inferred it from the values. */
+  assumed: boolean;
+}
+
+const UNITS: Array<[RegExp, string, number]> = [
+  [/^(a|aa|å|ang|angs|angstrom|angstroms|ångström|ångströms|0\.1 ?nm|1e-10 ?m)$/, 'Å', 1],
+  [/^(nm|nanometer|nanometers|nanometre|nanometres)$/, 'nm', 10],
+  [/^(um|µm|μm|micron|microns|micrometer|micrometers|micrometre|micrometres)$/, 'µm', 1e4],
+  [/^(mm|millimeter|millimeters)$/, 'mm', 1e7],
+  [/^(cm|centimeter|centimeters)$/, 'cm', 1e8],
+  [/^(m|meter|meters|metre|metres)$/, 'm', 1e10],
+];
+
+/** The unit a text names, or undefined when it names no wavelength unit zvet knows. */
+export function parseWaveUnit(text: string): WaveUnit | undefined {
+  const t = text.trim().toLowerCase().replace(/^\[|\]$|^\(|\)$/g, '');
+  for (const [re, name, toAngstrom] of UNITS) if (re.test(t)) return { name, toAngstrom, assumed: false };
+  return undefined;
+}
+
+/**
+ * Infers the unit of unlabelled wavelengths from their size (common practice, no source):
+ * Å unless the values are implausibly small for Å — below 100 they are µm (0.1–30 µm covers
+ * UV to mid-IR), below 1e-4 they are metres.
+ */
+export function guessWaveUnit(wave: ArrayLike<number>): WaveUnit {
+  let max = 0;
+  for (let i = 0; i < wave.length; i++) if (Math.abs(wave[i]) > max) max = Math.abs(wave[i]);
+  if (max > 0 && max < 1e-4) return { name: 'm', toAngstrom: 1e10, assumed: true };
+  if (max > 0 && max < 100) return { name: 'µm', toAngstrom: 1e4, assumed: true };
+  return { name: 'Å', toAngstrom: 1, assumed: true };
+}
