@@ -14,3 +14,8 @@ const nodeEsm = {
 };
 
 await build({ ...nodeEsm, entryPoints: { cli: 'core/node/cli/main.ts' }, outdir: 'dist' });
+
+// The Electron host: main process and sandboxed preload, CommonJS, Electron itself left external.
+const electronCjs = { bundle: true, platform: 'node', format: 'cjs', target: 'node20', sourcemap: true, logLevel: 'warning', external: ['electron'], outdir: 'dist/electron', outExtension: { '.js': '.cjs' } };
+await build({ ...electronCjs, entryPoints: { main: 'electron/main.ts' } });
+await build({ ...electronCjs, entryPoints: { preload: 'electron/preload.ts' } });

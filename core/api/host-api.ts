@@ -5,6 +5,19 @@
  * (core/node/host/handlers.ts); the transports hold no logic.
  *
  * Arrays of numbers travel as plain number[]; NaN and ±Infinity travel as null.
+ *
+ * How each transport carries a call (both behave alike for the window):
+ * - Electron: `window.zvetHost.<method>(request)` resolves with the response, or rejects with a
+ *   HostError value (a plain object { error, status }, not an Error instance).
+ * - Browser mode: `POST /api/<method>` with the request as the JSON body and the header
+ *   `Content-Type: application/json` (anything else is refused with 415). Status 200 carries the
+ *   response as JSON; any other status carries a HostError as JSON. The page is let in by the
+ *   HttpOnly cookie the server sets when index.html is opened with the right ?token=, so a
+ *   same-origin fetch needs no extra header (`X-Zvet-Token` works too, for scripts).
+ * - Statuses: 400 request of the wrong shape (the error names the field), 404 unknown method or
+ *   an id that is not in the open worklist, 409 no worklist open, 413 body over 1 MiB,
+ *   422 the file cannot be read or measured, 503 the disk refused a write (the verdict stays
+ *   queued in memory and is retried on the next save), 500 anything unexpected.
  */
 import type { Confidence, ObjectClass, Verdict, VerdictStatus } from '../catalogue/verdict.js';
 import type { Measurement } from '../redshift/types.js';

@@ -1,5 +1,6 @@
 import { Command } from 'commander';
 import { registerInspect } from './inspect.js';
+import { registerServe } from './serve.js';
 import { EXIT_USAGE_OR_UNREADABLE } from './run-action.js';
 
 const program = new Command('zvet')
@@ -10,5 +11,6 @@ const program = new Command('zvet')
   });
 
 registerInspect(program);
+registerServe(program);
 
 await program.parseAsync(process.argv);

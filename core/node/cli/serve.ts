@@ -1,0 +1,71 @@
+/**
+ * `zvet serve [FOLDER] [--port N] [--no-open]`: browser mode. Serves the window and the host API
+ * on 127.0.0.1 only, prints exactly one line (the address with its token) on stdout, opens the
+ * system browser unless --no-open, and stops cleanly on SIGINT/SIGTERM.
+ */
+import { spawn } from 'node:child_process';
+import { stat } from 'node:fs/promises';
+import { dirname, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import type { Command } from 'commander';
+import { createHostHandlers } from '../host/handlers.js';
+import { startHostServer } from '../host/http-server.js';
+import { runAction } from './run-action.js';
+import { UsageError } from './usage-error.js';
+
+/** dist/renderer/, beside the bundled dist/cli.js. */
+function rendererRoot(): string {
+  return resolve(dirname(fileURLToPath(import.meta.url)), 'renderer');
+}
+
+function parsePort(text: string): number {
+  const port = Number(text);
+  if (!Number.isInteger(port) || port < 0 || port > 65535) throw new UsageError(`--port: "${text}" is not a port number (0–65535; 0 picks a free one)`);
+  return port;
+}
+
+/** Best effort: when no browser can be started, the printed line is enough. */
+function openBrowser(url: string): void {
+  const [command, args] =
+    process.platform === 'darwin' ? ['open', [url]] : process.platform === 'win32' ? ['cmd', ['/c', 'start', '""', url]] : ['xdg-open', [url]];
+  try {
+    const child = spawn(command, args as string[], { stdio: 'ignore', detached: true });
+    child.on('error', () => process.stderr.write('zvet: could not open a browser; open the address above yourself\n'));
+    child.unref();
+  } catch {
+    process.stderr.write('zvet: could not open a browser; open the address above yourself\n');
+  }
+}
+
+export function registerServe(program: Command): void {
+  program
+    .command('serve')
+    .description('Open a worklist in browser mode: serves the window on 127.0.0.1 only, behind a token printed with the address')
+    .argument('[folder]', 'worklist folder to open')
+    .option('--port <n>', 'port on 127.0.0.1 (0 picks a free one)', '0')
+    .option('--no-open', 'do not start the system browser')
+    .action(
+      runAction(async (folder: string | undefined, opts: { port: string; open: boolean }) => {
+        const port = parsePort(opts.port);
+        const handlers = createHostHandlers();
+        if (folder !== undefined) {
+          const path = resolve(folder);
+          const info = await stat(path);
+          if (!info.isDirectory()) throw new UsageError(`${path}: not a folder (give the worklist folder)`);
+          const state = await handlers.openWorklist({ path });
+          for (const w of state.warnings) process.stderr.write(`zvet: ${w}\n`);
+        }
+        const server = await startHostServer({ api: handlers, staticRoot: rendererRoot(), port });
+        process.stdout.write(`${server.url}\n`);
+        if (opts.open) openBrowser(server.url);
+        await new Promise<void>((done) => {
+          const stop = () => done();
+          process.once('SIGINT', stop);
+          process.once('SIGTERM', stop);
+        });
+        await server.close();
+        await handlers.close();
+        return 0;
+      }),
+    );
+}

@@ -1,0 +1,374 @@
+/**
+ * Every host call's logic, in one place, shared by both transports (loopback HTTP and Electron
+ * IPC). Requests arrive already shape-checked (request-shapes.ts); here ids are checked against
+ * the open worklist, so no path from the page is ever opened directly, and only files inside
+ * the worklist folder (after resolving symlinks) are read.
+ */
+import { realpath, stat } from 'node:fs/promises';
+import { isAbsolute } from 'node:path';
+import type {
+  ExportFormat,
+  HostApi,
+  RemeasureOptions,
+  Settings,
+  SpectrumView,
+  VerdictInput,
+  WorklistState,
+} from '../../api/host-api.js';
+import type { FrameResult } from '../../astro/frames.js';
+import { COSMOLOGY_PRESETS } from '../../astro/cosmology.js';
+import type { Verdict } from '../../catalogue/verdict.js';
+import type { HostAnalysis } from '../../hosts/analyse.js';
+import type { Site, Spectrum } from '../../spectrum/spectrum.js';
+import { describeFailure } from '../cli/run-action.js';
+import { resolveExportPath } from './export-path.js';
+import { HostFailure } from './host-failure.js';
+import { MeasurementCache, optionsKey } from './measurement-cache.js';
+import type { FrameRequest, HostServices, MeasuredFile, OpenedWorklist } from './services.js';
+import { defaultServices } from './default-services.js';
+import { SettingsStore } from './settings-store.js';
+import { spectrumArrays, spectrumMetaView, toJsonNumbers } from './spectrum-view.js';
+import { isInside } from './static-files.js';
+
+export interface HostHandlers extends HostApi {
+  /** Stops background measuring and the worker pool. */
+  close(): Promise<void>;
+}
+
+export interface HostHandlerOptions {
+  settings?: SettingsStore;
+  services?: HostServices;
+  /** The clock that stamps verdicts (tests pin it). */
+  now?: () => Date;
+}
+
+interface Entry {
+  absPath: string;
+  /** Why the file is not read (it leads out of the worklist), or null. */
+  refusal: string | null;
+}
+
+/** One open worklist: its files, its journal, the verdicts waiting for the disk, its measurements. */
+interface Session {
+  worklist: OpenedWorklist;
+  entries: Map<string, Entry>;
+  /** Verdicts the disk refused so far, oldest first; written before any newer one. */
+  queued: Verdict[];
+  lastWriteError: string | null;
+  cache: MeasurementCache;
+  optionsFor: Map<string, RemeasureOptions>;
+  hduFor: Map<string, number | null>;
+  closed: boolean;
+}
+
+const WRITE_ERRORS: Record<string, string> = {
+  ENOSPC: 'the disk is full',
+  EROFS: 'the file system is read-only',
+  EACCES: 'permission denied',
+  EPERM: 'operation not permitted',
+  EDQUOT: 'the disk quota is exhausted',
+  EIO: 'input/output error',
+};
+
+function missing(what: string): HostFailure {
+  return new HostFailure(503, `${what} is not available in this build yet`);
+}
+
+class Handlers implements HostHandlers {
+  private session: Session | null = null;
+  /** Serialises journal writes so verdicts reach the disk in the order they were made. */
+  private writing: Promise<unknown> = Promise.resolve();
+
+  constructor(
+    private readonly settings: SettingsStore,
+    private readonly services: HostServices,
+    private readonly now: () => Date,
+  ) {}
+
+  // ---- worklist ----------------------------------------------------------------------------
+
+  async openWorklist(req: { path: string } | { files: string[] }): Promise<WorklistState> {
+    const open = this.services.openWorklist;
+    if (!open) throw missing('opening a worklist');
+    const targets = 'path' in req ? [req.path] : req.files;
+    for (const t of targets) {
+      if (!isAbsolute(t)) throw new HostFailure(400, `${t}: give an absolute path`);
+      const info = await stat(t).catch(() => null);
+      if (!info) throw new HostFailure(404, `${t}: no such file or folder`);
+      if ('path' in req && !info.isDirectory()) throw new HostFailure(400, `${t}: not a folder (give the worklist folder, or a list of files)`);
+      if ('files' in req && !info.isFile()) throw new HostFailure(400, `${t}: not a file`);
+    }
+    if (this.session && this.session.queued.length > 0) await this.flushQueue(this.session);
+
+    let worklist: OpenedWorklist;
+    try {
+      worklist = await open('path' in req ? req.path : req.files);
+    } catch (err) {
+      throw new HostFailure(422, describeFailure(err));
+    }
+    const realRoot = await realpath(worklist.root);
+    const entries = new Map<string, Entry>();
+    for (const e of worklist.entries) {
+      const real = await realpath(e.absPath).catch(() => null);
+      const refusal = real === null ? 'the file has gone' : isInside(realRoot, real) ? null : 'it links to a file outside the worklist folder, so it is not read';
+      entries.set(e.spectrum, { absPath: real ?? e.absPath, refusal });
+    }
+    if (this.session) this.session.closed = true;
+    const session: Session = {
+      worklist,
+      entries,
+      queued: [],
+      lastWriteError: null,
+      cache: new MeasurementCache(),
+      optionsFor: new Map(),
+      hduFor: new Map(),
+      closed: false,
+    };
+    this.session = session;
+    const warnings: string[] = [];
+    await this.settings.rememberWorklist(worklist.root).catch((err: unknown) => warnings.push(`settings not saved: ${describeFailure(err)}`));
+    void this.measureInBackground(session);
+    return this.state(session, warnings);
+  }
+
+  async listSpectra(): Promise<WorklistState> {
+    return this.state(this.requireSession());
+  }
+
+  private state(s: Session, extra: string[] = []): WorklistState {
+    const verdicts = this.verdictsInForce(s);
+    const items = [...s.entries].map(([id, entry]) => ({
+      id,
+      verdict: verdicts.get(id) ?? null,
+      suggestion: s.cache.suggestions.get(id) ?? null,
+      error: entry.refusal ?? s.cache.errors.get(id) ?? null,
+    }));
+    const warnings = [...this.settings.warnings, ...s.worklist.journal.warnings, ...extra];
+    if (s.queued.length > 0) warnings.push(this.queueWarning(s));
+    return { root: s.worklist.root, name: s.worklist.name, journalPath: s.worklist.journalPath, items, warnings };
+  }
+
+  private verdictsInForce(s: Session): Map<string, Verdict> {
+    const out = new Map(s.worklist.journal.current());
+    for (const v of s.queued) out.set(v.spectrum, v);
+    return out;
+  }
+
+  private requireSession(): Session {
+    if (!this.session) throw new HostFailure(409, 'no worklist is open: open a folder first');
+    return this.session;
+  }
+
+  private entryOf(s: Session, id: string): Entry {
+    const entry = s.entries.get(id);
+    if (!entry) throw new HostFailure(404, `${id}: not a spectrum of the open worklist`);
+    return entry;
+  }
+
+  // ---- measuring ---------------------------------------------------------------------------
+
+  private measured(s: Session, id: string, options: RemeasureOptions): Promise<MeasuredFile> {
+    const entry = this.entryOf(s, id);
+    if (entry.refusal) return Promise.resolve({ hdu: null, error: `${id}: ${entry.refusal}`, measurement: null, spectrum: null });
+    const measure = this.services.measureFile;
+    if (!measure) return Promise.reject(missing('measuring (the worker pool)'));
+    return s.cache.get(optionsKey(id, options), async () => {
+      const result = await measure(entry.absPath, { ...options, withCorrelation: true });
+      if (!s.closed) {
+        s.cache.note(id, result);
+        if (result.hdu !== null || !s.hduFor.has(id)) s.hduFor.set(id, result.hdu);
+      }
+      return result;
+    });
+  }
+
+  /** Measures every spectrum once, one at a time, so the list fills in with suggestions. */
+  private async measureInBackground(s: Session): Promise<void> {
+    if (!this.services.measureFile) return;
+    for (const [id, entry] of s.entries) {
+      if (s.closed) return;
+      if (entry.refusal || s.cache.suggestions.has(id)) continue;
+      await this.measured(s, id, {}).catch(() => undefined);
+    }
+  }
+
+  private async spectrumOf(s: Session, id: string): Promise<Spectrum> {
+    const result = await this.measured(s, id, s.optionsFor.get(id) ?? {});
+    if (!result.spectrum) throw new HostFailure(422, result.error ?? `${id}: the file could not be read`);
+    return result.spectrum;
+  }
+
+  private async view(s: Session, id: string, options: RemeasureOptions): Promise<SpectrumView> {
+    const result = await this.measured(s, id, options);
+    const verdict = this.verdictsInForce(s).get(id) ?? null;
+    if (!result.spectrum) return { id, arrays: null, meta: null, measurement: null, templateModel: null, verdict, error: result.error ?? `${id}: the file could not be read` };
+    const best = result.measurement?.best ?? null;
+    const model = best && this.services.templateModelFlux ? { template: best.template, z: best.z, flux: toJsonNumbers(this.services.templateModelFlux(best.template, best.z, result.spectrum)) } : null;
+    return {
+      id,
+      arrays: spectrumArrays(result.spectrum),
+      meta: spectrumMetaView(result.spectrum),
+      measurement: result.measurement,
+      templateModel: model,
+      verdict,
+      error: result.error,
+    };
+  }
+
+  async loadSpectrum(req: { id: string }): Promise<SpectrumView> {
+    const s = this.requireSession();
+    return this.view(s, req.id, s.optionsFor.get(req.id) ?? {});
+  }
+
+  async remeasure(req: { id: string; options: RemeasureOptions }): Promise<SpectrumView> {
+    const s = this.requireSession();
+    this.entryOf(s, req.id);
+    s.optionsFor.set(req.id, req.options);
+    return this.view(s, req.id, req.options);
+  }
+
+  async templateModel(req: { id: string; template: string; z: number }): Promise<{ flux: (number | null)[] }> {
+    const s = this.requireSession();
+    const model = this.services.templateModelFlux;
+    if (!model) throw missing('the template model');
+    const spectrum = await this.spectrumOf(s, req.id);
+    try {
+      return { flux: toJsonNumbers(model(req.template, req.z, spectrum)) };
+    } catch (err) {
+      throw new HostFailure(400, `template ${req.template}: ${describeFailure(err)}`);
+    }
+  }
+
+  async derived(req: { id: string; z: number; zErr: number | null }): Promise<FrameResult> {
+    const s = this.requireSession();
+    const correct = this.services.correctFrames;
+    if (!correct) throw missing('frame corrections');
+    const spectrum = await this.spectrumOf(s, req.id);
+    const settings = await this.settings.get();
+    return correct({ spectrum, z: req.z, zErr: req.zErr, site: siteFor(spectrum, settings), cosmology: cosmologyOf(settings) });
+  }
+
+  async hostAnalysis(req: { id: string; z: number }): Promise<HostAnalysis> {
+    const s = this.requireSession();
+    const analyse = this.services.analyseHost;
+    if (!analyse) throw missing('host-galaxy analysis');
+    return analyse(await this.spectrumOf(s, req.id), req.z);
+  }
+
+  // ---- verdicts ----------------------------------------------------------------------------
+
+  async saveVerdict(req: VerdictInput): Promise<{ verdict: Verdict }> {
+    const s = this.requireSession();
+    this.entryOf(s, req.id);
+    const settings = await this.settings.get();
+    const verdict: Verdict = {
+      spectrum: req.id,
+      hdu: s.hduFor.get(req.id) ?? null,
+      status: req.status,
+      z: req.z,
+      zErr: req.zErr,
+      confidence: req.confidence,
+      objectClass: req.objectClass,
+      template: req.template,
+      note: req.note,
+      time: this.now().toISOString(),
+      user: settings.user,
+    };
+    s.queued.push(verdict);
+    await this.flushQueue(s);
+    return { verdict };
+  }
+
+  /** Writes every queued verdict in order; on a refusal keeps the rest queued and says why. */
+  private flushQueue(s: Session): Promise<void> {
+    const run = this.writing.then(async () => {
+      while (s.queued.length > 0) {
+        try {
+          await s.worklist.journal.append(s.queued[0]);
+        } catch (err) {
+          const code = (err as NodeJS.ErrnoException).code ?? '';
+          s.lastWriteError = WRITE_ERRORS[code] ?? describeFailure(err);
+          throw new HostFailure(503, this.queueWarning(s));
+        }
+        s.queued.shift();
+      }
+      s.lastWriteError = null;
+    });
+    this.writing = run.catch(() => undefined);
+    return run;
+  }
+
+  private queueWarning(s: Session): string {
+    const n = s.queued.length;
+    return `${s.worklist.journalPath}: not saved (${s.lastWriteError ?? 'write failed'}); ${n} verdict${n === 1 ? ' is' : 's are'} kept in memory and written with the next save`;
+  }
+
+  async undoLast(): Promise<{ id: string | null; verdict: Verdict | null }> {
+    const s = this.requireSession();
+    let id: string | null;
+    if (s.queued.length > 0) id = s.queued.pop()!.spectrum;
+    else {
+      await this.writing;
+      try {
+        id = await s.worklist.journal.undo();
+      } catch (err) {
+        throw new HostFailure(503, `${s.worklist.journalPath}: undo not saved (${describeFailure(err)})`);
+      }
+    }
+    return { id, verdict: id === null ? null : (this.verdictsInForce(s).get(id) ?? null) };
+  }
+
+  // ---- export and settings -----------------------------------------------------------------
+
+  async exportCatalogue(req: { format: ExportFormat; path?: string }): Promise<{ path: string; rows: number }> {
+    const s = this.requireSession();
+    const write = this.services.writeCatalogue;
+    if (!write) throw missing('catalogue export');
+    if (s.queued.length > 0) await this.flushQueue(s);
+    const w = s.worklist;
+    const path = await resolveExportPath({ root: w.root, name: w.name, journalPath: w.journalPath, spectra: [...s.entries.values()].map((e) => e.absPath) }, req.format, req.path);
+    try {
+      return { path, rows: await write(w, req.format, path) };
+    } catch (err) {
+      throw new HostFailure(503, `export not written: ${describeFailure(err)}`);
+    }
+  }
+
+  getSettings(): Promise<Settings> {
+    return this.settings.get();
+  }
+
+  async putSettings(req: Partial<Settings>): Promise<Settings> {
+    try {
+      return await this.settings.put(req);
+    } catch (err) {
+      if (err instanceof HostFailure) throw err;
+      throw new HostFailure(503, `settings not saved: ${describeFailure(err)}`);
+    }
+  }
+
+  async close(): Promise<void> {
+    if (this.session) this.session.closed = true;
+    await this.writing;
+    await this.services.close();
+  }
+}
+
+/** The site of the observation: the file's own coordinates, else a saved site of the same name. */
+function siteFor(spectrum: Spectrum, settings: Settings): Site | null {
+  const own = spectrum.meta.site;
+  if (own && typeof own.latitudeDeg === 'number' && typeof own.longitudeDeg === 'number') return own;
+  const byName = own?.name ? settings.sites.find((x) => x.name.toLowerCase() === own.name!.toLowerCase()) : undefined;
+  return byName ?? null;
+}
+
+function cosmologyOf(settings: Settings): FrameRequest['cosmology'] {
+  if (settings.cosmologyPreset === 'custom' && settings.customCosmology) return { name: 'custom', ...settings.customCosmology };
+  const preset = COSMOLOGY_PRESETS[settings.cosmologyPreset] ?? COSMOLOGY_PRESETS.planck18;
+  return { name: preset.name, h0: preset.h0, omegaM: preset.omegaM, omegaL: preset.omegaL };
+}
+
+export function createHostHandlers(options: HostHandlerOptions = {}): HostHandlers {
+  return new Handlers(options.settings ?? new SettingsStore(), options.services ?? defaultServices(), options.now ?? (() => new Date()));
+}
+

@@ -1,0 +1,40 @@
+/** Puts a Spectrum into the JSON-safe shapes of the host API (NaN and ±Infinity become null). */
+import type { SpectrumArrays, SpectrumMetaView } from '../../api/host-api.js';
+import type { Spectrum } from '../../spectrum/spectrum.js';
+
+export function toJsonNumbers(values: ArrayLike<number>): (number | null)[] {
+  const out = new Array<number | null>(values.length);
+  for (let i = 0; i < values.length; i++) out[i] = Number.isFinite(values[i]) ? values[i] : null;
+  return out;
+}
+
+export function spectrumArrays(s: Spectrum): SpectrumArrays {
+  return {
+    waveAngstrom: toJsonNumbers(s.waveAngstrom),
+    flux: toJsonNumbers(s.flux),
+    error: toJsonNumbers(s.error),
+    mask: Array.from(s.mask),
+    sky: s.sky ? toJsonNumbers(s.sky) : null,
+  };
+}
+
+export function spectrumMetaView(s: Spectrum): SpectrumMetaView {
+  const m = s.meta;
+  return {
+    fileName: s.fileName,
+    format: s.provenance.format,
+    hdu: s.provenance.hdu,
+    fluxUnit: s.fluxUnit,
+    object: m.object ?? null,
+    raDeg: m.raDeg ?? null,
+    decDeg: m.decDeg ?? null,
+    dateObsUtc: m.dateObsUtc ?? null,
+    mjdObs: m.mjdObs ?? null,
+    exposureS: m.exposureS ?? null,
+    mediumInFile: s.provenance.medium,
+    mediumReason: s.provenance.mediumReason,
+    velocityFrame: m.velocityFrame,
+    velocityFrameReason: m.velocityFrameReason,
+    site: m.site ? { ...m.site } : null,
+  };
+}
