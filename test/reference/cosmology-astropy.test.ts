@@ -1,0 +1,84 @@
+// ΛCDM distances against Debian's astropy (astropy.cosmology.LambdaCDM with Tcmb0 = 0, i.e. no
+// radiation; one group with photons only: Tcmb0 = 2.7255 K, Neff = 0), flat and curved.
+// Requirement: ≤ 1e-6 relative on every distance, the lookback time and the age.
+import { afterAll, describe, expect, it } from 'vitest';
+import { distances, type CosmologyModel, type Distances } from '../../core/astro/cosmology.js';
+import { astropyJson } from '../support/tools.js';
+
+interface Case { h0: number; om: number; ol: number; tcmb: number; z: number }
+type AstropyRow = { ogamma: number; dc: number; dm: number; dl: number; da: number; mu: number; lookback: number; age: number; kpcArcsec: number };
+
+// (H0 km/s/Mpc, Ωm, ΩΛ): flat, open and closed, from nearly empty to Einstein–de Sitter.
+const MODELS: Array<[number, number, number, number]> = [
+  [67.66, 0.3111, 0.6889, 0],
+  [70, 0.3, 0.7, 0],
+  [70, 0.3, 0, 0],
+  [70, 1, 0, 0],
+  [65, 0.2, 0.9, 0],
+  [72, 0.25, 0.6, 0],
+  [60, 0.5, 0.6, 0],
+  [75, 0.05, 0, 0],
+  [68, 0.3, 0.8, 0],
+  [100, 0.27, 0.73, 0],
+  [67.66, 0.3111, 0.6889, 2.7255],
+  [70, 0.3, 0.6, 2.7255],
+];
+const REDSHIFTS = [0.0005, 0.05, 0.3, 1, 2.5, 7, 1100];
+const CASES: Case[] = MODELS.flatMap(([h0, om, ol, tcmb]) => REDSHIFTS.map((z) => ({ h0, om, ol, tcmb, z })));
+
+const SCRIPT = `
+import json, sys
+from astropy.cosmology import LambdaCDM
+import astropy.units as u
+out = []
+for c in json.load(sys.stdin):
+    m = LambdaCDM(H0=c['h0'], Om0=c['om'], Ode0=c['ol'], Tcmb0=c['tcmb'], Neff=0)
+    z = c['z']
+    out.append(dict(
+        ogamma=float(m.Ogamma0),
+        dc=m.comoving_distance(z).to_value(u.Mpc),
+        dm=m.comoving_transverse_distance(z).to_value(u.Mpc),
+        dl=m.luminosity_distance(z).to_value(u.Mpc),
+        da=m.angular_diameter_distance(z).to_value(u.Mpc),
+        mu=m.distmod(z).to_value(u.mag),
+        lookback=m.lookback_time(z).to_value(u.Gyr),
+        age=m.age(z).to_value(u.Gyr),
+        kpcArcsec=m.kpc_proper_per_arcmin(z).to_value(u.kpc / u.arcmin) / 60,
+    ))
+print(json.dumps(out))
+`;
+
+const FIELDS: Array<[keyof Distances, keyof AstropyRow]> = [
+  ['comovingMpc', 'dc'], ['transverseMpc', 'dm'], ['luminosityMpc', 'dl'], ['angularMpc', 'da'],
+  ['lookbackGyr', 'lookback'], ['ageGyr', 'age'], ['kpcPerArcsec', 'kpcArcsec'],
+];
+
+const worst = { relative: 0, relativeWhere: '', muMag: 0, muWhere: '' };
+
+describe('cosmology against astropy LambdaCDM', () => {
+  const reference = astropyJson<AstropyRow[]>(SCRIPT, [], JSON.stringify(CASES));
+
+  it('covers at least 30 combinations including curved models', () => {
+    expect(CASES.length).toBeGreaterThanOrEqual(30);
+    expect(CASES.filter((c) => Math.abs(1 - c.om - c.ol) > 0.01).length).toBeGreaterThanOrEqual(30);
+  });
+
+  it.each(CASES.map((c, i) => [`z=${c.z} H0=${c.h0} Ωm=${c.om} ΩΛ=${c.ol} Tcmb=${c.tcmb}`, c, i] as const))('%s', (label, c, i) => {
+    const ref = reference[i];
+    const model: CosmologyModel = { name: 'test', h0: c.h0, omegaM: c.om, omegaL: c.ol, omegaR: ref.ogamma, source: 'test' };
+    const d = distances(c.z, model);
+    for (const [ours, theirs] of FIELDS) {
+      const rel = Math.abs(d[ours] / ref[theirs] - 1);
+      if (rel > worst.relative) Object.assign(worst, { relative: rel, relativeWhere: `${label} ${ours}` });
+      expect(rel, `${ours}: zvet ${d[ours]} astropy ${ref[theirs]}`).toBeLessThanOrEqual(1e-6);
+    }
+    // 1e-6 relative in D_L is 5/ln 10 · 1e-6 ≈ 2.2e-6 mag in the distance modulus.
+    const dmu = Math.abs(d.distanceModulusMag - ref.mu);
+    if (dmu > worst.muMag) Object.assign(worst, { muMag: dmu, muWhere: label });
+    expect(dmu).toBeLessThanOrEqual(2.2e-6);
+  });
+
+  afterAll(() => {
+    console.info(`cosmology vs astropy: worst relative ${worst.relative.toExponential(2)} (${worst.relativeWhere}); worst |Δμ| ${worst.muMag.toExponential(2)} mag (${worst.muWhere})`);
+  });
+});
