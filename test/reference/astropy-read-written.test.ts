@@ -54,7 +54,7 @@ def add(name, wave, flux, medium, fmt, error=None, sky=None, obj=None):
 
 # Every BITPIX, integer ones scaled by BSCALE/BZERO with BLANK pixels; wavelength axis CTYPE1 WAVE in Angstrom.
 for bitpix, dtype in [(8, '>u1'), (16, '>i2'), (32, '>i4'), (64, '>i8'), (-32, '>f4'), (-64, '>f8')]:
-    raw = rng.integers(1, 120, n).astype(dtype)
+    raw = rng.integers(10, 120, n).astype(dtype)  # BLANK = 7 only where set below
     hdu = fits.PrimaryHDU(data=raw)
     if bitpix > 0:
         hdu.header['BSCALE'] = 0.25
