@@ -23,6 +23,8 @@ export interface RestLine {
 }
 
 export const REST_LINES: readonly RestLine[] = [
+  { id: 'OVI', label: 'O VI', waveVacuumAngstrom: 1033.82, kind: 'emission', source: 'mean of the O VI 1031.93/1037.62 Å doublet, NIST ASD vacuum (from memory)' },
+  { id: 'Lyb', label: 'Lyβ', waveVacuumAngstrom: 1025.72, kind: 'emission' },
   { id: 'Lya', label: 'Lyα', waveVacuumAngstrom: 1215.67, kind: 'emission' },
   { id: 'NV', label: 'N V', waveVacuumAngstrom: 1240.81, kind: 'emission' },
   { id: 'OI1305', label: 'O I', waveVacuumAngstrom: 1305.53, kind: 'emission' },
@@ -36,7 +38,10 @@ export const REST_LINES: readonly RestLine[] = [
   { id: '[NeV]3427', label: '[Ne V]', waveVacuumAngstrom: 3426.85, kind: 'emission' },
   { id: '[OII]3727', label: '[O II]', waveVacuumAngstrom: 3727.09, kind: 'emission' },
   { id: '[OII]3730', label: '[O II]', waveVacuumAngstrom: 3729.88, kind: 'emission' },
+  { id: 'H10', label: 'H10', waveVacuumAngstrom: 3798.98, kind: 'both', source: 'NIST ASD H I 3797.90 Å air, converted to vacuum (from memory)' },
+  { id: 'H9', label: 'H9', waveVacuumAngstrom: 3836.47, kind: 'both', source: 'NIST ASD H I 3835.38 Å air, converted to vacuum (from memory)' },
   { id: '[NeIII]3870', label: '[Ne III]', waveVacuumAngstrom: 3869.85, kind: 'emission' },
+  { id: 'H8', label: 'H8', waveVacuumAngstrom: 3890.15, kind: 'both', source: 'NIST ASD H I 3889.05 Å air, converted to vacuum (from memory)' },
   { id: 'CaK', label: 'Ca II K', waveVacuumAngstrom: 3934.78, kind: 'absorption' },
   { id: 'CaH', label: 'Ca II H', waveVacuumAngstrom: 3969.59, kind: 'absorption' },
   { id: 'Heps', label: 'Hε', waveVacuumAngstrom: 3971.2, kind: 'both' },
@@ -51,6 +56,7 @@ export const REST_LINES: readonly RestLine[] = [
   { id: 'Mgb5169', label: 'Mg b', waveVacuumAngstrom: 5168.76, kind: 'absorption', source: 'NIST ASD Mg I 5167.32 Å air, converted to vacuum (from memory)' },
   { id: 'Mgb5174', label: 'Mg b', waveVacuumAngstrom: 5174.13, kind: 'absorption', source: 'NIST ASD Mg I 5172.68 Å air, converted to vacuum (from memory)' },
   { id: 'Mgb5185', label: 'Mg b', waveVacuumAngstrom: 5185.05, kind: 'absorption', source: 'NIST ASD Mg I 5183.60 Å air, converted to vacuum (from memory)' },
+  { id: 'Fe5270', label: 'Fe I', waveVacuumAngstrom: 5270.99, kind: 'absorption', source: 'NIST ASD Fe I 5269.54 Å air (centre of the Lick Fe5270 feature), converted to vacuum (from memory)' },
   { id: 'HeI5877', label: 'He I', waveVacuumAngstrom: 5877.29, kind: 'emission' },
   { id: 'NaD2', label: 'Na D', waveVacuumAngstrom: 5891.58, kind: 'absorption', source: 'NIST ASD Na I D2 5889.95 Å air, converted to vacuum (from memory)' },
   { id: 'NaD1', label: 'Na D', waveVacuumAngstrom: 5897.56, kind: 'absorption', source: 'NIST ASD Na I D1 5895.92 Å air, converted to vacuum (from memory)' },
@@ -61,9 +67,12 @@ export const REST_LINES: readonly RestLine[] = [
   { id: '[NII]6585', label: '[N II]', waveVacuumAngstrom: 6585.27, kind: 'emission' },
   { id: '[SII]6718', label: '[S II]', waveVacuumAngstrom: 6718.29, kind: 'emission' },
   { id: '[SII]6733', label: '[S II]', waveVacuumAngstrom: 6732.67, kind: 'emission' },
+  { id: '[ArIII]7138', label: '[Ar III]', waveVacuumAngstrom: 7137.77, kind: 'emission', source: 'NIST ASD [Ar III] 7135.79 Å air, converted to vacuum (from memory)' },
   { id: 'CaT8500', label: 'Ca II', waveVacuumAngstrom: 8500.36, kind: 'absorption' },
   { id: 'CaT8544', label: 'Ca II', waveVacuumAngstrom: 8544.44, kind: 'absorption' },
   { id: 'CaT8665', label: 'Ca II', waveVacuumAngstrom: 8664.52, kind: 'absorption' },
+  { id: '[SIII]9071', label: '[S III]', waveVacuumAngstrom: 9071.1, kind: 'emission', source: 'NIST ASD [S III] 9068.6 Å air, converted to vacuum (from memory)' },
+  { id: '[SIII]9533', label: '[S III]', waveVacuumAngstrom: 9533.2, kind: 'emission', source: 'NIST ASD [S III] 9530.6 Å air, converted to vacuum (from memory)' },
 ];
 
 const byId = new Map(REST_LINES.map((l) => [l.id, l]));

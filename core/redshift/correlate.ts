@@ -1,0 +1,197 @@
+/**
+ * FFT cross-correlation of a prepared spectrum with templates, normalised over the overlap at
+ * each lag (Tonry & Davis 1979, AJ 84, 1511, with the per-lag normalisation of masked
+ * correlation, e.g. Padfield 2012, IEEE TIP 21, 2706):
+ *
+ *   ρ(L) = Σ w·s·t / √(Σ w·t² · Σ w·s²·m_t),   sums over the pixels both cover at lag L,
+ *
+ * where s is the spectrum, w its weights, t the template and m_t the template's coverage.
+ * Without the per-lag denominators a plain correlation grows or shrinks with how much template
+ * falls in the window and makes false peaks at the ends of the lag range.
+ *
+ * Lag L (whole grid pixels) means z = exp(L·step) − 1. Templates are transformed once per grid
+ * and cached; the spectrum is transformed once per FFT size.
+ */
+import { complexFft, forwardRealPair, nextPowerOfTwo, type ComplexFft } from './fft.js';
+import type { PreparedSpectrum } from './preprocess.js';
+import type { Template } from './templates.js';
+
+const C_KMS = 299792.458;
+/** Spectrum ranges are rounded out to multiples of this many pixels to share cached templates. */
+const RANGE_QUANTUM = 256;
+/** Lags where the template covers less than this fraction of the spectrum are not searched. */
+export const MIN_OVERLAP = 0.1;
+/** Lags where the template holds less than this fraction of its best window's energy are not searched. */
+const MIN_TEMPLATE_ENERGY = 0.02;
+/**
+ * Line strengths enter the correlation as |S|^0.5, so one strong line (Lyα, Hα) cannot decide
+ * the redshift alone: the pattern of lines does (common practice, no source).
+ */
+const CORRELATION_STRENGTH_POWER = 0.5;
+/** Cached template transforms kept (least recently used dropped). */
+const BANK_SIZE = 48;
+
+export interface CorrelationCurveData {
+  template: Template;
+  step: number;
+  /** Lag of index 0. */
+  lagMin: number;
+  /** Correlation coefficient over the overlap (NaN where not searched). */
+  rho: Float64Array;
+  /** √Δχ² of the best-scaled template at each lag, Σ w·s·t / √Σ w·t² (ranks across templates). */
+  score: Float64Array;
+  /** Fraction of the spectrum's good pixels the template covers at each lag. */
+  overlap: Float64Array;
+}
+
+interface BankEntry {
+  fft: ComplexFft;
+  t: Float64Array;
+  t2: Float64Array;
+  m: Float64Array;
+}
+
+const bank = new Map<string, BankEntry>();
+
+interface Layout {
+  lagMin: number;
+  lagMax: number;
+  /** Absolute grid index of spectrum buffer position 0. */
+  specOrigin: number;
+  /** Absolute rest index of template buffer position 0. */
+  templateOrigin: number;
+  templateLength: number;
+  size: number;
+}
+
+export function layoutFor(p: PreparedSpectrum, zMin: number, zMax: number): Layout {
+  const { step, start, length } = p.grid;
+  const lagMin = Math.floor(Math.log1p(zMin) / step) - 1;
+  const lagMax = Math.ceil(Math.log1p(zMax) / step) + 1;
+  const a = Math.floor(start / RANGE_QUANTUM) * RANGE_QUANTUM;
+  const b = Math.ceil((start + length) / RANGE_QUANTUM) * RANGE_QUANTUM;
+  const templateLength = b - a + lagMax - lagMin;
+  return { lagMin, lagMax, specOrigin: a, templateOrigin: a - lagMax, templateLength, size: nextPowerOfTwo(templateLength) };
+}
+
+function bankEntry(t: Template, step: number, lay: Layout): BankEntry {
+  const key = `${t.name}|${step}|${lay.templateOrigin}|${lay.templateLength}|${lay.size}`;
+  const hit = bank.get(key);
+  if (hit) {
+    bank.delete(key);
+    bank.set(key, hit);
+    return hit;
+  }
+  const fft = complexFft(lay.size);
+  const n = lay.templateLength;
+  const wave = new Float64Array(n);
+  for (let i = 0; i < n; i++) wave[i] = Math.exp((lay.templateOrigin + i) * step);
+  const prof = new Float64Array(n);
+  t.evaluate(wave, C_KMS * step, prof, CORRELATION_STRENGTH_POWER);
+  const cover = new Float64Array(n);
+  const [lo, hi] = t.restRangeAngstrom;
+  for (let i = 0; i < n; i++) cover[i] = wave[i] >= lo && wave[i] <= hi ? 1 : 0;
+  const sq = new Float64Array(n);
+  for (let i = 0; i < n; i++) sq[i] = prof[i] * prof[i];
+  const entry: BankEntry = { fft, t: fft.buffer(), t2: fft.buffer(), m: fft.buffer() };
+  const scratch = fft.buffer();
+  forwardRealPair(fft, prof, sq, entry.t, entry.t2, scratch);
+  forwardRealPair(fft, cover, new Float64Array(0), entry.m, fft.buffer(), scratch);
+  bank.set(key, entry);
+  if (bank.size > BANK_SIZE) bank.delete(bank.keys().next().value as string);
+  return entry;
+}
+
+interface SpectrumTransforms {
+  /** conj(FT(w·s)), conj(FT(w)), and P = conj(FT(w·s²)) + i·conj(FT(good)). */
+  sw: Float64Array;
+  w: Float64Array;
+  p: Float64Array;
+  nGood: number;
+}
+
+function spectrumTransforms(p: PreparedSpectrum, lay: Layout): SpectrumTransforms {
+  const fft = complexFft(lay.size);
+  const n = lay.size;
+  const off = p.grid.start - lay.specOrigin;
+  const a = new Float64Array(n), b = new Float64Array(n), c = new Float64Array(n), d = new Float64Array(n);
+  let nGood = 0;
+  for (let i = 0; i < p.grid.length; i++) {
+    const w = p.weight[i];
+    a[off + i] = w * p.resid[i];
+    b[off + i] = w;
+    c[off + i] = w * p.resid[i] * p.resid[i];
+    d[off + i] = w > 0 ? 1 : 0;
+    nGood += d[off + i];
+  }
+  const sw = fft.buffer(), ww = fft.buffer(), s2 = fft.buffer(), g = fft.buffer(), scratch = fft.buffer();
+  forwardRealPair(fft, a, b, sw, ww, scratch);
+  forwardRealPair(fft, c, d, s2, g, scratch);
+  const pp = fft.buffer();
+  for (let k = 0; k < n; k++) {
+    sw[2 * k + 1] = -sw[2 * k + 1];
+    ww[2 * k + 1] = -ww[2 * k + 1];
+    // conj(S2) + i·conj(G)
+    pp[2 * k] = s2[2 * k] + g[2 * k + 1];
+    pp[2 * k + 1] = -s2[2 * k + 1] + g[2 * k];
+  }
+  return { sw, w: ww, p: pp, nGood };
+}
+
+/** Correlates the spectrum with each template over its z range. */
+export function correlate(p: PreparedSpectrum, templates: { template: Template; zMin: number; zMax: number }[]): CorrelationCurveData[] {
+  const out: CorrelationCurveData[] = [];
+  const specCache = new Map<string, SpectrumTransforms>();
+  for (const { template, zMin, zMax } of templates) {
+    const lay = layoutFor(p, zMin, zMax);
+    const skey = `${lay.specOrigin}|${lay.size}`;
+    let st = specCache.get(skey);
+    if (!st) specCache.set(skey, (st = spectrumTransforms(p, lay)));
+    out.push(correlateOne(p, template, lay, st));
+  }
+  return out;
+}
+
+function correlateOne(p: PreparedSpectrum, template: Template, lay: Layout, st: SpectrumTransforms): CorrelationCurveData {
+  const e = bankEntry(template, p.grid.step, lay);
+  const { fft } = e;
+  const n = lay.size;
+  const x = fft.buffer(), y = fft.buffer();
+  for (let k = 0; k < n; k++) {
+    const re = 2 * k, im = re + 1;
+    // conj(SW)·T + i·conj(W)·T2
+    const ar = st.sw[re] * e.t[re] - st.sw[im] * e.t[im];
+    const ai = st.sw[re] * e.t[im] + st.sw[im] * e.t[re];
+    const br = st.w[re] * e.t2[re] - st.w[im] * e.t2[im];
+    const bi = st.w[re] * e.t2[im] + st.w[im] * e.t2[re];
+    x[re] = ar - bi;
+    x[im] = ai + br;
+    // P·M
+    y[re] = st.p[re] * e.m[re] - st.p[im] * e.m[im];
+    y[im] = st.p[re] * e.m[im] + st.p[im] * e.m[re];
+  }
+  const cx = fft.buffer(), cy = fft.buffer();
+  fft.inverse(cx, x);
+  fft.inverse(cy, y);
+  const nLag = lay.lagMax - lay.lagMin + 1;
+  let t2Max = 0;
+  for (let i = 0; i < nLag; i++) t2Max = Math.max(t2Max, cx[2 * (lay.lagMax - lay.lagMin - i) + 1]);
+  const t2Floor = MIN_TEMPLATE_ENERGY * t2Max;
+  const rho = new Float64Array(nLag), score = new Float64Array(nLag), overlap = new Float64Array(nLag);
+  // Buffer position m pairs spectrum origin with template origin + m, i.e. lag L = lagMax − m.
+  for (let i = 0; i < nLag; i++) {
+    const m = lay.lagMax - (lay.lagMin + i);
+    const c = cx[2 * m], t2 = cx[2 * m + 1], s2 = cy[2 * m], g = cy[2 * m + 1];
+    const ov = st.nGood > 0 ? g / st.nGood : 0;
+    overlap[i] = Math.min(1, Math.max(0, ov));
+    if (ov < MIN_OVERLAP || !(t2 > t2Floor) || !(s2 > 0)) {
+      rho[i] = NaN;
+      score[i] = NaN;
+      continue;
+    }
+    const sc = c / Math.sqrt(t2);
+    score[i] = sc;
+    rho[i] = sc / Math.sqrt(s2);
+  }
+  return { template, step: p.grid.step, lagMin: lay.lagMin, rho, score, overlap };
+}

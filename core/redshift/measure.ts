@@ -1,0 +1,155 @@
+/**
+ * measureRedshift: spectrum → redshift candidates with Tonry–Davis r and σz, the best one
+ * refined, and a confidence suggestion. Pure (no I/O): runs in Node, a Worker or a browser.
+ * The result is a suggestion until a person vets it.
+ */
+import type { Spectrum } from '../spectrum/spectrum.js';
+import { suggestConfidence } from './confidence.js';
+import { correlate, type CorrelationCurveData } from './correlate.js';
+import { detectLines, DETECTION_SNR, linesInRange } from './line-detection.js';
+import { nativeResidual } from './native-residual.js';
+import { findPeaks, type Peak } from './peaks.js';
+import { preprocess, type PreparedSpectrum } from './preprocess.js';
+import { fitTemplateChi2 } from './refine-chi2.js';
+import { fitEmissionLines } from './refine-lines.js';
+import { resolveTemplates } from './template-set.js';
+import type { Template } from './templates.js';
+import type { Candidate, CorrelationCurve, Measurement, MeasureOptions, Refinement } from './types.js';
+
+/** Peaks kept per template before merging across templates. */
+const PEAKS_PER_TEMPLATE = 8;
+/** Candidates closer than this in ln(1+z) are the same solution (≈ 1500 km/s; common practice). */
+const DISTINCT_LN = 0.005;
+const MAX_CURVE_POINTS = 2000;
+
+export interface StageTimes {
+  preprocessMs: number;
+  correlateMs: number;
+  refineMs: number;
+}
+
+interface Scored {
+  peak: Peak;
+  template: Template;
+}
+
+export function measureRedshift(spectrum: Spectrum, options: MeasureOptions = {}, times?: StageTimes): Measurement {
+  const t0 = now();
+  const templates = resolveTemplates(options);
+  const prepared = preprocess(spectrum, { maskTelluric: options.maskTelluric ?? true, maskSky: options.maskSky ?? true });
+  const t1 = now();
+  const curves = correlate(prepared, templates);
+  const distinct = distinctPeaks(curves, options.maxCandidates ?? 5);
+  const t2 = now();
+  const m = finish(prepared, distinct, curves, options);
+  const t3 = now();
+  if (times) {
+    times.preprocessMs += t1 - t0;
+    times.correlateMs += t2 - t1;
+    times.refineMs += t3 - t2;
+  }
+  return m;
+}
+
+function now(): number {
+  return globalThis.performance ? globalThis.performance.now() : Date.now();
+}
+
+function distinctPeaks(curves: CorrelationCurveData[], max: number): Scored[] {
+  const all: Scored[] = [];
+  for (const c of curves) for (const peak of findPeaks(c, PEAKS_PER_TEMPLATE)) all.push({ peak, template: c.template });
+  all.sort((a, b) => b.peak.score - a.peak.score);
+  const kept: Scored[] = [];
+  for (const s of all) {
+    if (kept.length >= max + 1) break;
+    if (kept.every((k) => Math.abs(Math.log1p(k.peak.z) - Math.log1p(s.peak.z)) > DISTINCT_LN)) kept.push(s);
+  }
+  return kept;
+}
+
+function toCandidate(s: Scored, p: PreparedSpectrum): Candidate {
+  const lo = p.native.waveAngstrom[0], hi = p.native.waveAngstrom[p.native.waveAngstrom.length - 1];
+  return {
+    z: s.peak.z,
+    zErr: s.peak.zErr,
+    r: s.peak.r,
+    template: s.template.name,
+    templateClass: s.template.templateClass,
+    overlap: s.peak.overlap,
+    lines: linesInRange(s.template, s.peak.z, lo, hi),
+  };
+}
+
+function finish(p: PreparedSpectrum, distinct: Scored[], curves: CorrelationCurveData[], options: MeasureOptions): Measurement {
+  const max = options.maxCandidates ?? 5;
+  const candidates = distinct.slice(0, max).map((s) => toCandidate(s, p));
+  const notes: string[] = [];
+  const correlations = options.withCorrelation ? curves.map(downsampleCurve) : undefined;
+  if (candidates.length === 0) {
+    notes.push('no correlation peak: nothing in the spectrum matches a template');
+    return { candidates, best: null, refinement: { method: 'none', chi2Red: null, nLinesFitted: 0 }, confidence: 'none', nLines: 0, ...(correlations ? { correlations } : {}), notes };
+  }
+  const order = rankByLineEvidence(p, distinct);
+  const top = distinct[order];
+  if (order !== 0) {
+    candidates.unshift(...candidates.splice(order, 1));
+    distinct.unshift(...distinct.splice(order, 1));
+  }
+  const nr = nativeResidual(p, top.template, top.peak.z);
+  let best: Candidate = { ...candidates[0] };
+  let refinement: Refinement = { method: 'none', chi2Red: null, nLinesFitted: 0 };
+  const fit = top.template.absorptionOnly
+    ? fitTemplateChi2(nr, top.template, top.peak.z, Math.max(5 * top.peak.zErr, 3 * p.grid.step * (1 + top.peak.z)))
+    : fitEmissionLines(nr, top.template, top.peak.z);
+  if (fit) {
+    best = { ...best, z: fit.z, zErr: fit.zErr };
+    refinement = { method: top.template.absorptionOnly ? 'template-chi2' : 'line-fit', chi2Red: fit.chi2Red, nLinesFitted: fit.nLinesFitted };
+  } else {
+    notes.push('refinement did not converge: z and σz are from the correlation peak');
+  }
+  const detections = detectLines(nr, top.template, best.z);
+  const nLines = detections.filter((d) => d.snr >= DETECTION_SNR).length;
+  const lead = distinct.length > 1 ? top.peak.score / Math.max(distinct[1].peak.score, 1e-300) : Infinity;
+  const confidence = suggestConfidence({ r: top.peak.r, overlap: top.peak.overlap, nLines, lead });
+  if (confidence === 'none') notes.push('no credible redshift: weak correlation or no lines detected');
+  return { candidates, best, refinement, confidence, nLines, ...(correlations ? { correlations } : {}), notes };
+}
+
+/** Leading candidates compared by the lines they explain (common practice, no source). */
+const EVIDENCE_CANDIDATES = 3;
+
+/**
+ * Index of the candidate whose template lines, each fitted alone, explain the most of the
+ * spectrum: Σ (S/N)² over lines seen with the right sign. One strong line matched by the
+ * wrong line of another template (broad Hα taken for Lyα) explains less than the full pattern.
+ */
+function rankByLineEvidence(p: PreparedSpectrum, distinct: Scored[]): number {
+  let bestIndex = 0, bestEvidence = -Infinity;
+  distinct.slice(0, EVIDENCE_CANDIDATES).forEach((s, i) => {
+    if (s.template.lines.length === 0) return;
+    const nr = nativeResidual(p, s.template, s.peak.z);
+    const ev = detectLines(nr, s.template, s.peak.z).reduce((acc, d) => acc + (d.snr >= DETECTION_SNR ? d.snr * d.snr : 0), 0);
+    if (ev > bestEvidence) {
+      bestEvidence = ev;
+      bestIndex = i;
+    }
+  });
+  return bestIndex;
+}
+
+function downsampleCurve(c: CorrelationCurveData): CorrelationCurve {
+  const n = c.rho.length;
+  const every = Math.max(1, Math.ceil(n / MAX_CURVE_POINTS));
+  const z: number[] = [];
+  const value: number[] = [];
+  for (let i = 0; i < n; i += every) {
+    // Keep the largest value in each stride so peaks survive the thinning.
+    let k = i;
+    for (let j = i; j < Math.min(n, i + every); j++) if (c.rho[j] > c.rho[k] || !(c.rho[k] === c.rho[k])) k = j;
+    const v = c.rho[k];
+    if (!(v === v)) continue;
+    z.push(Math.expm1((c.lagMin + k) * c.step));
+    value.push(v);
+  }
+  return { template: c.template.name, z, value };
+}

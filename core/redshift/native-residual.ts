@@ -1,0 +1,64 @@
+/**
+ * The spectrum on its own pixels with the continuum removed, for refinement and overlays. At a
+ * known redshift the continuum is re-estimated with the template's lines masked, so that broad
+ * lines do not pull it up.
+ */
+import { robustContinuum } from './continuum.js';
+import { continuumBlockPixels, type PreparedSpectrum } from './preprocess.js';
+import type { Template } from './templates.js';
+
+const C_KMS = 299792.458;
+/** Half-width of the mask around each line, in line σ (common practice, no source). */
+const LINE_MASK_SIGMAS = 3;
+
+export interface NativeResidual {
+  waveAngstrom: Float64Array;
+  resid: Float64Array;
+  continuum: Float64Array;
+  sigma: Float64Array;
+  good: Uint8Array;
+  /** Width of one native pixel, km/s (taken as the instrument's σ). */
+  pixelKmS: number;
+}
+
+export function nativeResidual(p: PreparedSpectrum, template: Template | null, z: number): NativeResidual {
+  const { grid } = p;
+  const use = Uint8Array.from(p.good);
+  if (template) {
+    for (const l of template.lines) {
+      const c = Math.log(l.waveRestAngstrom * (1 + z)) / grid.step - grid.start;
+      const half = (LINE_MASK_SIGMAS * Math.hypot(l.sigmaKmS, C_KMS * grid.step)) / (C_KMS * grid.step);
+      for (let i = Math.max(0, Math.floor(c - half)); i <= Math.min(grid.length - 1, Math.ceil(c + half)); i++) use[i] = 0;
+    }
+  }
+  let kept = 0;
+  for (let i = 0; i < use.length; i++) kept += use[i];
+  const gridCont = template && kept > 0.3 * p.nGood ? robustContinuum(p.flux, use, continuumBlockPixels(grid.step, grid.length)) : p.continuum;
+  const { waveAngstrom, flux, sigma, good } = p.native;
+  const n = waveAngstrom.length;
+  const continuum = new Float64Array(n);
+  const resid = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const x = Math.log(waveAngstrom[i]) / grid.step - grid.start;
+    const j = Math.min(grid.length - 2, Math.max(0, Math.floor(x)));
+    const f = Math.min(1, Math.max(0, x - j));
+    continuum[i] = x < -0.5 || x > grid.length - 0.5 ? NaN : gridCont[j] + f * (gridCont[j + 1] - gridCont[j]);
+    resid[i] = flux[i] - continuum[i];
+  }
+  const pixelKmS = C_KMS * grid.step;
+  return { waveAngstrom, resid, continuum, sigma, good, pixelKmS };
+}
+
+/** Indices of good pixels within `halfSigmas` line σ of any template line at z. */
+export function pixelsNearLines(nr: NativeResidual, template: Template, z: number, halfSigmas: number): number[] {
+  const n = nr.waveAngstrom.length;
+  const keep = new Uint8Array(n);
+  for (const l of template.lines) {
+    const centre = l.waveRestAngstrom * (1 + z);
+    const half = (halfSigmas * centre * Math.hypot(l.sigmaKmS, nr.pixelKmS)) / C_KMS;
+    for (let i = 0; i < n; i++) if (Math.abs(nr.waveAngstrom[i] - centre) <= half) keep[i] = 1;
+  }
+  const out: number[] = [];
+  for (let i = 0; i < n; i++) if (keep[i] && nr.good[i] && Number.isFinite(nr.resid[i])) out.push(i);
+  return out;
+}

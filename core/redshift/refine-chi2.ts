@@ -1,0 +1,80 @@
+/**
+ * Refinement of an absorption redshift: χ² of the best-scaled template against the spectrum on
+ * a fine z grid around the correlation peak, on the native pixels with the error spectrum; the
+ * minimum and its error from a parabola through the lowest points, Δχ² = 1 (e.g. Press et al.,
+ * Numerical Recipes, §15.6), scaled by √χ²_red when that exceeds 1.
+ */
+import { pixelsNearLines, type NativeResidual } from './native-residual.js';
+import type { Template } from './templates.js';
+
+/** Grid points either side of the start z. */
+const HALF_STEPS = 20;
+
+export interface Chi2Fit {
+  z: number;
+  zErr: number;
+  chi2Red: number;
+  nLinesFitted: number;
+}
+
+export function fitTemplateChi2(nr: NativeResidual, template: Template, z0: number, halfRangeZ: number): Chi2Fit | null {
+  const idx = template.lines.length ? pixelsNearLines(nr, template, z0, 4) : allGood(nr);
+  if (idx.length < 10) return null;
+  const wave = Float64Array.from(idx, (i) => nr.waveAngstrom[i]);
+  const y = Float64Array.from(idx, (i) => nr.resid[i]);
+  const w = Float64Array.from(idx, (i) => 1 / (nr.sigma[i] * nr.sigma[i]));
+  const rest = new Float64Array(wave.length);
+  const t = new Float64Array(wave.length);
+  const dz = halfRangeZ / HALF_STEPS;
+  const zs: number[] = [];
+  const chi: number[] = [];
+  let syy = 0;
+  for (let k = 0; k < y.length; k++) syy += w[k] * y[k] * y[k];
+  for (let s = -HALF_STEPS; s <= HALF_STEPS; s++) {
+    const z = z0 + s * dz;
+    for (let k = 0; k < wave.length; k++) rest[k] = wave[k] / (1 + z);
+    t.fill(0);
+    template.evaluate(rest, nr.pixelKmS, t);
+    let sty = 0, stt = 0;
+    for (let k = 0; k < t.length; k++) {
+      sty += w[k] * t[k] * y[k];
+      stt += w[k] * t[k] * t[k];
+    }
+    zs.push(z);
+    // Amplitude fitted freely but only with the template's sign.
+    chi.push(stt > 0 && sty > 0 ? syy - (sty * sty) / stt : syy);
+  }
+  let kMin = 0;
+  for (let k = 1; k < chi.length; k++) if (chi[k] < chi[kMin]) kMin = k;
+  if (kMin < 2 || kMin > chi.length - 3) return null;
+  const [a, b, c] = parabola(zs.slice(kMin - 2, kMin + 3), chi.slice(kMin - 2, kMin + 3));
+  if (!(a > 0)) return null;
+  const z = -b / (2 * a);
+  const chiMin = c - (b * b) / (4 * a);
+  const chi2Red = Math.max(chiMin, 0) / Math.max(1, y.length - 2);
+  const zErr = (1 / Math.sqrt(a)) * Math.sqrt(Math.max(1, chi2Red));
+  return { z, zErr, chi2Red, nLinesFitted: template.lines.length };
+}
+
+function allGood(nr: NativeResidual): number[] {
+  const out: number[] = [];
+  for (let i = 0; i < nr.good.length; i++) if (nr.good[i] && Number.isFinite(nr.resid[i])) out.push(i);
+  return out;
+}
+
+/** Least-squares parabola y = a·x² + b·x + c, x taken about its mean for conditioning. */
+function parabola(x: number[], y: number[]): [number, number, number] {
+  const m = x.reduce((s, v) => s + v, 0) / x.length;
+  let s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, t0 = 0, t1 = 0, t2 = 0;
+  for (let k = 0; k < x.length; k++) {
+    const u = x[k] - m;
+    s0 += 1; s1 += u; s2 += u * u; s3 += u * u * u; s4 += u * u * u * u;
+    t0 += y[k]; t1 += u * y[k]; t2 += u * u * y[k];
+  }
+  const det = s4 * (s2 * s0 - s1 * s1) - s3 * (s3 * s0 - s1 * s2) + s2 * (s3 * s1 - s2 * s2);
+  const A = (t2 * (s2 * s0 - s1 * s1) - s3 * (t1 * s0 - s1 * t0) + s2 * (t1 * s1 - s2 * t0)) / det;
+  const B = (s4 * (t1 * s0 - t0 * s1) - t2 * (s3 * s0 - s1 * s2) + s2 * (s3 * t0 - t1 * s2)) / det;
+  const C = (s4 * (s2 * t0 - s1 * t1) - s3 * (s3 * t0 - s1 * t2) + t2 * (s3 * s1 - s2 * s2)) / det;
+  // Back to x: a(x−m)² + B(x−m) + C.
+  return [A, B - 2 * A * m, A * m * m - B * m + C];
+}
