@@ -1,0 +1,150 @@
+/**
+ * The verdict journal's format: one JSON object per line (JSON Lines), appended, never
+ * rewritten. Two kinds of record:
+ *   {"v":1,"kind":"verdict","verdict":{…Verdict…}}
+ *   {"v":1,"kind":"undo","spectrum":"<spectrum of the verdict undone>","time":"<UTC ISO>"}
+ * Replaying the lines in order gives the verdicts in force: the last verdict per spectrum
+ * wins; an undo cancels the most recent verdict still in force (a stack, like the window's
+ * undo key). A line that cannot be read is skipped with a warning naming its line number, and
+ * nothing else is lost; a torn last line (power cut during a write) is expected and reported
+ * as such.
+ */
+import { CONFIDENCES, OBJECT_CLASSES, VERDICT_STATUSES, type Verdict } from './verdict.js';
+
+export const JOURNAL_FORMAT_VERSION = 1;
+
+export type JournalRecord =
+  | { kind: 'verdict'; verdict: Verdict }
+  | { kind: 'undo'; spectrum: string; time: string };
+
+/** Why a value is not a Verdict, or null when it is one. */
+export function verdictProblem(v: unknown): string | null {
+  if (typeof v !== 'object' || v === null) return 'not an object';
+  const o = v as Record<string, unknown>;
+  const nullableNumber = (x: unknown) => x === null || (typeof x === 'number' && Number.isFinite(x));
+  const oneOf = (list: readonly string[], x: unknown) => typeof x === 'string' && list.includes(x);
+  if (typeof o.spectrum !== 'string' || o.spectrum === '') return 'spectrum must be a non-empty string';
+  if (!(o.hdu === null || (typeof o.hdu === 'number' && Number.isInteger(o.hdu) && o.hdu >= 0))) return 'hdu must be a whole number or null';
+  if (!oneOf(VERDICT_STATUSES, o.status)) return `status must be one of ${VERDICT_STATUSES.join(', ')}`;
+  if (!nullableNumber(o.z)) return 'z must be a number or null';
+  if (!nullableNumber(o.zErr)) return 'zErr must be a number or null';
+  if (!(o.confidence === null || oneOf(CONFIDENCES, o.confidence))) return `confidence must be one of ${CONFIDENCES.join(', ')} or null`;
+  if (!oneOf(OBJECT_CLASSES, o.objectClass)) return `objectClass must be one of ${OBJECT_CLASSES.join(', ')}`;
+  if (!(o.template === null || typeof o.template === 'string')) return 'template must be a string or null';
+  for (const key of ['note', 'time', 'user'] as const) if (typeof o[key] !== 'string') return `${key} must be a string`;
+  return null;
+}
+
+/** One journal line (with its newline) recording a verdict. */
+export function serialiseVerdictRecord(verdict: Verdict): string {
+  const problem = verdictProblem(verdict);
+  if (problem) throw new Error(`not a valid verdict: ${problem}`);
+  return `${JSON.stringify({ v: JOURNAL_FORMAT_VERSION, kind: 'verdict', verdict })}\n`;
+}
+
+/** One journal line (with its newline) undoing the most recent verdict in force. */
+export function serialiseUndoRecord(undone: Verdict, timeUtc: string): string {
+  return `${JSON.stringify({ v: JOURNAL_FORMAT_VERSION, kind: 'undo', spectrum: undone.spectrum, time: timeUtc })}\n`;
+}
+
+/** Reads one line; returns the record or the reason it cannot be used. */
+export function parseRecord(line: string): JournalRecord | { problem: string } {
+  let o: Record<string, unknown>;
+  try {
+    o = JSON.parse(line);
+  } catch {
+    return { problem: 'not valid JSON' };
+  }
+  if (typeof o !== 'object' || o === null || Array.isArray(o)) return { problem: 'not a JSON object' };
+  if (o.v !== JOURNAL_FORMAT_VERSION) {
+    return { problem: typeof o.v === 'number' && o.v > JOURNAL_FORMAT_VERSION ? `format version ${o.v} is newer than this zvet reads (${JOURNAL_FORMAT_VERSION})` : 'no journal format version' };
+  }
+  if (o.kind === 'verdict') {
+    const problem = verdictProblem(o.verdict);
+    return problem ? { problem: `verdict: ${problem}` } : { kind: 'verdict', verdict: o.verdict as Verdict };
+  }
+  if (o.kind === 'undo') {
+    if (typeof o.spectrum !== 'string' || typeof o.time !== 'string') return { problem: 'undo record without spectrum and time' };
+    return { kind: 'undo', spectrum: o.spectrum, time: o.time };
+  }
+  return { problem: `unknown record kind ${JSON.stringify(o.kind)}` };
+}
+
+/**
+ * The verdicts in force, kept as the stack of verdicts not undone (oldest first) and, per
+ * spectrum, the last of them.
+ */
+export class JournalState {
+  private readonly stack: Verdict[] = [];
+  private readonly bySpectrum = new Map<string, Verdict>();
+
+  current(): ReadonlyMap<string, Verdict> {
+    return this.bySpectrum;
+  }
+
+  /** The verdict an undo would cancel, or null. */
+  lastInForce(): Verdict | null {
+    return this.stack.length ? this.stack[this.stack.length - 1] : null;
+  }
+
+  applyVerdict(v: Verdict): void {
+    this.stack.push(v);
+    this.bySpectrum.set(v.spectrum, v);
+  }
+
+  /** Cancels the most recent verdict in force; returns it, or null when there is none. */
+  applyUndo(): Verdict | null {
+    const undone = this.stack.pop() ?? null;
+    if (!undone) return null;
+    this.bySpectrum.delete(undone.spectrum);
+    for (let i = this.stack.length - 1; i >= 0; i--) {
+      if (this.stack[i].spectrum === undone.spectrum) {
+        this.bySpectrum.set(undone.spectrum, this.stack[i]);
+        break;
+      }
+    }
+    return undone;
+  }
+}
+
+export interface JournalReplay {
+  state: JournalState;
+  warnings: string[];
+  /** The text does not end with a newline: the next record must start on a new line. */
+  endsMidLine: boolean;
+}
+
+/** Replays a whole journal text; `fileName` names the journal in warnings. */
+export function replayJournal(text: string, fileName: string): JournalReplay {
+  const state = new JournalState();
+  const warnings: string[] = [];
+  const lines = text.split('\n');
+  const endsMidLine = text.length > 0 && !text.endsWith('\n');
+  // After the final newline split() leaves one empty string, which is not a line.
+  if (!endsMidLine) lines.pop();
+  lines.forEach((raw, i) => {
+    const line = raw.trim();
+    if (line === '') return;
+    const number = i + 1;
+    const record = parseRecord(line);
+    if ('problem' in record) {
+      const torn = endsMidLine && i === lines.length - 1;
+      warnings.push(
+        torn
+          ? `${fileName}: line ${number} (the last) is incomplete, probably cut off by a crash or power loss; skipped (${record.problem}); all earlier verdicts are kept`
+          : `${fileName}: line ${number} cannot be read and was skipped (${record.problem})`,
+      );
+      return;
+    }
+    if (record.kind === 'verdict') {
+      state.applyVerdict(record.verdict);
+      return;
+    }
+    const undone = state.applyUndo();
+    if (!undone) warnings.push(`${fileName}: line ${number} undoes a verdict but none is in force; ignored`);
+    else if (undone.spectrum !== record.spectrum) {
+      warnings.push(`${fileName}: line ${number} says it undoes the verdict on ${record.spectrum} but the latest verdict in force was on ${undone.spectrum}; undid that one`);
+    }
+  });
+  return { state, warnings, endsMidLine };
+}

@@ -1,0 +1,58 @@
+/**
+ * A worklist: the spectra being vetted (usually one night's folder) and their verdict journal,
+ * `<root>/<name>.verdicts.jsonl`. Spectra are named by their path relative to the root with
+ * '/' separators, so a journal stays valid when the folder is moved or opened on another OS.
+ */
+import { stat } from 'node:fs/promises';
+import { basename, dirname, join, relative, resolve, sep } from 'node:path';
+import { VerdictJournal } from './journal.js';
+import { listSpectrumFiles } from './spectrum-files.js';
+
+export interface WorklistEntry {
+  /** Path relative to the worklist root, '/'-separated. */
+  spectrum: string;
+  absPath: string;
+}
+
+/** The deepest folder containing every given path. */
+function commonFolder(folders: string[]): string {
+  let common = folders[0].split(sep);
+  for (const f of folders.slice(1)) {
+    const parts = f.split(sep);
+    let n = 0;
+    while (n < common.length && n < parts.length && common[n] === parts[n]) n++;
+    common = common.slice(0, n);
+  }
+  return common.join(sep) || sep;
+}
+
+export class Worklist {
+  readonly root: string;
+  readonly name: string;
+  readonly journalPath: string;
+  readonly entries: WorklistEntry[];
+  readonly journal: VerdictJournal;
+
+  private constructor(root: string, entries: WorklistEntry[], journal: VerdictJournal) {
+    this.root = root;
+    this.name = basename(root);
+    this.journalPath = journal.path;
+    this.entries = entries;
+    this.journal = journal;
+  }
+
+  /**
+   * A folder: every spectrum file below it (listSpectrumFiles). A list of files (or folders):
+   * those, with the root at their common folder.
+   */
+  static async open(folderOrFiles: string | string[]): Promise<Worklist> {
+    const given = (Array.isArray(folderOrFiles) ? folderOrFiles : [folderOrFiles]).map((p) => resolve(p));
+    if (!given.length) throw new Error('a worklist needs a folder or at least one file');
+    const folders = await Promise.all(given.map(async (p) => ((await stat(p)).isDirectory() ? p : dirname(p))));
+    const root = commonFolder(folders);
+    const files = await listSpectrumFiles(given);
+    const entries = [...new Set(files.map((f) => resolve(f)))].map((absPath) => ({ absPath, spectrum: relative(root, absPath).split(sep).join('/') }));
+    const journal = await VerdictJournal.open(join(root, `${basename(root)}.verdicts.jsonl`));
+    return new Worklist(root, entries, journal);
+  }
+}
