@@ -16,11 +16,12 @@ export interface Kinematics {
   sigma: { param: number } | { fixedKmS: number };
 }
 
-/** One Gaussian: its flux is ratio × params[fluxParam]. */
+/** One Gaussian: its flux is ratio × params[fluxParam] (× params[ratioParam] when set). */
 export interface GaussianTerm {
   restWaveAngstrom: number;
   fluxParam: number;
   ratio: number;
+  ratioParam?: number;
   kinematics: number;
 }
 
@@ -44,6 +45,19 @@ export function termShape(model: GaussianModel, term: GaussianTerm, p: ArrayLike
   return { centre, sigma: (centre * valueOf(k.sigma, p)) / C_KM_S };
 }
 
+/** Flux of a term (flux-density unit × Å) and its gradient with respect to the parameters. */
+export function termFlux(term: GaussianTerm, p: ArrayLike<number>): number {
+  return term.ratio * p[term.fluxParam] * (term.ratioParam === undefined ? 1 : p[term.ratioParam]);
+}
+
+export function termFluxGradient(term: GaussianTerm, p: ArrayLike<number>, nParams: number): number[] {
+  const d = new Array<number>(nParams).fill(0);
+  const free = term.ratioParam === undefined ? 1 : p[term.ratioParam];
+  d[term.fluxParam] = term.ratio * free;
+  if (term.ratioParam !== undefined) d[term.ratioParam] = term.ratio * p[term.fluxParam];
+  return d;
+}
+
 export function continuumAt(model: GaussianModel, p: ArrayLike<number>, waveAngstrom: number): number {
   return p[0] + p[1] * ((waveAngstrom - model.waveMidAngstrom) / model.waveSpanAngstrom);
 }
@@ -54,7 +68,7 @@ export function evaluate(model: GaussianModel, p: ArrayLike<number>, waveAngstro
   for (const term of model.terms) {
     const { centre, sigma } = termShape(model, term, p);
     const u = (waveAngstrom - centre) / sigma;
-    if (Math.abs(u) < 12) y += (term.ratio * p[term.fluxParam] * Math.exp(-0.5 * u * u)) / (SQRT_2PI * sigma);
+    if (Math.abs(u) < 12) y += (termFlux(term, p) * Math.exp(-0.5 * u * u)) / (SQRT_2PI * sigma);
   }
   return y;
 }
@@ -74,8 +88,10 @@ export function jacobian(model: GaussianModel, p: ArrayLike<number>, waveAngstro
     const u = (waveAngstrom - centre) / sigma;
     if (Math.abs(u) >= 12) continue;
     const g = Math.exp(-0.5 * u * u) / (SQRT_2PI * sigma);
-    const flux = term.ratio * p[term.fluxParam];
-    d[term.fluxParam] += term.ratio * g;
+    const free = term.ratioParam === undefined ? 1 : p[term.ratioParam];
+    const flux = term.ratio * free * p[term.fluxParam];
+    d[term.fluxParam] += term.ratio * free * g;
+    if (term.ratioParam !== undefined) d[term.ratioParam] += term.ratio * p[term.fluxParam] * g;
     // g depends on the centre μ (∂g/∂μ = g·u/σ_λ) and on σ_λ (∂g/∂σ_λ = g·(u²−1)/σ_λ);
     // μ and σ_λ both move with Δv, σ_λ with σ_v.
     const dgdMu = (g * u) / sigma;

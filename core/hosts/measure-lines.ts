@@ -8,8 +8,8 @@ import { REST_LINES } from '../redshift/line-list.js';
 import type { Spectrum } from '../spectrum/spectrum.js';
 import { fitGaussians, solveLinear, type FitBounds, type FitData, type FitResult } from './fit-gaussians.js';
 import { SPEED_OF_LIGHT_KMS as C_KM_S } from '../astro/constants.js';
-import { continuumAt, termShape, type GaussianModel, type GaussianTerm, type Kinematics } from './gaussian-model.js';
-import { LINE_GROUPS, type GroupLine, type LineGroup } from './line-groups.js';
+import { continuumAt, termFlux, termFluxGradient, termShape, type GaussianModel, type GaussianTerm, type Kinematics } from './gaussian-model.js';
+import { LINE_GROUPS, parentOf, type GroupLine, type LineGroup } from './line-groups.js';
 
 /** One measured line; keys are snake_case because they go straight into JSON output. */
 export interface LineMeasurement {
@@ -70,7 +70,7 @@ export interface MeasureOptions {
 
 export const STELLAR_ABSORPTION_METHOD =
   'Under Hβ and Hα a Gaussian absorption component (same velocity as the emission, width free ' +
-  'between 4 and 20 Å rest, depth ≥ 0) is fitted together with the emission and the local ' +
+  'between 8 and 25 Å rest, equivalent width up to 10 Å under Hβ and 5 Å under Hα) is fitted together with the emission and the local ' +
   'continuum; emission fluxes are those of the emission component alone, so they are corrected ' +
   'for the underlying stellar absorption. Fitting the absorption rather than adding a fixed ' +
   'equivalent-width correction is common practice (no single source); no correction is applied ' +
@@ -79,17 +79,21 @@ export const STELLAR_ABSORPTION_METHOD =
 export const DETECTION_SN = 3;
 const SIGMA_PER_FWHM = 2 * Math.sqrt(2 * Math.log(2));
 const OTHER_LINE_MASK_REST_ANGSTROM = 8;
-const NARROW_SIGMA_KM_S: [number, number] = [10, 600];
+const NARROW_SIGMA_KM_S: [number, number] = [10, 400];
 const NARROW_DV_KM_S = 400;
-const ABSORPTION_SIGMA_REST_ANGSTROM: [number, number] = [4, 20];
-const ABSORPTION_MAX_EW_REST_ANGSTROM = 20;
-const BROAD_SIGMA_KM_S: [number, number] = [700, 6000];
+const ABSORPTION_SIGMA_REST_ANGSTROM: [number, number] = [8, 25];
+// Caps on the absorption depth (loose; common practice, no source): stellar Hα absorption is
+// weaker than Hβ in all populations, a few Å at most.
+const ABSORPTION_MAX_EW_REST_ANGSTROM: Record<string, number> = { Hbeta: 10, Halpha: 5 };
+const BROAD_SIGMA_KM_S: [number, number] = [600, 6000];
 const BROAD_DV_KM_S = 2000;
 // A broad component must be clearly required (common practice, no source): Δχ² > 50 over the
-// narrow+absorption fit, broad flux S/N > 5 and a rest EW above 10 Å.
+// narrow+absorption fit, broad flux S/N > 5, a rest EW above 10 Å and FWHM ≥ 2000 km/s (wings
+// of narrower lines, e.g. outflows in starbursts, are not broad-line regions).
 const BROAD_MIN_DCHI2 = 50;
 const BROAD_MIN_SN = 5;
 const BROAD_MIN_EW_REST = 10;
+const BROAD_MIN_FWHM_KM_S = 2000;
 
 interface Window {
   data: FitData;
@@ -144,7 +148,7 @@ function selectWindow(spectrum: Spectrum, z: number, group: LineGroup, errorsKno
     return data.waveAngstrom.some((x) => x >= c - d && x < c) && data.waveAngstrom.some((x) => x >= c && x <= c + d);
   };
   let lines = group.lines.filter((l) => covered(l.restWaveAngstrom));
-  lines = lines.filter((l) => !l.tied || lines.some((p) => p.id === l.tied!.parent));
+  lines = lines.filter((l) => !parentOf(l) || lines.some((p) => p.id === parentOf(l)));
   if (lines.length === 0 || data.waveAngstrom.length < 12) return null;
   return { data, lines };
 }
@@ -199,18 +203,19 @@ function planModel(group: LineGroup, lines: GroupLine[], data: FitData, z: numbe
   }
   const terms: GaussianTerm[] = [];
   const fluxParam = new Map<string, number>();
-  for (const l of lines) if (!l.tied) fluxParam.set(l.id, addParam(-Infinity, Infinity, fluxScale, 0));
+  for (const l of lines) if (!parentOf(l)) fluxParam.set(l.id, addParam(-Infinity, Infinity, fluxScale, 0));
   for (const l of lines) {
-    const p = fluxParam.get(l.tied ? l.tied.parent : l.id)!;
-    terms.push({ restWaveAngstrom: l.restWaveAngstrom, fluxParam: p, ratio: l.tied ? l.tied.ratio : 1, kinematics: 0 });
+    const p = fluxParam.get(parentOf(l) ?? l.id)!;
+    const ratioParam = l.bounded ? addParam(l.bounded.min, l.bounded.max, 1, l.bounded.start) : undefined;
+    terms.push({ restWaveAngstrom: l.restWaveAngstrom, fluxParam: p, ratio: l.tied ? l.tied.ratio : 1, kinematics: 0, ...(ratioParam !== undefined ? { ratioParam } : {}) });
   }
   const balmer = group.balmer ? lines.find((l) => l.id === group.balmer) : undefined;
   if (balmer && plan.absorption) {
     const rest = balmer.restWaveAngstrom;
     const sigmaRange = ABSORPTION_SIGMA_REST_ANGSTROM.map((a) => (C_KM_S * a) / rest);
     const sigma = addParam(sigmaRange[0], sigmaRange[1], 100, (C_KM_S * 10) / rest);
-    // Depth bound: EW ≤ 20 Å rest against the brightest flux in the window (a loose cap).
-    const flux = addParam(-ABSORPTION_MAX_EW_REST_ANGSTROM * (1 + z) * yScale, 0, fluxScale, 0);
+    // Depth bound: the EW cap against the brightest flux in the window.
+    const flux = addParam(-ABSORPTION_MAX_EW_REST_ANGSTROM[balmer.id] * (1 + z) * yScale, 0, fluxScale, 0);
     kinematics.push({ dv: narrowDv, sigma: { param: sigma } });
     terms.push({ restWaveAngstrom: rest, fluxParam: flux, ratio: 1, kinematics: kinematics.length - 1 });
     fluxParam.set(`${balmer.id}_abs`, flux);
@@ -279,20 +284,39 @@ function kinematicsOf(g: GroupFit, k: number): { dvKmS: number; dvErr: number; s
   return { dvKmS: dv.v, dvErr: dv.e, sigmaKmS: s.v, sigmaErr: s.e };
 }
 
-function broadFlux(g: GroupFit): { sn: number; ewRest: number } {
+function broadFlux(g: GroupFit): { sn: number; ewRest: number; fwhmKmS: number } {
   const balmer = g.group.balmer!;
   const f = paramValue(g, `${balmer}_broad`)!;
   const term = g.model.terms[g.model.terms.length - 1];
   const centre = termShape(g.model, term, g.fit.params).centre;
-  return { sn: f.value / f.err, ewRest: f.value / continuumAt(g.model, g.fit.params, centre) / (1 + g.model.z) };
+  const k = kinematicsOf(g, term.kinematics);
+  return { sn: f.value / f.err, ewRest: f.value / continuumAt(g.model, g.fit.params, centre) / (1 + g.model.z), fwhmKmS: SIGMA_PER_FWHM * k.sigmaKmS };
+}
+
+/** Flux of term `index` and its error σ = √(gᵀ C g) from the fit covariance. */
+function termValue(g: GroupFit, index: number): { value: number; err: number } {
+  const term = g.model.terms[index];
+  const grad = termFluxGradient(term, g.fit.params, g.model.nParams);
+  const c = g.fit.covariance;
+  let v = NaN;
+  if (c) {
+    v = 0;
+    for (let a = 0; a < grad.length; a++) if (grad[a]) for (let b = 0; b < grad.length; b++) v += grad[a] * c[a][b] * grad[b];
+  }
+  return { value: termFlux(term, g.fit.params), err: v >= 0 ? Math.sqrt(v) : NaN };
+}
+
+function narrowWidthAtBound(g: GroupFit): boolean {
+  const sigma = g.model.kinematics[0].sigma;
+  return 'param' in sigma && g.fit.params[sigma.param] >= NARROW_SIGMA_KM_S[1] * (1 - 1e-6);
 }
 
 function bestNarrowSn(g: GroupFit): number {
   let best = -Infinity;
-  for (const l of g.lines) {
-    const f = paramValue(g, l.tied ? l.tied.parent : l.id);
-    if (f && f.err > 0) best = Math.max(best, f.value / f.err);
-  }
+  g.lines.forEach((_, i) => {
+    const f = termValue(g, i);
+    if (f.err > 0) best = Math.max(best, f.value / f.err);
+  });
   return best;
 }
 
@@ -326,7 +350,7 @@ function fitAllGroups(spectrum: Spectrum, z: number, options: MeasureOptions, er
       if (withBroad && withBroad.fit.covariance) {
         const b = broadFlux(withBroad);
         const dchi2 = (chosen ? chosen.fit.chi2 : Infinity) - withBroad.fit.chi2;
-        const required = broadKinematics !== null ? b.sn > BROAD_MIN_SN : dchi2 > BROAD_MIN_DCHI2 && b.sn > BROAD_MIN_SN && b.ewRest > BROAD_MIN_EW_REST;
+        const required = broadKinematics !== null ? b.sn > BROAD_MIN_SN : dchi2 > BROAD_MIN_DCHI2 && b.sn > BROAD_MIN_SN && b.ewRest > BROAD_MIN_EW_REST && b.fwhmKmS >= BROAD_MIN_FWHM_KM_S;
         if (required) {
           chosen = withBroad;
           if (!broadKinematics) {
@@ -338,12 +362,14 @@ function fitAllGroups(spectrum: Spectrum, z: number, options: MeasureOptions, er
     }
     if (chosen) fits.set(group, chosen);
   }
-  // Groups with no line at S/N ≥ 3 cannot set their own width and velocity: refit them with
-  // those of the group holding the strongest line, so that their limits are not noise fits.
-  const strongest = [...fits.values()].filter((g) => !g.broad).sort((a, b) => bestNarrowSn(b) - bestNarrowSn(a))[0];
-  const reference = strongest && bestNarrowSn(strongest) >= 5 ? kinematicsOf(strongest, 0) : null;
+  // Groups with no line at S/N ≥ 3 cannot set their own width and velocity, and a width on its
+  // upper bound means the emission is trading flux with the absorption or the continuum: refit
+  // those with the kinematics of the group holding the strongest line (or 100 km/s at the given z).
+  const usable = (g: GroupFit) => !g.broad && bestNarrowSn(g) >= 5 && !narrowWidthAtBound(g);
+  const strongest = [...fits.values()].filter(usable).sort((a, b) => bestNarrowSn(b) - bestNarrowSn(a))[0];
+  const reference = strongest ? kinematicsOf(strongest, 0) : null;
   for (const [group, g] of fits) {
-    if (bestNarrowSn(g) >= DETECTION_SN) continue;
+    if (bestNarrowSn(g) >= DETECTION_SN && !narrowWidthAtBound(g)) continue;
     const sigmaKmS = reference ? reference.sigmaKmS : Math.hypot(100, instrumentalSigmaKmS(options, g.model.waveMidAngstrom));
     const refit = fitGroup(group, windows.get(group)!, z, options, {
       absorption: !g.broad,
@@ -390,9 +416,8 @@ function measurementsOf(g: GroupFit, options: MeasureOptions): { lines: LineMeas
     });
   };
   g.lines.forEach((l, i) => {
-    const f = paramValue(g, l.tied ? l.tied.parent : l.id)!;
-    const ratio = l.tied ? l.tied.ratio : 1;
-    describe(l.id, l.restWaveAngstrom, i, f.value * ratio, f.err * ratio, 'narrow');
+    const f = termValue(g, i);
+    describe(l.id, l.restWaveAngstrom, i, f.value, f.err, 'narrow');
   });
   const balmer = g.lines.find((l) => l.id === g.group.balmer);
   if (balmer) {
