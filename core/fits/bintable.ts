@@ -105,6 +105,7 @@ export function openBinTable(hdu: FitsHdu): FitsTable {
       if (row < 0 || row >= rows) hduError(hdu, `row ${row} is outside the table`);
       const cell = row * rowBytes + col.offset;
       if (!col.isVariable) {
+        checkElementCount(hdu, col.repeat, `column ${col.name}`);
         const out = new Float64Array(col.repeat);
         cellDecoder(col, col.type)(view, cell, col.repeat, out, 0);
         return out;

@@ -1,0 +1,71 @@
+// FITS header cards as FITS Standard 4.0 §4 defines them (values, comments, CONTINUE §4.2.1.2,
+// the ESO HIERARCH convention).
+import { describe, expect, it } from 'vitest';
+import { FitsHeader, joinContinued, parseCard, parseFitsNumber } from '../../core/fits/header.js';
+import { card } from './fits-fixtures.js';
+
+describe('parseCard', () => {
+  it('reads strings with doubled quotes, dropping trailing blanks only through string()', () => {
+    const c = parseCard(card('OBJECT', "O'Neil   ", 'target'));
+    expect(c).toEqual({ key: 'OBJECT', value: "O'Neil   ", comment: 'target' });
+    expect(new FitsHeader([c]).string('object')).toBe("O'Neil");
+  });
+  it('reads logicals, integers, floats with D exponents and comments', () => {
+    expect(parseCard(card('SIMPLE', true)).value).toBe(true);
+    expect(parseCard(card('NAXIS1', 3853)).value).toBe(3853);
+    expect(parseCard('CRVAL1  =             1.25D+03 / start'.padEnd(80)).value).toBe(1250);
+    expect(parseCard('CRVAL1  =             1.25D+03 / start'.padEnd(80)).comment).toBe('start');
+    expect(parseFitsNumber('-.5E-2')).toBe(-0.005);
+    expect(parseFitsNumber('12abc')).toBeNull();
+  });
+  it('keeps a slash inside a string as part of the value', () => {
+    expect(parseCard(card('BUNIT', '1E-17 erg/cm^2/s/Ang')).value).toBe('1E-17 erg/cm^2/s/Ang');
+  });
+  it('treats COMMENT, HISTORY and cards without "= " as commentary', () => {
+    expect(parseCard(card('COMMENT', undefined, 'hello')).value).toBeNull();
+    expect(parseCard('HISTORY = not a value'.padEnd(80)).key).toBe('HISTORY');
+  });
+  it('reads HIERARCH keywords', () => {
+    const c = parseCard('HIERARCH ESO TEL GEOLAT = -24.6270 / [deg] Tel geo latitude'.padEnd(80));
+    expect(c.key).toBe('ESO TEL GEOLAT');
+    expect(c.value).toBeCloseTo(-24.627, 10);
+  });
+  it('a blank value field is null (undefined value, FITS 4.0 §4.2)', () => {
+    expect(parseCard('BLANKVAL=                      / nothing'.padEnd(80)).value).toBeNull();
+  });
+});
+
+describe('CONTINUE long strings', () => {
+  it('joins the pieces, dropping each trailing &', () => {
+    const cards = [
+      "OBJECT  = 'a very long object name that does not fit on one card of eighty c&'",
+      "CONTINUE  'haracters, so it continues&'",
+      "CONTINUE  ' here' / the end",
+      "NEXT    = 1",
+    ].map((s) => parseCard(s.padEnd(80)));
+    const joined = joinContinued(cards);
+    expect(joined).toHaveLength(2);
+    expect(joined[0].value).toBe('a very long object name that does not fit on one card of eighty characters, so it continues here');
+    expect(joined[0].comment).toBe('the end');
+  });
+  it('leaves a CONTINUE card alone when the string before it has no &', () => {
+    const cards = ["OBJECT  = 'short'", "CONTINUE  'orphan'"].map((s) => parseCard(s.padEnd(80)));
+    expect(joinContinued(cards)).toHaveLength(2);
+  });
+});
+
+describe('FitsHeader getters', () => {
+  const h = new FitsHeader(
+    [card('EXPTIME', 1200.5), card('EBV', '0.611'), card('VACUUM', true), card('OBJECT', 'KRT-26-0017'), card('EXPTIME', 1)].map(parseCard),
+  );
+  it('look keys up without regard to case; the first occurrence wins', () => {
+    expect(h.number('exptime')).toBe(1200.5);
+    expect(h.integer('EXPTIME')).toBeUndefined();
+  });
+  it('accept numbers written as strings, but not strings as booleans', () => {
+    expect(h.number('EBV')).toBeCloseTo(0.611, 12);
+    expect(h.bool('OBJECT')).toBeUndefined();
+    expect(h.bool('VACUUM')).toBe(true);
+    expect(h.number('OBJECT')).toBeUndefined();
+  });
+});
