@@ -1,13 +1,11 @@
 /** The real modules behind the handlers (see services.ts). */
+import { Worklist } from '../worklist.js';
 import type { HostServices } from './services.js';
 
 export function defaultServices(): HostServices {
   return {
-    openWorklist: null,
+    openWorklist: (target) => Worklist.open(target),
     measureFile: null,
-    templateModelFlux: null,
-    correctFrames: null,
-    analyseHost: null,
     writeCatalogue: null,
     close: async () => undefined,
   };

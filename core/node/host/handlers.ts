@@ -15,16 +15,16 @@ import type {
   VerdictInput,
   WorklistState,
 } from '../../api/host-api.js';
-import type { FrameResult } from '../../astro/frames.js';
-import { COSMOLOGY_PRESETS } from '../../astro/cosmology.js';
+import { COSMOLOGY_PRESETS, type CosmologyModel } from '../../astro/cosmology.js';
+import { correctFrames, type FrameResult } from '../../astro/frames.js';
 import type { Verdict } from '../../catalogue/verdict.js';
-import type { HostAnalysis } from '../../hosts/analyse.js';
+import { analyseHost, type HostAnalysis } from '../../hosts/analyse.js';
 import type { Site, Spectrum } from '../../spectrum/spectrum.js';
 import { describeFailure } from '../cli/run-action.js';
 import { resolveExportPath } from './export-path.js';
 import { HostFailure } from './host-failure.js';
 import { MeasurementCache, optionsKey } from './measurement-cache.js';
-import type { FrameRequest, HostServices, MeasuredFile, OpenedWorklist } from './services.js';
+import type { HostServices, MeasuredFile, OpenedWorklist } from './services.js';
 import { defaultServices } from './default-services.js';
 import { SettingsStore } from './settings-store.js';
 import { spectrumArrays, spectrumMetaView, toJsonNumbers } from './spectrum-view.js';
@@ -61,14 +61,13 @@ interface Session {
   closed: boolean;
 }
 
-const WRITE_ERRORS: Record<string, string> = {
-  ENOSPC: 'the disk is full',
-  EROFS: 'the file system is read-only',
-  EACCES: 'permission denied',
-  EPERM: 'operation not permitted',
-  EDQUOT: 'the disk quota is exhausted',
-  EIO: 'input/output error',
-};
+/** One line naming the journal and why the disk refused the write. */
+function writeFailure(err: unknown, journalPath: string): string {
+  const e = err as NodeJS.ErrnoException;
+  if (e && typeof e.code === 'string' && typeof e.path !== 'string') e.path = journalPath;
+  const text = describeFailure(e);
+  return text.includes(journalPath) ? text : `${journalPath}: ${text}`;
+}
 
 function missing(what: string): HostFailure {
   return new HostFailure(503, `${what} is not available in this build yet`);
@@ -203,7 +202,7 @@ class Handlers implements HostHandlers {
     const verdict = this.verdictsInForce(s).get(id) ?? null;
     if (!result.spectrum) return { id, arrays: null, meta: null, measurement: null, templateModel: null, verdict, error: result.error ?? `${id}: the file could not be read` };
     const best = result.measurement?.best ?? null;
-    const model = best && this.services.templateModelFlux ? { template: best.template, z: best.z, flux: toJsonNumbers(this.services.templateModelFlux(best.template, best.z, result.spectrum)) } : null;
+    const model = null;
     return {
       id,
       arrays: spectrumArrays(result.spectrum),
@@ -229,30 +228,21 @@ class Handlers implements HostHandlers {
 
   async templateModel(req: { id: string; template: string; z: number }): Promise<{ flux: (number | null)[] }> {
     const s = this.requireSession();
-    const model = this.services.templateModelFlux;
-    if (!model) throw missing('the template model');
-    const spectrum = await this.spectrumOf(s, req.id);
-    try {
-      return { flux: toJsonNumbers(model(req.template, req.z, spectrum)) };
-    } catch (err) {
-      throw new HostFailure(400, `template ${req.template}: ${describeFailure(err)}`);
-    }
+    throw missing('the template model');
   }
 
   async derived(req: { id: string; z: number; zErr: number | null }): Promise<FrameResult> {
     const s = this.requireSession();
-    const correct = this.services.correctFrames;
-    if (!correct) throw missing('frame corrections');
     const spectrum = await this.spectrumOf(s, req.id);
     const settings = await this.settings.get();
-    return correct({ spectrum, z: req.z, zErr: req.zErr, site: siteFor(spectrum, settings), cosmology: cosmologyOf(settings) });
+    const site = siteFor(spectrum, settings);
+    return correctFrames({ zObs: req.z, zErr: req.zErr ?? undefined, meta: spectrum.meta, site, cosmology: cosmologyOf(settings) });
   }
 
   async hostAnalysis(req: { id: string; z: number }): Promise<HostAnalysis> {
     const s = this.requireSession();
-    const analyse = this.services.analyseHost;
-    if (!analyse) throw missing('host-galaxy analysis');
-    return analyse(await this.spectrumOf(s, req.id), req.z);
+    const spectrum = await this.spectrumOf(s, req.id);
+    return analyseHost(spectrum, req.z, { cosmology: cosmologyOf(await this.settings.get()) });
   }
 
   // ---- verdicts ----------------------------------------------------------------------------
@@ -286,8 +276,7 @@ class Handlers implements HostHandlers {
         try {
           await s.worklist.journal.append(s.queued[0]);
         } catch (err) {
-          const code = (err as NodeJS.ErrnoException).code ?? '';
-          s.lastWriteError = WRITE_ERRORS[code] ?? describeFailure(err);
+          s.lastWriteError = writeFailure(err, s.worklist.journalPath);
           throw new HostFailure(503, this.queueWarning(s));
         }
         s.queued.shift();
@@ -300,33 +289,37 @@ class Handlers implements HostHandlers {
 
   private queueWarning(s: Session): string {
     const n = s.queued.length;
-    return `${s.worklist.journalPath}: not saved (${s.lastWriteError ?? 'write failed'}); ${n} verdict${n === 1 ? ' is' : 's are'} kept in memory and written with the next save`;
+    return `${s.lastWriteError ?? `${s.worklist.journalPath}: not saved`}; ${n} verdict${n === 1 ? ' is' : 's are'} kept in memory and written with the next save`;
   }
 
   async undoLast(): Promise<{ id: string | null; verdict: Verdict | null }> {
     const s = this.requireSession();
-    let id: string | null;
-    if (s.queued.length > 0) id = s.queued.pop()!.spectrum;
-    else {
-      await this.writing;
-      try {
-        id = await s.worklist.journal.undo();
-      } catch (err) {
-        throw new HostFailure(503, `${s.worklist.journalPath}: undo not saved (${describeFailure(err)})`);
-      }
+    if (s.queued.length > 0) {
+      const id = s.queued.pop()!.spectrum;
+      return { id, verdict: this.verdictsInForce(s).get(id) ?? null };
     }
-    return { id, verdict: id === null ? null : (this.verdictsInForce(s).get(id) ?? null) };
+    await this.writing;
+    const before = new Map(s.worklist.journal.current());
+    let verdict: Verdict | null;
+    try {
+      verdict = await s.worklist.journal.undo();
+    } catch (err) {
+      throw new HostFailure(503, `undo not saved: ${describeFailure(err)}`);
+    }
+    const after = s.worklist.journal.current();
+    const id = [...new Set([...before.keys(), ...after.keys()])].find((k) => before.get(k) !== after.get(k)) ?? null;
+    return { id, verdict };
   }
 
   // ---- export and settings -----------------------------------------------------------------
 
   async exportCatalogue(req: { format: ExportFormat; path?: string }): Promise<{ path: string; rows: number }> {
     const s = this.requireSession();
+    const w = s.worklist;
+    const path = await resolveExportPath({ root: w.root, name: w.name, journalPath: w.journalPath, spectra: [...s.entries.values()].map((e) => e.absPath) }, req.format, req.path);
     const write = this.services.writeCatalogue;
     if (!write) throw missing('catalogue export');
     if (s.queued.length > 0) await this.flushQueue(s);
-    const w = s.worklist;
-    const path = await resolveExportPath({ root: w.root, name: w.name, journalPath: w.journalPath, spectra: [...s.entries.values()].map((e) => e.absPath) }, req.format, req.path);
     try {
       return { path, rows: await write(w, req.format, path) };
     } catch (err) {
@@ -354,18 +347,25 @@ class Handlers implements HostHandlers {
   }
 }
 
-/** The site of the observation: the file's own coordinates, else a saved site of the same name. */
-function siteFor(spectrum: Spectrum, settings: Settings): Site | null {
-  const own = spectrum.meta.site;
-  if (own && typeof own.latitudeDeg === 'number' && typeof own.longitudeDeg === 'number') return own;
-  const byName = own?.name ? settings.sites.find((x) => x.name.toLowerCase() === own.name!.toLowerCase()) : undefined;
-  return byName ?? null;
+/**
+ * The site to fall back on when the header has no usable coordinates (frames.ts prefers the
+ * header's own, then a known observatory of the header's site name): a saved site of that name,
+ * or, for a header naming no site, the first saved site. frames.ts states in its reason which was used.
+ */
+function siteFor(spectrum: Spectrum, settings: Settings): Site | undefined {
+  const named = spectrum.meta.site?.name;
+  if (named) {
+    const key = named.trim().toLowerCase();
+    return settings.sites.find((x) => x.name.trim().toLowerCase() === key);
+  }
+  return settings.sites[0];
 }
 
-function cosmologyOf(settings: Settings): FrameRequest['cosmology'] {
-  if (settings.cosmologyPreset === 'custom' && settings.customCosmology) return { name: 'custom', ...settings.customCosmology };
-  const preset = COSMOLOGY_PRESETS[settings.cosmologyPreset] ?? COSMOLOGY_PRESETS.planck18;
-  return { name: preset.name, h0: preset.h0, omegaM: preset.omegaM, omegaL: preset.omegaL };
+function cosmologyOf(settings: Settings): CosmologyModel {
+  if (settings.cosmologyPreset === 'custom' && settings.customCosmology) {
+    return { name: 'custom', ...settings.customCosmology, source: 'values set by the user in the settings' };
+  }
+  return COSMOLOGY_PRESETS[settings.cosmologyPreset] ?? COSMOLOGY_PRESETS.planck18;
 }
 
 export function createHostHandlers(options: HostHandlerOptions = {}): HostHandlers {

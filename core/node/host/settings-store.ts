@@ -6,15 +6,19 @@
 import { mkdir, open, readFile, rename } from 'node:fs/promises';
 import { homedir, userInfo } from 'node:os';
 import { dirname, join } from 'node:path';
-import type { Settings } from '../../api/host-api.js';
+import type { Settings, SiteSetting } from '../../api/host-api.js';
 import { COSMOLOGY_PRESETS } from '../../astro/cosmology.js';
+import { findSite } from '../../astro/sites.js';
 import { HostFailure } from './host-failure.js';
 
 export const SETTINGS_FILE = 'settings.json';
 const MAX_RECENT = 12;
 
-/** The demo night's telescope (same numbers as sample-spectra/demo/night.ts; a test keeps them equal). */
-export const KESTREL_RIDGE_SITE = { name: 'Kestrel Ridge', latitudeDeg: 36.1843, longitudeDeg: -105.721, heightM: 2840 } as const;
+/** The demo night's telescope, from the known-site list. */
+function demoSite(): SiteSetting {
+  const { name, latitudeDeg, longitudeDeg, heightM } = findSite('kestrel-ridge')!;
+  return { name, latitudeDeg, longitudeDeg, heightM };
+}
 
 export function configDir(env: NodeJS.ProcessEnv = process.env): string {
   if (env.ZVET_CONFIG_DIR) return env.ZVET_CONFIG_DIR;
@@ -33,7 +37,7 @@ function osUserName(): string {
 export function defaultSettings(): Settings {
   return {
     recentWorklists: [],
-    sites: [{ ...KESTREL_RIDGE_SITE }],
+    sites: [demoSite()],
     cosmologyPreset: 'planck18',
     customCosmology: null,
     user: osUserName(),
