@@ -1,0 +1,140 @@
+/** Starts the window: connects to the host, builds the panels, and routes keys to the controller. */
+import { connectHost } from './api/client.js';
+import { Controller, keyOf, type LiveSlot, type View } from './app/controller.js';
+import { Plots } from './app/plots.js';
+import type { AppState } from './app/state.js';
+import { COSMOLOGY_PRESETS } from '../core/astro/cosmology.js';
+import { renderCandidates } from './panels/candidates-panel.js';
+import { DecisionPanel } from './panels/decision-panel.js';
+import { renderDerived, type LiveResult } from './panels/derived-panel.js';
+import { renderHost } from './panels/host-panel.js';
+import { renderHelp, renderLinePick } from './panels/overlays.js';
+import { renderPlotControls } from './panels/plot-controls.js';
+import { renderSpectrumTitle } from './panels/spectrum-title.js';
+import { renderExport, renderSaveState } from './panels/status-panels.js';
+import { renderWorklist } from './panels/worklist-panel.js';
+import type { PlotElement } from './plot/plotly.js';
+import { byId, el, fill } from './ui/dom.js';
+import { actionFor } from './ui/keymap.js';
+
+const api = connectHost();
+let controller: Controller;
+let cosmologyName = COSMOLOGY_PRESETS.planck18?.name ?? 'planck18';
+
+const decision = new DecisionPanel(byId('decision'), {
+  acceptBest: () => controller.decide({ kind: 'accept-best' }),
+  saveTrial: () => controller.decide({ kind: 'trial' }),
+  noRedshift: () => controller.decide({ kind: 'no-redshift' }),
+  identify: () => controller.act('identify-line'),
+  undo: () => void controller.undo(),
+  nudge: (kms) => controller.nudge(kms),
+  typedZ: (text) => controller.typedZ(text),
+  confidence: (c) => controller.setConfidence(c),
+  objectClass: (c) => controller.setClass(c),
+  note: (text) => controller.setNote(text),
+});
+
+const plots = new Plots(byId<PlotElement>('spectrum-plot'), byId<PlotElement>('correlation-plot'), {
+  rangeChanged: (r) => controller.setRange(r),
+  featureClicked: (w) => controller.featureClicked(w),
+  candidateClicked: (i) => controller.tryCandidate(i),
+});
+
+function live<T>(slot: LiveSlot<T> | null, state: AppState): LiveResult<T> | null {
+  if (!slot || !state.currentId || state.trial.z === null) return null;
+  return { result: slot.result, error: slot.error, stale: slot.key !== keyOf(state.currentId, state.trial.z) };
+}
+
+let lastTab: { tab: string; slot: unknown; stale: boolean } | null = null;
+
+function renderTab(state: AppState): void {
+  byId('tab-derived').setAttribute('aria-selected', String(state.tab === 'derived'));
+  byId('tab-host').setAttribute('aria-selected', String(state.tab === 'host'));
+  const slot = state.tab === 'derived' ? controller.derived : controller.host;
+  const lv = state.tab === 'derived' ? live(controller.derived, state) : live(controller.host, state);
+  const now = { tab: state.tab, slot, stale: lv?.stale ?? true };
+  if (lastTab && lastTab.tab === now.tab && lastTab.slot === now.slot && lastTab.stale === now.stale) return;
+  lastTab = now;
+  const body = byId('tab-body');
+  if (state.view?.error && !state.view.arrays) fill(body, el('p', { class: 'muted' }, 'nothing to derive: the file could not be read'));
+  else if (state.tab === 'derived') renderDerived(body, live(controller.derived, state), cosmologyName);
+  else renderHost(body, live(controller.host, state));
+}
+
+function renderOverlay(state: AppState): void {
+  const box = byId('overlay');
+  box.hidden = state.modal === 'none';
+  if (state.modal === 'help') renderHelp(box);
+  else if (state.modal === 'line-pick' && state.linePick) renderLinePick(box, state.linePick.waveAngstrom, state.linePick.choices, (i) => controller.chooseLine(i));
+  else fill(box);
+}
+
+function renderProblem(state: AppState): void {
+  const box = byId('spectrum-problem');
+  const text = state.problem ?? (state.view && !state.view.arrays ? state.view.error : null) ?? (state.loading ? null : null);
+  box.hidden = !text;
+  if (text) fill(box, el('strong', {}, state.problem ? 'The host did not answer: ' : 'This file cannot be read: '), el('span', { id: 'problem-text' }, text),
+    state.problem ? null : el('p', { class: 'muted' }, 'It stays in the worklist; you can mark it "no redshift" (x) or move on (n).'));
+}
+
+const view: View = {
+  panels(state) {
+    renderWorklist(state, { filters: byId('filters'), items: byId('worklist-items'), progress: byId('progress'), name: byId('worklist-name'), warnings: byId('worklist-warnings') }, {
+      filter: (f) => controller.setFilter(f),
+      pick: (id) => void controller.show(id),
+    });
+    renderSpectrumTitle(state, byId('spectrum-title'));
+    renderProblem(state);
+    renderPlotControls(state, byId('plot-controls'), {
+      kernel: (k) => controller.setSmoothing(k, state.smoothing.widthPx),
+      width: (px) => controller.setSmoothing(state.smoothing.kernel, px),
+      template: (on) => controller.setTemplate(on),
+      sky: (on) => controller.setSky(on),
+    });
+    renderCandidates(state, byId('candidates'), (i) => controller.tryCandidate(i));
+    decision.render(state);
+    renderSaveState(state, byId('save-state'), byId('save-failure'), () => controller.retrySaves());
+    renderExport(state, byId('export'), (f) => void controller.exportAs(f));
+    renderTab(state);
+    renderOverlay(state);
+  },
+  spectrum: (state) => plots.drawSpectrum(state),
+  async correlation(state) {
+    const template = await plots.drawCorrelation(state);
+    const curves = state.view?.measurement?.correlations ?? [];
+    fill(byId('correlation-head'), el('h2', {}, 'Correlation'),
+      template ? el('span', {}, `template ${template}${curves.length > 1 ? ` (${curves.length} templates)` : ''}`) : el('span', {}, 'no correlation for this spectrum'),
+      curves.length > 1 ? el('kbd', {}, 'c') : null, el('span', {}, 'click a numbered candidate to try it'));
+    return template;
+  },
+  fullRange: (state) => plots.fullRange(state),
+  focusTypedZ: () => decision.zInput.focus(),
+  focusNote: () => decision.noteInput.focus(),
+};
+
+controller = new Controller(api, view);
+
+document.addEventListener('keydown', (e) => {
+  const target = e.target as HTMLElement;
+  if (target.matches('input, textarea, select')) return;
+  if (controller.s.modal === 'line-pick' && /^[1-9]$/.test(e.key)) {
+    e.preventDefault();
+    controller.chooseLine(Number(e.key) - 1);
+    return;
+  }
+  const action = actionFor(e);
+  if (!action) return;
+  e.preventDefault();
+  controller.act(action);
+});
+byId('help-button').addEventListener('click', () => controller.act('help'));
+byId('tab-derived').addEventListener('click', () => controller.setTab('derived'));
+byId('tab-host').addEventListener('click', () => controller.setTab('host'));
+byId('overlay').addEventListener('click', (e) => {
+  if (e.target === e.currentTarget) controller.closeModal();
+});
+
+void api.getSettings({}).then((s) => {
+  cosmologyName = s.cosmologyPreset === 'custom' && s.customCosmology ? `H0 = ${s.customCosmology.h0} km/s/Mpc, Ωm = ${s.customCosmology.omegaM}, ΩΛ = ${s.customCosmology.omegaL}` : (COSMOLOGY_PRESETS[s.cosmologyPreset]?.name ?? s.cosmologyPreset);
+}).catch(() => undefined);
+void controller.start();

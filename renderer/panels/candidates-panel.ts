@@ -1,0 +1,28 @@
+/** The candidate table: z ± σz, template, Tonry–Davis r, overlap, and the suggested confidence. */
+import type { AppState } from '../app/state.js';
+import { candidates } from '../state/decision.js';
+import { el, fill } from '../ui/dom.js';
+import { fmtZErr } from '../ui/format.js';
+import { confidenceBadge } from './worklist-panel.js';
+
+export function renderCandidates(state: AppState, box: HTMLElement, onTry: (index: number) => void): void {
+  const list = candidates(state.view);
+  const m = state.view?.measurement;
+  if (!m || list.length === 0) {
+    fill(box, el('p', { class: 'muted' }, state.view?.error ? 'no candidates: the file could not be read' : m ? 'the correlation found no candidate' : 'no measurement yet'));
+    return;
+  }
+  const head = el('tr', {}, ...['#', 'z ± σz', 'template', 'r (TD)', 'overlap', ''].map((h) => el('th', {}, h)));
+  const rows = list.map((c, i) =>
+    el('tr', { class: `clickable${state.trial.candidateIndex === i ? ' chosen' : ''}`, onclick: () => onTry(i), title: 'click to try this z' },
+      el('td', {}, el('kbd', {}, String(i + 1))),
+      el('td', { class: 'num' }, fmtZErr(c.z, c.zErr)),
+      el('td', {}, c.template),
+      el('td', { class: 'num' }, c.r.toFixed(1)),
+      el('td', { class: 'num' }, `${Math.round(100 * c.overlap)} %`),
+      el('td', { class: 'muted' }, i === 0 ? 'best' : '')));
+  fill(box,
+    el('div', { class: 'panel-head' }, el('h2', {}, 'Candidates'), el('span', {}, 'suggested: '), m.confidence === 'none' ? el('span', {}, 'none credible') : confidenceBadge(m.confidence), el('span', {}, `· ${m.nLines} lines detected`)),
+    el('table', {}, el('thead', {}, head), el('tbody', {}, ...rows)),
+    m.notes.length ? el('p', { class: 'muted' }, m.notes.join(' · ')) : null);
+}

@@ -1,0 +1,103 @@
+/**
+ * The decision column: the trial z and where it came from, velocity nudges, typing a z, the
+ * decision buttons, the grade (confidence, class, note) and the verdict now in the journal.
+ * The two text fields are made once and kept, so typing is never interrupted by a redraw.
+ */
+import { CONFIDENCES, OBJECT_CLASSES, type Confidence, type ObjectClass } from '../../core/catalogue/verdict.js';
+import type { AppState } from '../app/state.js';
+import { candidates } from '../state/decision.js';
+import { velocityBetweenKmS, zStepFor } from '../science/z-math.js';
+import { el, fill } from '../ui/dom.js';
+import { confidenceText, fmtZ, fmtZErr } from '../ui/format.js';
+import { CONFIDENCE_LOOK } from '../ui/theme.js';
+
+export interface DecisionHandlers {
+  acceptBest(): void;
+  saveTrial(): void;
+  noRedshift(): void;
+  identify(): void;
+  undo(): void;
+  nudge(kms: number): void;
+  typedZ(text: string): void;
+  confidence(c: Confidence): void;
+  objectClass(c: ObjectClass): void;
+  note(text: string): void;
+}
+
+export const NUDGE_STEPS_KMS = [-100, -10, 10, 100] as const;
+const CLASS_KEYS: Record<ObjectClass, string> = { galaxy: 'G', agn: 'A', qso: 'Q', star: 'S', unknown: 'U' };
+const CONFIDENCE_KEYS: Record<Confidence, string> = { secure: 's', likely: 'l', tentative: 't' };
+
+export class DecisionPanel {
+  readonly zInput: HTMLInputElement;
+  readonly noteInput: HTMLTextAreaElement;
+  private readonly dynamicTop = el('div', { class: 'trial' });
+  private readonly dynamicButtons = el('div', { class: 'decision-body' });
+
+  constructor(private readonly box: HTMLElement, private readonly on: DecisionHandlers) {
+    this.zInput = el('input', { id: 'typed-z', class: 'typed-z', type: 'text', inputmode: 'decimal', 'aria-label': 'type a redshift', placeholder: 'e.g. 0.1234' });
+    this.zInput.addEventListener('keydown', (e) => {
+      if (e.key === 'Enter') {
+        e.preventDefault();
+        this.on.typedZ(this.zInput.value);
+        this.zInput.blur();
+      } else if (e.key === 'Escape') this.zInput.blur();
+      e.stopPropagation();
+    });
+    this.noteInput = el('textarea', { id: 'note', 'aria-label': 'note', placeholder: 'note (m); Enter keeps it, Shift+Enter for a new line' });
+    this.noteInput.addEventListener('keydown', (e) => {
+      if (e.key === 'Enter' && !e.shiftKey) {
+        e.preventDefault();
+        this.on.note(this.noteInput.value);
+        this.noteInput.blur();
+      } else if (e.key === 'Escape') this.noteInput.blur();
+      e.stopPropagation();
+    });
+    fill(box, this.dynamicTop,
+      el('div', { class: 'row' }, el('span', { class: 'label' }, 'type z'), this.zInput, el('kbd', {}, 'z'), el('span', { class: 'muted' }, 'then Enter')),
+      this.dynamicButtons,
+      el('div', { class: 'row' }, el('span', { class: 'label' }, 'note'), el('kbd', {}, 'm')),
+      this.noteInput);
+  }
+
+  render(state: AppState): void {
+    const t = state.trial;
+    const best = candidates(state.view)[0] ?? null;
+    const dv = t.z !== null && best ? velocityBetweenKmS(best.z, t.z) : null;
+    fill(this.dynamicTop,
+      el('span', { class: 'muted' }, 'trial z'),
+      el('span', { class: 'value', id: 'trial-z' }, t.z === null ? '—' : fmtZErr(t.z, t.zErr)),
+      el('span', { class: 'detail' }, t.detail || ' ', dv !== null && Math.abs(dv) >= 0.5 ? ` · ${dv >= 0 ? '+' : '−'}${Math.abs(dv).toFixed(0)} km/s from the best` : ''));
+    const stepInfo = t.z === null ? '' : `10 km/s = Δz ${zStepFor(t.z, 10).toExponential(1)}`;
+    const v = state.view?.verdict && state.view.verdict.status !== 'pending' ? state.view.verdict : null;
+    const queued = state.saves.find((q) => q.input.id === state.currentId);
+    const conf = (c: Confidence) => el('button', { type: 'button', 'aria-pressed': state.grade.confidence === c ? 'true' : 'false', style: `color:${CONFIDENCE_LOOK[c].colour}`, onclick: () => this.on.confidence(c) }, `${CONFIDENCE_LOOK[c].shape} ${c}`, el('kbd', {}, CONFIDENCE_KEYS[c]));
+    const cls = (c: ObjectClass) => el('button', { type: 'button', 'aria-pressed': state.grade.objectClass === c ? 'true' : 'false', onclick: () => this.on.objectClass(c) }, c, el('kbd', {}, `⇧${CLASS_KEYS[c]}`));
+    fill(this.dynamicButtons,
+      el('div', { class: 'row nudge' }, el('span', { class: 'label' }, 'nudge'),
+        ...NUDGE_STEPS_KMS.map((s) => el('button', { type: 'button', title: `${s > 0 ? '+' : '−'}${Math.abs(s)} km/s`, onclick: () => this.on.nudge(s) }, `${s > 0 ? '+' : '−'}${Math.abs(s)}`)),
+        el('span', { class: 'muted' }, 'km/s')),
+      el('div', { class: 'row' }, el('span', { class: 'label' }, ''), el('span', { class: 'muted' }, `keys , . ±10 · < > ±100 · ${stepInfo}`)),
+      el('div', { class: 'row decide-buttons' },
+        el('button', { type: 'button', id: 'btn-accept', onclick: () => this.on.acceptBest() }, 'Accept best', el('kbd', {}, 'a')),
+        el('button', { type: 'button', id: 'btn-save-trial', onclick: () => this.on.saveTrial() }, 'Save trial z', el('kbd', {}, 'Enter')),
+        el('button', { type: 'button', id: 'btn-no-z', onclick: () => this.on.noRedshift() }, 'No redshift', el('kbd', {}, 'x'))),
+      el('div', { class: 'row' },
+        el('button', { type: 'button', 'aria-pressed': state.identifying ? 'true' : 'false', onclick: () => this.on.identify() }, 'Identify a line', el('kbd', {}, 'i')),
+        el('button', { type: 'button', onclick: () => this.on.undo() }, 'Undo last', el('kbd', {}, 'u'))),
+      el('div', { class: 'row' }, el('span', { class: 'label' }, 'confidence'), ...CONFIDENCES.map(conf)),
+      el('div', { class: 'row' }, el('span', { class: 'label' }, 'class'), ...OBJECT_CLASSES.map(cls)),
+      el('div', { class: `verdict-now${v ? '' : ' pending'}`, id: 'verdict-now' },
+        v ? verdictLine(v) : 'pending: not vetted yet',
+        queued ? el('div', { class: 'muted' }, queued.state === 'failed' ? `NOT SAVED: ${queued.reason}` : 'saving…') : null));
+    if (document.activeElement !== this.noteInput) this.noteInput.value = state.grade.note;
+  }
+}
+
+function verdictLine(v: NonNullable<AppState['view']>['verdict'] & object): HTMLElement {
+  const look = confidenceText(v.status === 'no-redshift' ? null : v.confidence);
+  return el('div', {},
+    el('strong', {}, v.status), ' · ', v.status === 'no-redshift' ? 'no z' : `z = ${fmtZ(v.z)}`, ' · ',
+    el('span', { style: `color:${look.colour}` }, `${look.shape} ${look.text}`), ' · ', v.objectClass,
+    el('div', { class: 'muted' }, `saved ${v.time.replace('T', ' ').slice(0, 19)} UTC by ${v.user}`));
+}

@@ -1,0 +1,58 @@
+/** The host-galaxy panel at the trial z: line table, [N II] diagram, class, Balmer decrement, SFR. */
+import type { HostAnalysis } from '../../core/hosts/analyse.js';
+import { restLine } from '../../core/redshift/line-list.js';
+import { buildBptFigure } from '../plot/bpt-figure.js';
+import { plotly, PLOT_CONFIG } from '../plot/plotly.js';
+import { el, fill } from '../ui/dom.js';
+import { fmtNum } from '../ui/format.js';
+import { usableResult, type LiveResult } from './derived-panel.js';
+
+function lineLabel(name: string): string {
+  const base = name.replace(/_broad$/, '');
+  try {
+    return `${restLine(base).label}${name.endsWith('_broad') ? ' broad' : ''}`;
+  } catch {
+    return name;
+  }
+}
+
+function sci(v: number | null, digits = 2): string {
+  return v === null || !Number.isFinite(v) ? '—' : v.toExponential(digits);
+}
+
+export function renderHost(box: HTMLElement, live: LiveResult<HostAnalysis> | null): void {
+  const h = usableResult(box, live, 'host lines');
+  if (!h || !live) return;
+  const unit = h.measurement.flux_unit;
+  const c = h.classification;
+  const plot = el('div', { class: 'bpt-plot', id: 'bpt-plot' });
+  const rows = h.lines.filter((l) => l.limit === false || l.component === 'narrow').map((l) => el('tr', {},
+    el('td', {}, lineLabel(l.name)),
+    el('td', { class: 'num' }, l.rest_wave.toFixed(1)),
+    el('td', { class: 'num' }, l.limit ? `< ${sci(l.flux)}` : `${sci(l.flux)} ± ${sci(l.flux_err, 1)}`),
+    el('td', { class: 'num' }, l.limit ? '—' : l.ew_rest.toFixed(1)),
+    el('td', { class: 'num' }, l.sn.toFixed(1)),
+    el('td', { class: 'num' }, l.fwhm_kms === null ? '—' : l.fwhm_kms.toFixed(0))));
+  const sfr = h.sfr;
+  fill(box,
+    live.stale ? el('p', { class: 'muted' }, 'updating…') : null,
+    el('h2', {}, `Class: ${c.bpt}${c.agn_type ? ` (${c.agn_type})` : ''}${c.broad_balmer ? ', broad Balmer lines' : ''}`),
+    el('p', { class: 'why' }, `[S II] diagram: ${c.sii} · [O I] diagram: ${c.oi}${c.missing.length ? ` · lacking S/N ≥ 3: ${c.missing.join(', ')}` : ''}`),
+    plot,
+    el('h2', {}, `Lines at z = ${h.z.toFixed(5)}`),
+    el('table', { id: 'host-lines' },
+      el('thead', {}, el('tr', {}, ...['line', 'λ rest (Å)', `flux (${unit}·Å)`, 'EW rest (Å)', 'S/N', 'FWHM (km/s)'].map((t) => el('th', {}, t)))),
+      el('tbody', {}, ...rows)),
+    el('p', { class: 'muted' }, `"<" marks a 3σ upper limit. ${h.measurement.stellar_absorption_method}`),
+    el('h2', {}, 'Dust and star formation'),
+    el('dl', {},
+      el('dt', {}, 'Hα/Hβ'), el('dd', {}, h.balmer.decrement === null ? '—' : `${h.balmer.decrement.toFixed(2)} ± ${(h.balmer.decrement_err ?? 0).toFixed(2)}`),
+      el('dt', {}, `E(B−V), ${h.balmer.curve}`), el('dd', {}, fmtNum(h.balmer.ebv, 3, 'mag')),
+      el('dt', {}, 'L(Hα)'), el('dd', {}, sfr.l_halpha_erg_s === null ? '—' : `${sci(sfr.l_halpha_erg_s)} erg/s${sfr.dust_corrected ? ' (dust-corr.)' : ''}`),
+      el('dt', {}, 'SFR, Kennicutt 98'), el('dd', {}, sfr.sfr_kennicutt98_msun_yr === null ? '—' : `${sfr.sfr_kennicutt98_msun_yr.toPrecision(3)} ± ${(sfr.sfr_kennicutt98_err_msun_yr ?? 0).toPrecision(2)} M☉/yr`),
+      el('dt', {}, 'SFR, Kennicutt & Evans 12'), el('dd', {}, sfr.sfr_ke12_msun_yr === null ? '—' : `${sfr.sfr_ke12_msun_yr.toPrecision(3)} ± ${(sfr.sfr_ke12_err_msun_yr ?? 0).toPrecision(2)} M☉/yr`)),
+    el('p', { class: 'muted' }, `IMF: ${sfr.imf.kennicutt98} (K98); ${sfr.imf.ke12} (KE12). ${sfr.note ?? ''}`),
+    el('p', { class: 'caveat', id: 'aperture-caveat' }, `⚠ ${sfr.caveat}`));
+  const fig = buildBptFigure(c.point);
+  void plotly().react(plot, fig.data, fig.layout, { ...PLOT_CONFIG, displayModeBar: false });
+}

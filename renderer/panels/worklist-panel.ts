@@ -1,0 +1,51 @@
+/** The worklist column: filters, one row per spectrum (status, z, confidence, class), progress. */
+import type { SpectrumListItem } from '../../core/api/host-api.js';
+import type { AppState } from '../app/state.js';
+import { el, fill } from '../ui/dom.js';
+import { confidenceText, fmtZ } from '../ui/format.js';
+import { FILTERS, passesFilter, progress, type WorklistFilter } from '../state/worklist-view.js';
+
+const STATUS_GLYPH: Record<string, { glyph: string; word: string }> = {
+  accepted: { glyph: '✓', word: 'accepted' },
+  revised: { glyph: '✎', word: 'revised' },
+  'no-redshift': { glyph: '∅', word: 'no redshift' },
+  pending: { glyph: '·', word: 'pending' },
+};
+
+export function confidenceBadge(c: Parameters<typeof confidenceText>[0]): HTMLElement {
+  const look = confidenceText(c);
+  return el('span', { class: 'conf', style: `color:${look.colour}` }, el('span', { class: 'shape', 'aria-hidden': 'true' }, look.shape), look.text);
+}
+
+function row(item: SpectrumListItem, current: boolean, savingIds: Set<string>, onPick: (id: string) => void): HTMLElement {
+  const v = item.verdict && item.verdict.status !== 'pending' ? item.verdict : null;
+  const status = item.error ? { glyph: '⚠', word: 'unreadable' } : STATUS_GLYPH[v?.status ?? 'pending'];
+  const zText = v ? (v.status === 'no-redshift' ? 'no z' : fmtZ(v.z, 4)) : item.suggestion ? `${fmtZ(item.suggestion.z, 4)}?` : '';
+  const sub = item.error
+    ? el('span', { class: 'problem' }, item.error)
+    : v
+      ? [confidenceBadge(v.status === 'no-redshift' ? null : v.confidence), el('span', {}, v.objectClass)]
+      : el('span', {}, item.suggestion ? `suggested: ${item.suggestion.confidence}, not vetted` : 'measuring…');
+  return el('li', {
+    'data-id': item.id, 'aria-current': current ? 'true' : 'false', tabindex: '-1', title: `${item.id}: ${status.word}`,
+    onclick: () => onPick(item.id),
+  },
+  el('span', { class: 'status', 'aria-label': status.word }, status.glyph),
+  el('span', { class: 'name' }, item.id),
+  el('span', { class: v ? 'z' : 'z muted' }, zText),
+  el('span', { class: 'sub' }, ...(Array.isArray(sub) ? sub : [sub]), savingIds.has(item.id) ? el('span', { class: 'muted' }, 'saving…') : null));
+}
+
+export function renderWorklist(state: AppState, parts: { filters: HTMLElement; items: HTMLElement; progress: HTMLElement; name: HTMLElement; warnings: HTMLElement }, on: { filter(f: WorklistFilter): void; pick(id: string): void }): void {
+  const wl = state.worklist;
+  fill(parts.name, wl ? `· ${wl.name}` : '');
+  const counts = new Map<WorklistFilter, number>(FILTERS.map((f) => [f, wl ? wl.items.filter((it) => passesFilter(it, f)).length : 0]));
+  fill(parts.filters, ...FILTERS.map((f) => el('button', { type: 'button', 'aria-pressed': state.filter === f ? 'true' : 'false', onclick: () => on.filter(f) }, `${f} ${counts.get(f)}`)));
+  const { vetted, total } = progress(wl?.items ?? []);
+  fill(parts.progress, el('span', { class: 'bar', 'aria-hidden': 'true' }, el('span', { style: `width:${total ? (100 * vetted) / total : 0}%` })), `${vetted} of ${total} vetted`);
+  const savingIds = new Set(state.saves.map((q) => q.input.id));
+  const shown = (wl?.items ?? []).filter((it) => passesFilter(it, state.filter));
+  fill(parts.items, ...(shown.length ? shown.map((it) => row(it, it.id === state.currentId, savingIds, on.pick)) : [el('li', { class: 'empty' }, wl ? `no spectra are ${state.filter}` : 'no worklist open')]));
+  parts.items.querySelector('[aria-current="true"]')?.scrollIntoView({ block: 'nearest' });
+  fill(parts.warnings, ...(wl?.warnings ?? []).map((w) => el('p', {}, `⚠ ${w}`)));
+}

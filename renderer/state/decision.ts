@@ -1,0 +1,119 @@
+/**
+ * The decision being made on the spectrum in view: a trial z (from a candidate, typed, from an
+ * identified line, or nudged) and the grade (confidence, class, note); and the verdict each
+ * decision key turns it into. Pure.
+ */
+import type { SpectrumView, VerdictInput } from '../../core/api/host-api.js';
+import type { Confidence, ObjectClass, Verdict } from '../../core/catalogue/verdict.js';
+import type { Candidate, TemplateClass } from '../../core/redshift/types.js';
+import { nudgeZ } from '../science/z-math.js';
+
+export type TrialSource = 'candidate' | 'typed' | 'line' | 'nudged' | 'saved' | 'none';
+
+export interface Trial {
+  z: number | null;
+  zErr: number | null;
+  template: string | null;
+  /** Index into the candidates when the trial z is a candidate's, else null. */
+  candidateIndex: number | null;
+  source: TrialSource;
+  /** Shown beside the trial z: e.g. "Hα at 8123.4 Å" or "+20 km/s from candidate 1". */
+  detail: string;
+  /** Sum of the velocity nudges since the last non-nudge choice, km/s. */
+  nudgedKmS: number;
+}
+
+export interface Grade {
+  confidence: Confidence | null;
+  objectClass: ObjectClass;
+  note: string;
+}
+
+export const CLASS_OF_TEMPLATE: Record<TemplateClass, ObjectClass> = {
+  'star-forming': 'galaxy',
+  passive: 'galaxy',
+  agn: 'agn',
+  qso: 'qso',
+  star: 'star',
+  user: 'unknown',
+};
+
+export function candidates(view: SpectrumView | null): Candidate[] {
+  return view?.measurement?.candidates ?? [];
+}
+
+/** The trial z as a spectrum opens: its saved verdict if any, otherwise the best candidate. */
+export function openingTrial(view: SpectrumView | null): Trial {
+  const v = view?.verdict;
+  if (v && v.status !== 'pending') {
+    const idx = v.z === null ? -1 : candidates(view).findIndex((c) => c.z === v.z);
+    return { z: v.z, zErr: v.zErr, template: v.template, candidateIndex: idx >= 0 ? idx : null, source: 'saved', detail: `saved as ${v.status}`, nudgedKmS: 0 };
+  }
+  return candidateTrial(view, 0);
+}
+
+export function candidateTrial(view: SpectrumView | null, index: number): Trial {
+  const c = candidates(view)[index];
+  if (!c) return { z: null, zErr: null, template: null, candidateIndex: null, source: 'none', detail: 'no candidate', nudgedKmS: 0 };
+  return { z: c.z, zErr: c.zErr, template: c.template, candidateIndex: index, source: 'candidate', detail: `candidate ${index + 1}, ${c.template}`, nudgedKmS: 0 };
+}
+
+export function typedTrial(z: number): Trial {
+  return { z, zErr: null, template: null, candidateIndex: null, source: 'typed', detail: 'typed', nudgedKmS: 0 };
+}
+
+export function lineTrial(z: number, lineLabel: string, observedWaveAngstrom: number, restWaveAngstrom: number): Trial {
+  return { z, zErr: null, template: null, candidateIndex: null, source: 'line', detail: `${lineLabel} ${restWaveAngstrom.toFixed(2)} Å at ${observedWaveAngstrom.toFixed(1)} Å`, nudgedKmS: 0 };
+}
+
+export function nudgedTrial(trial: Trial, velocityKmS: number): Trial {
+  if (trial.z === null) return trial;
+  const total = trial.nudgedKmS + velocityKmS;
+  const from = trial.source === 'nudged' ? trial.detail.replace(/^[+−-]?\d+ km\/s from /, '') : trial.detail;
+  const sign = total >= 0 ? '+' : '−';
+  return { ...trial, z: nudgeZ(trial.z, velocityKmS), candidateIndex: null, source: 'nudged', detail: `${sign}${Math.abs(total)} km/s from ${from}`, nudgedKmS: total };
+}
+
+/** The grade as a spectrum opens: the saved one, else the automatic suggestion. */
+export function openingGrade(view: SpectrumView | null): Grade {
+  const v = view?.verdict;
+  if (v && v.status !== 'pending') return { confidence: v.confidence, objectClass: v.objectClass, note: v.note };
+  const m = view?.measurement;
+  const best = m?.best ?? m?.candidates[0] ?? null;
+  return {
+    confidence: m && m.confidence !== 'none' ? m.confidence : 'tentative',
+    objectClass: best ? CLASS_OF_TEMPLATE[best.templateClass] : 'unknown',
+    note: '',
+  };
+}
+
+export type Decision = { kind: 'accept-best' } | { kind: 'candidate'; index: number } | { kind: 'trial' } | { kind: 'no-redshift' } | { kind: 'regrade'; verdict: Verdict };
+
+/** The verdict to save for a decision, or a one-line reason why it cannot be made. */
+export function verdictFor(view: SpectrumView, decision: Decision, trial: Trial, grade: Grade): VerdictInput | { refused: string } {
+  const base = { id: view.id, objectClass: grade.objectClass, note: grade.note };
+  const confidence = grade.confidence ?? 'tentative';
+  switch (decision.kind) {
+    case 'accept-best': {
+      const best = view.measurement?.best ?? candidates(view)[0];
+      if (!best) return { refused: 'there is no automatic candidate to accept' };
+      return { ...base, status: 'accepted', z: best.z, zErr: best.zErr, confidence, template: best.template };
+    }
+    case 'candidate': {
+      const c = candidates(view)[decision.index];
+      if (!c) return { refused: `there is no candidate ${decision.index + 1}` };
+      if (decision.index === 0) return verdictFor(view, { kind: 'accept-best' }, trial, grade);
+      return { ...base, status: 'revised', z: c.z, zErr: c.zErr, confidence, template: c.template };
+    }
+    case 'trial':
+      if (trial.z === null) return { refused: 'there is no trial z to save' };
+      if (trial.source === 'candidate' && trial.candidateIndex !== null) return verdictFor(view, { kind: 'candidate', index: trial.candidateIndex }, trial, grade);
+      return { ...base, status: 'revised', z: trial.z, zErr: trial.source === 'saved' ? trial.zErr : null, confidence, template: trial.template };
+    case 'no-redshift':
+      return { ...base, status: 'no-redshift', z: null, zErr: null, confidence: null, template: null };
+    case 'regrade': {
+      const v = decision.verdict;
+      return { ...base, status: v.status, z: v.z, zErr: v.zErr, confidence: v.status === 'no-redshift' ? null : confidence, template: v.template };
+    }
+  }
+}

@@ -1,0 +1,94 @@
+import { describe, expect, it } from 'vitest';
+import type { SpectrumListItem, SpectrumView, VerdictInput } from '../../core/api/host-api.js';
+import type { Verdict } from '../../core/catalogue/verdict.js';
+import type { Candidate } from '../../core/redshift/types.js';
+import { candidateTrial, lineTrial, nudgedTrial, openingGrade, openingTrial, typedTrial, verdictFor } from '../../renderer/state/decision.js';
+import { neighbour, nextPending, passesFilter, progress } from '../../renderer/state/worklist-view.js';
+import { SaveQueue } from '../../renderer/state/save-queue.js';
+import { nudgeZ } from '../../renderer/science/z-math.js';
+
+const cand = (z: number, template: string, templateClass: Candidate['templateClass']): Candidate => ({ z, zErr: 1e-4, r: 8, template, templateClass, overlap: 0.9, lines: [] });
+const view = (verdict: Verdict | null = null): SpectrumView => ({
+  id: 'a.fits', arrays: null, meta: null, templateModel: null, verdict, error: null,
+  measurement: { candidates: [cand(0.1, 'sf', 'star-forming'), cand(0.35, 'qso', 'qso')], best: cand(0.1001, 'sf', 'star-forming'), refinement: { method: 'line-fit', chi2Red: 1, nLinesFitted: 4 }, confidence: 'likely', nLines: 4, notes: [] },
+});
+const savedVerdict = (over: Partial<Verdict>): Verdict => ({ spectrum: 'a.fits', hdu: 0, status: 'revised', z: 0.35, zErr: null, confidence: 'secure', objectClass: 'qso', template: 'qso', note: 'n', time: '2026-03-15T03:00:00Z', user: 'obs', ...over });
+
+describe('decisions', () => {
+  it('opens on the best candidate with the suggested grade and the class of its template', () => {
+    expect(openingTrial(view()).z).toBe(0.1);
+    expect(openingGrade(view())).toEqual({ confidence: 'likely', objectClass: 'galaxy', note: '' });
+  });
+  it('opens on the saved verdict when there is one', () => {
+    const v = view(savedVerdict({}));
+    expect(openingTrial(v)).toMatchObject({ z: 0.35, candidateIndex: 1, source: 'saved' });
+    expect(openingGrade(v)).toEqual({ confidence: 'secure', objectClass: 'qso', note: 'n' });
+  });
+  it('accepting takes the refined best, another candidate is "revised"', () => {
+    const g = openingGrade(view());
+    expect(verdictFor(view(), { kind: 'accept-best' }, openingTrial(view()), g)).toMatchObject({ status: 'accepted', z: 0.1001, template: 'sf' });
+    const t = candidateTrial(view(), 1);
+    expect(verdictFor(view(), { kind: 'trial' }, t, g)).toMatchObject({ status: 'revised', z: 0.35, template: 'qso', confidence: 'likely' });
+  });
+  it('a typed, identified or nudged z is saved as revised without a σz', () => {
+    const g = openingGrade(view());
+    for (const t of [typedTrial(0.2), lineTrial(0.2, 'Hα', 7877.5, 6564.61), nudgedTrial(candidateTrial(view(), 0), 10)]) {
+      const v = verdictFor(view(), { kind: 'trial' }, t, g) as VerdictInput;
+      expect(v.status).toBe('revised');
+      expect(v.zErr).toBeNull();
+    }
+  });
+  it('nudges accumulate and say how far they moved', () => {
+    const t = nudgedTrial(nudgedTrial(candidateTrial(view(), 0), 100), -10);
+    expect(t.z).toBeCloseTo(nudgeZ(nudgeZ(0.1, 100), -10), 15);
+    expect(t.detail).toBe('+90 km/s from candidate 1, sf');
+  });
+  it('no-redshift carries no z and no confidence; a missing candidate is refused', () => {
+    const g = openingGrade(view());
+    expect(verdictFor(view(), { kind: 'no-redshift' }, openingTrial(view()), g)).toMatchObject({ status: 'no-redshift', z: null, confidence: null });
+    expect(verdictFor(view(), { kind: 'candidate', index: 4 }, openingTrial(view()), g)).toEqual({ refused: 'there is no candidate 5' });
+  });
+});
+
+const item = (id: string, verdict: Partial<Verdict> | null): SpectrumListItem => ({ id, verdict: verdict ? savedVerdict({ spectrum: id, ...verdict }) : null, suggestion: null, error: null });
+
+describe('worklist view', () => {
+  const items = [item('a', null), item('b', { status: 'accepted', confidence: 'secure' }), item('c', null), item('d', { status: 'revised', confidence: 'tentative' })];
+  it('counts progress and filters by status and confidence', () => {
+    expect(progress(items)).toEqual({ vetted: 2, total: 4 });
+    expect(items.filter((i) => passesFilter(i, 'pending')).map((i) => i.id)).toEqual(['a', 'c']);
+    expect(items.filter((i) => passesFilter(i, 'tentative')).map((i) => i.id)).toEqual(['d']);
+  });
+  it('moves within the filter, also from a spectrum the filter now hides', () => {
+    expect(neighbour(items, 'all', 'a', 1)).toBe('b');
+    expect(neighbour(items, 'pending', 'b', 1)).toBe('c');
+    expect(neighbour(items, 'pending', 'c', 1)).toBeNull();
+    expect(nextPending(items, 'c')).toBe('a');
+  });
+});
+
+describe('save queue', () => {
+  const input = (id: string): VerdictInput => ({ id, status: 'accepted', z: 0.1, zErr: 1e-4, confidence: 'secure', objectClass: 'galaxy', template: 'sf', note: '' });
+  it('keeps a failed write (and later ones) queued with the reason, and writes them in order on retry', async () => {
+    const written: string[] = [];
+    let failNext = true;
+    const saved: string[] = [];
+    const q = new SaveQueue(async (inp) => {
+      if (failNext) {
+        failNext = false;
+        throw new Error('disk full');
+      }
+      written.push(inp.id);
+      return { verdict: savedVerdict({ spectrum: inp.id }) };
+    }, { saved: (v) => saved.push(v.spectrum), changed: () => undefined });
+    await q.enqueue(input('a'));
+    await q.enqueue(input('b'));
+    expect(q.failed?.reason).toBe('disk full');
+    expect(q.pending.map((p) => p.input.id)).toEqual(['a', 'b']);
+    expect(saved).toEqual([]);
+    await q.retry();
+    expect(written).toEqual(['a', 'b']);
+    expect(saved).toEqual(['a', 'b']);
+    expect(q.pending).toEqual([]);
+  });
+});

@@ -1,0 +1,41 @@
+import { describe, expect, it } from 'vitest';
+import { groupLines, MARKER_STYLE, markersInRange } from '../../renderer/plot/markers.js';
+import { REST_LINES, restLine } from '../../core/redshift/line-list.js';
+
+const geometry = { widthPx: 1000, charPx: 7.5, maxRows: 3 };
+
+describe('line markers', () => {
+  it('places each line at λ_rest·(1+z) and only inside the range', () => {
+    const z = 0.1;
+    const ms = markersInRange(z, 3600, 9400, geometry);
+    const ha = ms.find((m) => m.ids.includes('Halpha'));
+    expect(ha?.observedWaveAngstrom[0]).toBeCloseTo(6564.61 * 1.1, 6);
+    for (const m of ms) for (const w of m.observedWaveAngstrom) {
+      expect(w).toBeGreaterThanOrEqual(3600);
+      expect(w).toBeLessThanOrEqual(9400);
+    }
+    // Lyα at z = 0.1 is at 1337 Å: out of range.
+    expect(ms.some((m) => m.ids.includes('Lya'))).toBe(false);
+  });
+  it('groups the [O II] doublet and Mg b triplet under one label, keeps the [O III] pair apart', () => {
+    const groups = groupLines(REST_LINES).map((g) => g.map((l) => l.id));
+    expect(groups).toContainEqual(['[OII]3727', '[OII]3730']);
+    expect(groups).toContainEqual(['Mgb5169', 'Mgb5174', 'Mgb5185']);
+    expect(groups).toContainEqual(['[OIII]4960']);
+  });
+  it('tells emission from absorption by dash, glyph and label side, not colour', () => {
+    expect(MARKER_STYLE.emission.dash).not.toBe(MARKER_STYLE.absorption.dash);
+    expect(MARKER_STYLE.emission.glyph).not.toBe(MARKER_STYLE.absorption.glyph);
+    expect(MARKER_STYLE.emission.side).not.toBe(MARKER_STYLE.absorption.side);
+    expect(restLine('CaK').kind).toBe('absorption');
+  });
+  it('stacks close labels in different rows: [N II], Hα, [N II] at z = 0.05', () => {
+    const ms = markersInRange(0.05, 6700, 7100, { widthPx: 300, charPx: 7.5, maxRows: 3 });
+    const rows = ['[NII]6550', 'Halpha', '[NII]6585'].map((id) => ms.find((m) => m.ids.includes(id))?.row);
+    expect(new Set(rows).size).toBe(3);
+  });
+  it('labels far apart share the first row', () => {
+    const ms = markersInRange(0, 4800, 6000, geometry).filter((m) => ['Hbeta', 'HeI5877'].includes(m.ids[0]));
+    expect(ms.map((m) => m.row)).toEqual([0, 0]);
+  });
+});
