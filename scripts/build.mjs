@@ -15,10 +15,29 @@ const nodeEsm = {
 };
 
 await build({ ...nodeEsm, entryPoints: { cli: 'core/node/cli/main.ts' }, outdir: 'dist' });
+// The measuring worker runs beside the command-line program (core/node/measure-pool.ts finds it).
+await build({ ...nodeEsm, entryPoints: { 'measure-worker': 'core/node/measure-worker.ts' }, outdir: 'dist' });
 
 // The Electron host: main process and sandboxed preload, CommonJS, Electron itself left external.
-const electronCjs = { bundle: true, platform: 'node', format: 'cjs', target: 'node20', sourcemap: true, logLevel: 'warning', external: ['electron'], outdir: 'dist/electron', outExtension: { '.js': '.cjs' } };
-await build({ ...electronCjs, entryPoints: { main: 'electron/main.ts' } });
+const electronCjs = {
+  bundle: true,
+  platform: 'node',
+  format: 'cjs',
+  target: 'node20',
+  sourcemap: true,
+  logLevel: 'warning',
+  external: ['electron'],
+  outdir: 'dist/electron',
+  outExtension: { '.js': '.cjs' },
+};
+// In the main process import.meta.url (used to find the measuring worker) is the bundle's own URL.
+await build({
+  ...electronCjs,
+  entryPoints: { main: 'electron/main.ts' },
+  define: { 'import.meta.url': '__zvetModuleUrl' },
+  banner: { js: "const __zvetModuleUrl = require('node:url').pathToFileURL(__filename).href;" },
+});
+// The sandboxed preload may require nothing but 'electron'.
 await build({ ...electronCjs, entryPoints: { preload: 'electron/preload.ts' } });
 copyFileSync('packaging/icons/512x512.png', 'dist/electron/icon.png');
 
