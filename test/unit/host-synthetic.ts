@@ -1,0 +1,70 @@
+// Synthetic spectra with Gaussian emission lines injected at known fluxes, for the host tests.
+import type { Spectrum } from '../../core/spectrum/spectrum.js';
+
+/** Deterministic normal deviates (mulberry32 + Box–Muller). */
+export function normalDeviates(seed: number): () => number {
+  let a = seed >>> 0;
+  const uniform = () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+  return () => Math.sqrt(-2 * Math.log(1 - uniform())) * Math.cos(2 * Math.PI * uniform());
+}
+
+export interface InjectedLine {
+  restWaveAngstrom: number;
+  /** Flux in flux-density unit × Å; negative for absorption. */
+  flux: number;
+  sigmaKmS: number;
+  dvKmS?: number;
+}
+
+export interface SyntheticOptions {
+  z: number;
+  lines: InjectedLine[];
+  /** 1σ noise per pixel (flux-density units). */
+  noise: number;
+  seed: number;
+  continuum?: (waveAngstrom: number) => number;
+  /** log10 pixel step (SDSS-like 1e-4 by default). */
+  dlog10?: number;
+  fluxUnit?: string;
+}
+
+export function syntheticSpectrum(o: SyntheticOptions): Spectrum {
+  const dlog = o.dlog10 ?? 1e-4;
+  const n = Math.floor((Math.log10(9200) - Math.log10(3800)) / dlog);
+  const wave = new Float64Array(n);
+  const flux = new Float64Array(n);
+  const error = new Float64Array(n).fill(o.noise);
+  const rand = normalDeviates(o.seed);
+  const continuum = o.continuum ?? ((w: number) => 10 + 2e-4 * (w - 6000));
+  const c = 299792.458;
+  for (let i = 0; i < n; i++) {
+    const w = 10 ** (Math.log10(3800) + i * dlog);
+    wave[i] = w;
+    let f = continuum(w);
+    for (const l of o.lines) {
+      const mu = l.restWaveAngstrom * (1 + o.z) * (1 + (l.dvKmS ?? 0) / c);
+      const s = (mu * l.sigmaKmS) / c;
+      f += (l.flux / (Math.sqrt(2 * Math.PI) * s)) * Math.exp(-0.5 * ((w - mu) / s) ** 2);
+    }
+    flux[i] = f + o.noise * rand();
+  }
+  return {
+    fileName: 'synthetic.fits',
+    waveAngstrom: wave,
+    flux,
+    error,
+    mask: new Uint8Array(n),
+    fluxUnit: o.fluxUnit ?? '1e-17 erg/s/cm^2/Angstrom',
+    meta: { velocityFrame: 'unknown', velocityFrameReason: 'synthetic' },
+    provenance: {
+      format: 'synthetic', hdu: null, spectrumHdus: [], medium: 'vacuum', mediumReason: 'synthetic', dispersion: 'log10',
+      errorKind: 'sigma', waveUnitInFile: 'Å', hasMask: false, hasSky: false, flipped: false, header: [],
+    },
+  };
+}
