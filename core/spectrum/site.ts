@@ -54,7 +54,9 @@ function eastPositive(comment: string | undefined, byDefault: boolean): boolean 
   return byDefault;
 }
 
+/** Longitude in (−180°, 180°]; values already in range are returned unchanged. */
 function wrap180(deg: number): number {
+  if (deg > -180 && deg <= 180) return deg;
   const d = ((((deg + 180) % 360) + 360) % 360) - 180;
   return d === -180 ? 180 : d;
 }
