@@ -1,0 +1,128 @@
+/**
+ * `zvet measure PATH... [--out FILE|-] [--format csv|jsonl] [--jobs N] [--templates LIST]
+ * [--zmin Z] [--zmax Z] [--line-list FILE] [--template-spectrum FILE]`: automatic redshift
+ * candidates for every spectrum file (folders: every spectrum file below them), measured in
+ * parallel, one row per input in input order, streamed. Exit 0 when all were measured, 1 when
+ * some failed, 2 for usage errors. Automatic redshifts are suggestions until vetted.
+ */
+import { SingleBar } from 'cli-progress';
+import type { Command } from 'commander';
+import { createWriteStream } from 'node:fs';
+import { readFile } from 'node:fs/promises';
+import { basename } from 'node:path';
+import { csvCells, csvHeader, csvLine, jsonlLine, MEASURE_COLUMNS, type MeasureColumn } from '../../redshift/measure-columns.js';
+import { resolveTemplates, TemplateChoiceError } from '../../redshift/template-set.js';
+import type { MeasureOptions } from '../../redshift/types.js';
+import { LineListError, parseUserLineList } from '../../redshift/user-line-list.js';
+import { MeasurePool, type MeasureFileResult } from '../measure-pool.js';
+import { readSpectrumFile } from '../read-spectrum-file.js';
+import { listSpectrumFiles } from '../spectrum-files.js';
+import { EXIT_OK, EXIT_SOME_FAILED, runAction } from './run-action.js';
+import { UsageError } from './usage-error.js';
+
+interface MeasureCliOptions {
+  out?: string;
+  format?: string;
+  jobs?: string;
+  templates?: string;
+  zmin?: string;
+  zmax?: string;
+  lineList?: string;
+  templateSpectrum?: string[];
+}
+
+/** Files submitted ahead of the one being written, per job (keeps memory flat). */
+const AHEAD_PER_JOB = 8;
+
+export function registerMeasure(program: Command, columns: MeasureColumn[] = MEASURE_COLUMNS): void {
+  program
+    .command('measure')
+    .description('automatic redshift candidates for spectrum files and folders (suggestions until vetted)')
+    .argument('<paths...>', 'spectrum files or folders (searched recursively)')
+    .option('--out <file>', 'write the table here ("-" = standard output)', '-')
+    .option('--format <format>', 'csv or jsonl (default: from --out, else csv)')
+    .option('--jobs <n>', 'worker threads (default: all cores)')
+    .option('--templates <list>', 'comma-separated template names (default: all)')
+    .option('--zmin <z>', 'lowest redshift searched (galaxy and QSO templates)')
+    .option('--zmax <z>', 'highest redshift searched (galaxy and QSO templates)')
+    .option('--line-list <file>', 'extra template from a JSON line list (rest-frame vacuum Å)')
+    .option('--template-spectrum <file...>', 'extra templates from rest-frame spectra (any file zvet reads)')
+    .action(runAction(async (paths: string[], opts: MeasureCliOptions) => measure(paths, opts, columns)));
+}
+
+async function measure(paths: string[], opts: MeasureCliOptions, columns: MeasureColumn[]): Promise<number> {
+  const format = opts.format ?? (opts.out && opts.out.endsWith('.jsonl') ? 'jsonl' : 'csv');
+  if (format !== 'csv' && format !== 'jsonl') throw new UsageError(`--format: "${format}" is not csv or jsonl`);
+  const jobs = opts.jobs === undefined ? undefined : positiveInt(opts.jobs, '--jobs');
+  const options: MeasureOptions = {
+    templates: opts.templates ? opts.templates.split(',').map((s) => s.trim()).filter(Boolean) : undefined,
+    zmin: opts.zmin === undefined ? undefined : finite(opts.zmin, '--zmin'),
+    zmax: opts.zmax === undefined ? undefined : finite(opts.zmax, '--zmax'),
+  };
+  if (opts.lineList) {
+    try {
+      options.userLineTemplates = [parseUserLineList(await readFile(opts.lineList, 'utf8'), opts.lineList)];
+    } catch (err) {
+      if (err instanceof LineListError) throw new UsageError(err.message);
+      throw err;
+    }
+  }
+  if (opts.templateSpectrum?.length) {
+    options.userSpectrumTemplates = [];
+    for (const f of opts.templateSpectrum) {
+      const s = await readSpectrumFile(f);
+      options.userSpectrumTemplates.push({ name: basename(f).replace(/\.(fits|fit|fts|csv|tsv|txt|dat|ascii)(\.gz)?$/i, ''), waveRestAngstrom: s.waveAngstrom, flux: s.flux });
+    }
+  }
+  try {
+    resolveTemplates(options);
+  } catch (err) {
+    if (err instanceof TemplateChoiceError) throw new UsageError(err.message);
+    throw err;
+  }
+  const files = await listSpectrumFiles(paths);
+  if (files.length === 0) throw new UsageError('no spectrum files found in the paths given');
+
+  const out = opts.out === undefined || opts.out === '-' ? process.stdout : createWriteStream(opts.out);
+  let outError: Error | null = null;
+  out.on('error', (err) => (outError = err));
+  const write = (line: string) => new Promise<void>((resolve, reject) => {
+    if (outError) return reject(outError);
+    if (out.write(`${line}\n`)) resolve();
+    else out.once('drain', resolve);
+  });
+  const bar = process.stderr.isTTY ? new SingleBar({ format: 'measuring [{bar}] {value}/{total} spectra', stream: process.stderr, hideCursor: true }) : null;
+  bar?.start(files.length, 0);
+
+  const pool = new MeasurePool({ jobs });
+  const ahead = AHEAD_PER_JOB * (jobs ?? 4);
+  const pending: Promise<MeasureFileResult>[] = [];
+  let submitted = 0, failed = 0;
+  try {
+    if (format === 'csv') await write(csvLine(csvHeader(columns)));
+    for (let i = 0; i < files.length; i++) {
+      while (submitted < files.length && submitted < i + ahead) pending.push(pool.measureFile(files[submitted++], options));
+      const result = await pending.shift()!;
+      if (result.status !== 'ok') failed++;
+      await write(format === 'csv' ? csvLine(csvCells(columns, result)) : jsonlLine(columns, result));
+      bar?.increment();
+    }
+  } finally {
+    bar?.stop();
+    await pool.close();
+    if (out !== process.stdout) await new Promise<void>((resolve) => (out as NodeJS.WritableStream).end(resolve));
+  }
+  return failed ? EXIT_SOME_FAILED : EXIT_OK;
+}
+
+function positiveInt(text: string, flag: string): number {
+  const n = Number(text);
+  if (!Number.isInteger(n) || n < 1) throw new UsageError(`${flag}: "${text}" is not a positive whole number`);
+  return n;
+}
+
+function finite(text: string, flag: string): number {
+  const n = Number(text);
+  if (!Number.isFinite(n) || n <= -1) throw new UsageError(`${flag}: "${text}" is not a redshift (a number above −1)`);
+  return n;
+}

@@ -1,0 +1,133 @@
+/**
+ * Measures spectrum files on worker threads. Each worker reads its file itself; a bad file is a
+ * result with status 'error' and a one-line reason; a worker that dies is replaced and the files
+ * it held are reported as errors. Results come back as promises, one per file.
+ */
+import { existsSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
+import { fileURLToPath } from 'node:url';
+import { Worker } from 'node:worker_threads';
+import type { Measurement, MeasureOptions } from '../redshift/types.js';
+import type { Spectrum } from '../spectrum/spectrum.js';
+
+export interface MeasureFileResult {
+  file: string;
+  hdu: number | null;
+  status: 'ok' | 'error';
+  /** One-line reason when status is 'error'. */
+  error: string | null;
+  measurement: Measurement | null;
+  spectrum?: Spectrum;
+}
+
+/** Milliseconds spent per stage, summed over the files measured. */
+export interface StageTotals {
+  readMs: number;
+  preprocessMs: number;
+  correlateMs: number;
+  refineMs: number;
+  files: number;
+}
+
+export interface WorkerRequest {
+  id: number;
+  path: string;
+  options: MeasureOptions;
+  includeSpectrum: boolean;
+}
+
+export interface WorkerReply {
+  id: number;
+  result: MeasureFileResult;
+  times: Omit<StageTotals, 'files'>;
+}
+
+interface Job {
+  req: WorkerRequest;
+  resolve: (r: MeasureFileResult) => void;
+}
+
+interface Slot {
+  worker: Worker;
+  inFlight: Map<number, Job>;
+}
+
+/** Jobs sent ahead to each worker, so it never waits for the main thread. */
+const PER_WORKER_IN_FLIGHT = 2;
+
+/** The worker bundle: next to this module when bundled (dist/), else the built one in dist/. */
+function workerUrl(): URL {
+  const beside = new URL('./measure-worker.js', import.meta.url);
+  if (existsSync(fileURLToPath(beside))) return beside;
+  const built = new URL('../../dist/measure-worker.js', import.meta.url);
+  if (existsSync(fileURLToPath(built))) return built;
+  throw new Error('the measuring worker is not built: run `npm run build`');
+}
+
+export class MeasurePool {
+  private readonly slots: Slot[] = [];
+  private readonly queue: Job[] = [];
+  private nextId = 1;
+  private closed = false;
+  private readonly url: URL;
+  readonly totals: StageTotals = { readMs: 0, preprocessMs: 0, correlateMs: 0, refineMs: 0, files: 0 };
+
+  constructor(opts: { jobs?: number } = {}) {
+    const jobs = Math.max(1, Math.floor(opts.jobs ?? availableParallelism()));
+    this.url = workerUrl();
+    for (let i = 0; i < jobs; i++) this.slots.push(this.spawn());
+  }
+
+  measureFile(path: string, options: MeasureOptions & { includeSpectrum?: boolean } = {}): Promise<MeasureFileResult> {
+    if (this.closed) return Promise.reject(new Error('MeasurePool is closed'));
+    const { includeSpectrum, ...measureOptions } = options;
+    return new Promise((resolve) => {
+      this.queue.push({ req: { id: this.nextId++, path, options: measureOptions, includeSpectrum: !!includeSpectrum }, resolve });
+      this.dispatch();
+    });
+  }
+
+  async close(): Promise<void> {
+    this.closed = true;
+    await Promise.all(this.slots.map((s) => s.worker.terminate()));
+  }
+
+  private spawn(): Slot {
+    const slot: Slot = { worker: new Worker(this.url), inFlight: new Map() };
+    slot.worker.on('message', (reply: WorkerReply) => {
+      const job = slot.inFlight.get(reply.id);
+      if (!job) return;
+      slot.inFlight.delete(reply.id);
+      this.totals.readMs += reply.times.readMs;
+      this.totals.preprocessMs += reply.times.preprocessMs;
+      this.totals.correlateMs += reply.times.correlateMs;
+      this.totals.refineMs += reply.times.refineMs;
+      this.totals.files++;
+      job.resolve(reply.result);
+      this.dispatch();
+    });
+    const fail = (why: string) => {
+      if (this.closed) return;
+      for (const job of slot.inFlight.values()) {
+        job.resolve({ file: job.req.path, hdu: null, status: 'error', error: `the measuring worker stopped (${why})`, measurement: null });
+      }
+      slot.inFlight.clear();
+      const i = this.slots.indexOf(slot);
+      if (i >= 0) this.slots[i] = this.spawn();
+      this.dispatch();
+    };
+    slot.worker.on('error', (err) => fail(err.message.split('\n')[0]));
+    slot.worker.on('exit', (code) => fail(`exit code ${code}`));
+    return slot;
+  }
+
+  private dispatch(): void {
+    for (const slot of this.slots) {
+      while (slot.inFlight.size < PER_WORKER_IN_FLIGHT && this.queue.length) {
+        const job = this.queue.shift()!;
+        slot.inFlight.set(job.req.id, job);
+        slot.worker.postMessage(job.req);
+      }
+    }
+  }
+}

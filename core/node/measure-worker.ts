@@ -1,0 +1,48 @@
+/**
+ * Worker thread of MeasurePool: reads a spectrum file itself, measures it and posts the result
+ * back; the spectrum's arrays are transferred, not copied, when the caller wants them.
+ */
+import { parentPort } from 'node:worker_threads';
+import { measureRedshift, type StageTimes } from '../redshift/measure.js';
+import type { MeasureOptions } from '../redshift/types.js';
+import { SpectrumReadError, type Spectrum } from '../spectrum/spectrum.js';
+import { readSpectrumFile } from './read-spectrum-file.js';
+import type { MeasureFileResult, WorkerRequest, WorkerReply } from './measure-pool.js';
+
+const port = parentPort;
+if (!port) throw new Error('measure-worker must run in a worker thread');
+
+port.on('message', async (req: WorkerRequest) => {
+  const times: StageTimes & { readMs: number } = { readMs: 0, preprocessMs: 0, correlateMs: 0, refineMs: 0 };
+  const t0 = performance.now();
+  let spectrum: Spectrum | undefined;
+  let result: MeasureFileResult;
+  try {
+    spectrum = await readSpectrumFile(req.path);
+    times.readMs = performance.now() - t0;
+    const measurement = measureRedshift(spectrum, req.options as MeasureOptions, times);
+    result = { file: req.path, hdu: spectrum.provenance.hdu, status: 'ok', error: null, measurement };
+  } catch (err) {
+    if (!times.readMs) times.readMs = performance.now() - t0;
+    result = { file: req.path, hdu: spectrum?.provenance.hdu ?? null, status: 'error', error: oneLine(err), measurement: null };
+  }
+  const transfer: ArrayBuffer[] = [];
+  if (req.includeSpectrum && spectrum) {
+    result.spectrum = spectrum;
+    for (const a of [spectrum.waveAngstrom, spectrum.flux, spectrum.error, spectrum.mask, spectrum.sky]) {
+      if (a && a.buffer instanceof ArrayBuffer && !transfer.includes(a.buffer)) transfer.push(a.buffer);
+    }
+  }
+  const reply: WorkerReply = { id: req.id, result, times };
+  try {
+    port.postMessage(reply, transfer);
+  } catch {
+    delete result.spectrum;
+    port.postMessage(reply);
+  }
+});
+
+function oneLine(err: unknown): string {
+  const text = err instanceof SpectrumReadError ? err.reason : err instanceof Error ? err.message : String(err);
+  return text.replace(/\s*[\r\n]+\s*/g, ' ').trim();
+}
