@@ -1,6 +1,9 @@
 import { Command } from 'commander';
 import { registerInspect } from './inspect.js';
+import { registerMeasure } from './measure.js';
 import { registerServe } from './serve.js';
+import { registerCosmo } from './cosmo.js';
+import { registerBary } from './bary.js';
 import { EXIT_USAGE_OR_UNREADABLE } from './run-action.js';
 
 const program = new Command('zvet')
@@ -11,6 +14,9 @@ const program = new Command('zvet')
   });
 
 registerInspect(program);
+registerMeasure(program);
 registerServe(program);
+registerCosmo(program);
+registerBary(program);
 
 await program.parseAsync(process.argv);
