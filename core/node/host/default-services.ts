@@ -1,12 +1,22 @@
 /** The real modules behind the handlers (see services.ts). */
+import { MeasurePool } from '../measure-pool.js';
 import { Worklist } from '../worklist.js';
 import type { HostServices } from './services.js';
 
 export function defaultServices(): HostServices {
+  // Started on the first measurement, so opening settings alone spawns no threads.
+  let pool: MeasurePool | null = null;
   return {
     openWorklist: (target) => Worklist.open(target),
-    measureFile: null,
+    measureFile: async (path, options) => {
+      pool ??= new MeasurePool();
+      const r = await pool.measureFile(path, { ...options, includeSpectrum: true });
+      return { hdu: r.hdu, error: r.error, measurement: r.measurement, spectrum: r.spectrum ?? null };
+    },
     writeCatalogue: null,
-    close: async () => undefined,
+    close: async () => {
+      await pool?.close();
+      pool = null;
+    },
   };
 }
