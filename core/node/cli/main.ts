@@ -1,6 +1,7 @@
 import { Command } from 'commander';
 import { registerInspect } from './inspect.js';
 import { registerMeasure } from './measure.js';
+import { registerMeasure } from './measure.js';
 import { registerServe } from './serve.js';
 import { registerCosmo } from './cosmo.js';
 import { registerBary } from './bary.js';
@@ -14,6 +15,7 @@ const program = new Command('zvet')
   });
 
 registerInspect(program);
+registerMeasure(program);
 registerMeasure(program);
 registerServe(program);
 registerCosmo(program);
