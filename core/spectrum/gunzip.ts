@@ -32,7 +32,10 @@ export function gunzip(bytes: Uint8Array, fileName: string, maxBytes = MAX_INFLA
     if (err instanceof SpectrumReadError) throw err;
     throw new SpectrumReadError(fileName, `corrupt gzip data (${err instanceof Error ? err.message : String(err)})`);
   }
-  if (!done) throw new SpectrumReadError(fileName, 'truncated gzip data');
+  // RFC 1952 §2.3.1: the member ends with ISIZE, the inflated size mod 2^32 (little-endian).
+  const n = bytes.length;
+  const isize = n >= 18 ? (bytes[n - 4] | (bytes[n - 3] << 8) | (bytes[n - 2] << 16) | (bytes[n - 1] << 24)) >>> 0 : -1;
+  if (!done || isize !== total % 2 ** 32) throw new SpectrumReadError(fileName, 'truncated or corrupt gzip data (its size does not match the gzip trailer)');
   const out = new Uint8Array(total);
   let at = 0;
   for (const p of parts) {

@@ -1,0 +1,61 @@
+// Plain-text spectra: separators, comments, header rows with units, 2–4 columns.
+import { describe, expect, it } from 'vitest';
+import { airToVacuum } from '../../core/spectrum/air-vacuum.js';
+import { readSpectrum } from '../../core/spectrum/read.js';
+import { describeColumn } from '../../core/spectrum/text-reader.js';
+
+const enc = (s: string) => new TextEncoder().encode(s);
+const rows = (n: number, f: (i: number) => string) => Array.from({ length: n }, (_, i) => f(i)).join('\n');
+
+describe('text spectra', () => {
+  it('whitespace columns without a header: wavelength, flux, error, mask; air assumed', () => {
+    const s = readSpectrum(enc(`# a comment\n${rows(12, (i) => `${5000 + i}  ${1 + i}  0.1  ${i === 3 ? 1 : 0}`)}\n`), 'a.txt');
+    expect(s.provenance.format).toBe('text');
+    expect(s.waveAngstrom[0]).toBeCloseTo(airToVacuum(5000), 9);
+    expect(s.flux[11]).toBe(12);
+    expect(s.error[0]).toBe(0.1);
+    expect(s.mask[3]).toBe(1);
+    expect(s.provenance.mediumReason).toMatch(/^assumed air/);
+  });
+  it('CSV with a header row naming units: wave_A, flux, err', () => {
+    const s = readSpectrum(enc(`wave_A,flux,err\n${rows(12, (i) => `${6000 + 2 * i},${i},0.5`)}\n`), 'a.csv');
+    expect(s.provenance.format).toBe('text (named columns)');
+    expect(s.provenance.waveUnitInFile).toBe('Å');
+    expect(s.error[4]).toBe(0.5);
+  });
+  it('TSV with wavelength[nm], ivar column, and KEY = value comments as header cards', () => {
+    const text = `# OBJECT = KRT-26-0017\n# AIRORVAC = vac\n# RA = 150.1\n# DEC = 2.2\nwavelength[nm]\tflux\tivar\n${rows(12, (i) => `${400 + i}\t${i + 1}\t4`)}\n`;
+    const s = readSpectrum(enc(text), 'a.tsv');
+    expect(s.waveAngstrom[0]).toBe(4000);
+    expect(s.error[0]).toBe(0.5);
+    expect(s.provenance.errorKind).toBe('ivar');
+    expect(s.meta.object).toBe('KRT-26-0017');
+    expect(s.meta).toMatchObject({ raDeg: 150.1, decDeg: 2.2 });
+    expect(s.provenance.medium).toBe('vacuum');
+  });
+  it('a commented header row just above the data names the columns; CRLF line ends', () => {
+    const s = readSpectrum(enc(`# flux wave\r\n${rows(12, (i) => `${i + 1} ${7000 + i}`).replace(/\n/g, '\r\n')}`), 'a.dat');
+    expect(s.waveAngstrom[0]).toBeCloseTo(airToVacuum(7000), 9);
+    expect(s.flux[0]).toBe(1);
+  });
+  it('wavelengths in µm are recognised from their size when unlabelled', () => {
+    const s = readSpectrum(enc(rows(12, (i) => `${1.1 + i * 0.01} 1`)), 'ir.txt');
+    expect(s.provenance.waveUnitInFile).toBe('µm (assumed from the values)');
+    expect(s.waveAngstrom[0]).toBeCloseTo(airToVacuum(11000), 6);
+  });
+  it('a column named wave_vac says vacuum; NaN flux pixels are masked', () => {
+    const s = readSpectrum(enc(`wave_vac flux\n${rows(12, (i) => `${5000 + i} ${i === 2 ? 'nan' : 1}`)}`), 'v.txt');
+    expect(s.provenance.medium).toBe('vacuum');
+    expect(s.mask[2]).toBe(1);
+  });
+});
+
+describe('describeColumn', () => {
+  it('splits name and unit', () => {
+    expect(describeColumn('wavelength[nm]')).toMatchObject({ role: 'wave', unit: 'nm' });
+    expect(describeColumn('lambda (um)')).toMatchObject({ role: 'wave', unit: 'um' });
+    expect(describeColumn('wave_A')).toMatchObject({ role: 'wave', unit: 'A' });
+    expect(describeColumn('flux_err')).toMatchObject({ role: 'sigma' });
+    expect(describeColumn('colour').role).toBeUndefined();
+  });
+});
