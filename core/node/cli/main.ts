@@ -1,10 +1,11 @@
 import { Command } from 'commander';
 import { registerInspect } from './inspect.js';
 import { registerMeasure } from './measure.js';
-import { registerMeasure } from './measure.js';
 import { registerServe } from './serve.js';
 import { registerCosmo } from './cosmo.js';
 import { registerBary } from './bary.js';
+import { registerExport } from './export.js';
+import { registerLines } from './lines.js';
 import { EXIT_USAGE_OR_UNREADABLE } from './run-action.js';
 
 const program = new Command('zvet')
@@ -16,9 +17,10 @@ const program = new Command('zvet')
 
 registerInspect(program);
 registerMeasure(program);
-registerMeasure(program);
 registerServe(program);
 registerCosmo(program);
 registerBary(program);
+registerExport(program);
+registerLines(program);
 
 await program.parseAsync(process.argv);
