@@ -18,7 +18,7 @@ import type { Candidate, CorrelationCurve, Measurement, MeasureOptions, Refineme
 
 /** Peaks kept per template before merging across templates. */
 const PEAKS_PER_TEMPLATE = 8;
-/** Candidates closer than this in ln(1+z) are the same solution (≈ 1500 km/s; common practice). */
+/** Candidates closer than this in ln(1+z), or than a peak's FWHM, are the same solution (≈ 1500 km/s; common practice). */
 const DISTINCT_LN = 0.005;
 const MAX_CURVE_POINTS = 2000;
 
@@ -62,7 +62,8 @@ function distinctPeaks(curves: CorrelationCurveData[], max: number): Scored[] {
   const kept: Scored[] = [];
   for (const s of all) {
     if (kept.length >= max + 1) break;
-    if (kept.every((k) => Math.abs(Math.log1p(k.peak.z) - Math.log1p(s.peak.z)) > DISTINCT_LN)) kept.push(s);
+    const apart = (k: Scored) => Math.abs(Math.log1p(k.peak.z) - Math.log1p(s.peak.z)) > Math.max(DISTINCT_LN, Math.max(k.peak.widthLags, s.peak.widthLags) * curves[0].step);
+    if (kept.every(apart)) kept.push(s);
   }
   return kept;
 }
@@ -117,10 +118,12 @@ function finish(p: PreparedSpectrum, distinct: Scored[], curves: CorrelationCurv
 
 /** Leading candidates compared by the lines they explain (common practice, no source). */
 const EVIDENCE_CANDIDATES = 3;
+/** Each line's S/N counts up to this, so the number of lines seen matters more than one line's strength. */
+const EVIDENCE_SNR_CAP = 10;
 
 /**
  * Index of the candidate whose template lines, each fitted alone, explain the most of the
- * spectrum: Σ (S/N)² over lines seen with the right sign. One strong line matched by the
+ * spectrum: Σ min(S/N, cap)² over lines seen with the right sign. One strong line matched by the
  * wrong line of another template (broad Hα taken for Lyα) explains less than the full pattern.
  */
 function rankByLineEvidence(p: PreparedSpectrum, distinct: Scored[]): number {
@@ -128,7 +131,7 @@ function rankByLineEvidence(p: PreparedSpectrum, distinct: Scored[]): number {
   distinct.slice(0, EVIDENCE_CANDIDATES).forEach((s, i) => {
     if (s.template.lines.length === 0) return;
     const nr = nativeResidual(p, s.template, s.peak.z);
-    const ev = detectLines(nr, s.template, s.peak.z).reduce((acc, d) => acc + (d.snr >= DETECTION_SNR ? d.snr * d.snr : 0), 0);
+    const ev = detectLines(nr, s.template, s.peak.z).reduce((acc, d) => acc + (d.snr >= DETECTION_SNR ? Math.min(d.snr, EVIDENCE_SNR_CAP) ** 2 : 0), 0);
     if (ev > bestEvidence) {
       bestEvidence = ev;
       bestIndex = i;
