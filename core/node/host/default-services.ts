@@ -1,4 +1,5 @@
 /** The real modules behind the handlers (see services.ts). */
+import { exportCatalogue } from '../export-catalogue.js';
 import { MeasurePool } from '../measure-pool.js';
 import { Worklist } from '../worklist.js';
 import type { HostServices } from './services.js';
@@ -13,7 +14,7 @@ export function defaultServices(): HostServices {
       const r = await pool.measureFile(path, { ...options, includeSpectrum: true });
       return { hdu: r.hdu, error: r.error, measurement: r.measurement, spectrum: r.spectrum ?? null };
     },
-    writeCatalogue: null,
+    writeCatalogue: async (worklist, format, path) => (await exportCatalogue(worklist, format, path)).rows,
     close: async () => {
       await pool?.close();
       pool = null;

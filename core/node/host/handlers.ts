@@ -24,7 +24,8 @@ import { describeFailure } from '../cli/run-action.js';
 import { resolveExportPath } from './export-path.js';
 import { HostFailure } from './host-failure.js';
 import { MeasurementCache, optionsKey } from './measurement-cache.js';
-import type { HostServices, MeasuredFile, OpenedWorklist } from './services.js';
+import type { Worklist } from '../worklist.js';
+import type { HostServices, MeasuredFile } from './services.js';
 import { defaultServices } from './default-services.js';
 import { SettingsStore } from './settings-store.js';
 import { spectrumArrays, spectrumMetaView, toJsonNumbers } from './spectrum-view.js';
@@ -50,7 +51,7 @@ interface Entry {
 
 /** One open worklist: its files, its journal, the verdicts waiting for the disk, its measurements. */
 interface Session {
-  worklist: OpenedWorklist;
+  worklist: Worklist;
   entries: Map<string, Entry>;
   /** Verdicts the disk refused so far, oldest first; written before any newer one. */
   queued: Verdict[];
@@ -87,8 +88,6 @@ class Handlers implements HostHandlers {
   // ---- worklist ----------------------------------------------------------------------------
 
   async openWorklist(req: { path: string } | { files: string[] }): Promise<WorklistState> {
-    const open = this.services.openWorklist;
-    if (!open) throw missing('opening a worklist');
     const targets = 'path' in req ? [req.path] : req.files;
     for (const t of targets) {
       if (!isAbsolute(t)) throw new HostFailure(400, `${t}: give an absolute path`);
@@ -99,9 +98,9 @@ class Handlers implements HostHandlers {
     }
     if (this.session && this.session.queued.length > 0) await this.flushQueue(this.session);
 
-    let worklist: OpenedWorklist;
+    let worklist: Worklist;
     try {
-      worklist = await open('path' in req ? req.path : req.files);
+      worklist = await this.services.openWorklist('path' in req ? req.path : req.files);
     } catch (err) {
       throw new HostFailure(422, describeFailure(err));
     }
@@ -169,10 +168,8 @@ class Handlers implements HostHandlers {
   private measured(s: Session, id: string, options: RemeasureOptions): Promise<MeasuredFile> {
     const entry = this.entryOf(s, id);
     if (entry.refusal) return Promise.resolve({ hdu: null, error: `${id}: ${entry.refusal}`, measurement: null, spectrum: null });
-    const measure = this.services.measureFile;
-    if (!measure) return Promise.reject(missing('measuring (the worker pool)'));
     return s.cache.get(optionsKey(id, options), async () => {
-      const result = await measure(entry.absPath, { ...options, withCorrelation: true });
+      const result = await this.services.measureFile(entry.absPath, { ...options, withCorrelation: true });
       if (!s.closed) {
         s.cache.note(id, result);
         if (result.hdu !== null || !s.hduFor.has(id)) s.hduFor.set(id, result.hdu);
@@ -183,7 +180,6 @@ class Handlers implements HostHandlers {
 
   /** Measures every spectrum once, one at a time, so the list fills in with suggestions. */
   private async measureInBackground(s: Session): Promise<void> {
-    if (!this.services.measureFile) return;
     for (const [id, entry] of s.entries) {
       if (s.closed) return;
       if (entry.refusal || s.cache.suggestions.has(id)) continue;
@@ -317,11 +313,9 @@ class Handlers implements HostHandlers {
     const s = this.requireSession();
     const w = s.worklist;
     const path = await resolveExportPath({ root: w.root, name: w.name, journalPath: w.journalPath, spectra: [...s.entries.values()].map((e) => e.absPath) }, req.format, req.path);
-    const write = this.services.writeCatalogue;
-    if (!write) throw missing('catalogue export');
     if (s.queued.length > 0) await this.flushQueue(s);
     try {
-      return { path, rows: await write(w, req.format, path) };
+      return { path, rows: await this.services.writeCatalogue(w, req.format, path) };
     } catch (err) {
       throw new HostFailure(503, `export not written: ${describeFailure(err)}`);
     }

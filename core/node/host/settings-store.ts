@@ -3,12 +3,13 @@
  * the user's config folder: $ZVET_CONFIG_DIR (tests), else $XDG_CONFIG_HOME/zvet, else
  * ~/.config/zvet. Written atomically; a damaged file is set aside with a warning, never lost.
  */
-import { mkdir, open, readFile, rename } from 'node:fs/promises';
+import { mkdir, readFile, rename } from 'node:fs/promises';
 import { homedir, userInfo } from 'node:os';
 import { dirname, join } from 'node:path';
 import type { Settings, SiteSetting } from '../../api/host-api.js';
 import { COSMOLOGY_PRESETS } from '../../astro/cosmology.js';
 import { findSite } from '../../astro/sites.js';
+import { writeFileAtomic } from '../atomic-write.js';
 import { HostFailure } from './host-failure.js';
 
 export const SETTINGS_FILE = 'settings.json';
@@ -51,19 +52,6 @@ function checkCosmology(s: Settings): void {
   } else if (!Object.hasOwn(COSMOLOGY_PRESETS, s.cosmologyPreset)) {
     throw new HostFailure(400, `cosmologyPreset: unknown preset "${s.cosmologyPreset}" (known: ${[...Object.keys(COSMOLOGY_PRESETS), 'custom'].join(', ')})`);
   }
-}
-
-/** Temp file, fsync, rename: a crash leaves the old file or the new one, never half of one. */
-async function writeFileAtomic(path: string, text: string): Promise<void> {
-  const temp = `${path}.${process.pid}.tmp`;
-  const handle = await open(temp, 'w');
-  try {
-    await handle.writeFile(text);
-    await handle.sync();
-  } finally {
-    await handle.close();
-  }
-  await rename(temp, path);
 }
 
 export class SettingsStore {
