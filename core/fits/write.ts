@@ -31,6 +31,8 @@ export interface TableColumn {
   unit?: string;
   /** Display format, e.g. 'F9.6' (TDISPn). */
   disp?: string;
+  /** Written as the comment of the TTYPEn card. */
+  description?: string;
   /** One value per row. null: NaN for D/E, TNULLn for J/K, undefined logical, blank text. */
   values: ArrayLike<CellValue>;
 }
@@ -149,7 +151,9 @@ function writeCell(view: DataView, bytes: Uint8Array, offset: number, col: Table
       if (v !== null && typeof v !== 'string') throw bad();
       const text = ascii(v ?? '');
       if (text.length > width) throw new Error(`FITS column ${col.name} row ${row + 1}: text longer than ${width} characters`);
-      bytes.fill(0x20, offset, offset + width);
+      // §7.3.3.1: a shorter string ends with an ASCII NUL (the rest of the field is 0 too),
+      // so readers do not take padding for text.
+      bytes.fill(0, offset, offset + width);
       bytes.set(text, offset);
       return;
     }
@@ -175,7 +179,7 @@ function encodeTable(hdu: TableHdu): Encoded {
   ];
   hdu.columns.forEach((col, i) => {
     const n = i + 1;
-    cards.push({ key: `TTYPE${n}`, value: col.name }, { key: `TFORM${n}`, value: col.format === 'A' ? `${widths[i]}A` : col.format });
+    cards.push({ key: `TTYPE${n}`, value: col.name, comment: col.description }, { key: `TFORM${n}`, value: col.format === 'A' ? `${widths[i]}A` : col.format });
     if (col.unit) cards.push({ key: `TUNIT${n}`, value: col.unit });
     if (col.disp) cards.push({ key: `TDISP${n}`, value: col.disp });
     if ((col.format === 'J' || col.format === 'K') && hasNull(col)) {

@@ -8,17 +8,8 @@ import { open, readFile } from 'node:fs/promises';
 import { dirname } from 'node:path';
 import { JournalState, replayJournal, serialiseUndoRecord, serialiseVerdictRecord } from '../catalogue/journal-format.js';
 import type { Verdict } from '../catalogue/verdict.js';
+import { syncFolder } from './atomic-write.js';
 import { describeFailure } from './cli/run-action.js';
-
-/** fsync a folder so that a file just created in it survives a crash (POSIX rename/create). */
-export async function syncFolder(folder: string): Promise<void> {
-  const handle = await open(folder, 'r');
-  try {
-    await handle.sync();
-  } finally {
-    await handle.close();
-  }
-}
 
 export class VerdictJournal {
   readonly path: string;

@@ -1,0 +1,39 @@
+/**
+ * Catalogue as a FITS binary table (one row per spectrum) in the first extension,
+ * EXTNAME = 'CATALOGUE': float64 → D, int64 → K, bool → L, text → A (TUNITn units, each
+ * column's description in the comment of its TTYPEn card, table meta as header keywords).
+ * FITS text is printable ASCII, so other characters are written as '?'; the CSV and ECSV
+ * exports keep the full text.
+ */
+import { writeFits, type ColumnFormat } from '../fits/write.js';
+import { checkTable, type ColumnType, type Table } from './table.js';
+
+const FORMATS: Record<ColumnType, ColumnFormat> = { float64: 'D', int64: 'K', bool: 'L', string: 'A' };
+
+function asciiOnly(text: string): string {
+  return text.replace(/[^\x20-\x7e]/g, '?');
+}
+
+export function tableToFits(table: Table): Uint8Array {
+  checkTable(table);
+  return writeFits([
+    { type: 'image', axes: [] },
+    {
+      type: 'bintable',
+      cards: [
+        { key: 'EXTNAME', value: 'CATALOGUE' },
+        ...Object.entries(table.meta).map(([key, value]) => ({ key: key.toUpperCase(), value: asciiOnly(value) })),
+      ],
+      columns: table.columns.map((c, i) => ({
+        name: c.name,
+        format: FORMATS[c.type],
+        unit: c.unit ?? undefined,
+        description: asciiOnly(c.description),
+        values: table.rows.map((row) => {
+          const cell = row[i];
+          return typeof cell === 'string' ? asciiOnly(cell) : cell;
+        }),
+      })),
+    },
+  ]);
+}
