@@ -75,7 +75,7 @@ function midExposure(meta: SpectrumMeta): { mjdUtc: number; note: string } | { m
   return { mjdUtc: start, note: `start time from ${from} (no exposure time, so not the mid-exposure)` };
 }
 
-function findSite(input: FrameInput): { site: ResolvedSite; note: string } | null {
+function chooseSite(input: FrameInput): { site: ResolvedSite; note: string } | null {
   const fromHeader = resolveSite(input.meta.site);
   if (fromHeader) return { site: fromHeader.site, note: `site ${fromHeader.site.name} from the header (${fromHeader.note})` };
   const fromSettings = resolveSite(input.site);
@@ -99,7 +99,7 @@ function decideFrame(input: FrameInput): FrameCore {
     : `frame not stated (${meta.velocityFrameReason}), taken as topocentric`;
   const time = midExposure(meta);
   const hasTarget = Number.isFinite(meta.raDeg) && Number.isFinite(meta.decDeg);
-  const site = findSite(input);
+  const site = chooseSite(input);
   const missing = [
     'missing' in time ? time.missing : null,
     hasTarget ? null : 'no target RA/Dec',
