@@ -7,6 +7,7 @@ import { mkdirSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { gzipSync } from 'node:zlib';
+import { csvField } from '../core/catalogue/csv-field.js';
 import { writeCsv, writeImageWithError, writeMultispec, writePixelTable, type ExposureRecord } from './demo/layouts.js';
 import { airmass, isoUtc, localSiderealDeg, mjdFromUnixMs, SITE } from './demo/night.js';
 import { NIGHT_PLAN, NIGHT_START_UTC_MS, OVERHEAD_S } from './demo/night-plan.js';
@@ -34,11 +35,6 @@ function fileName(t: Target): string {
     truncated: `${base}_truncated.fits`,
   };
   return names[t.layout];
-}
-
-/** Field quoted per RFC 4180 when it holds a comma, quote or newline. */
-function csvField(value: string): string {
-  return /[",\n]/.test(value) ? `"${value.replace(/"/g, '""')}"` : value;
 }
 
 /** Cosmic-ray hits: a few pixels far above the noise, flagged in the mask. */
@@ -103,7 +99,7 @@ export function generateDemoWorklist(): { files: DemoFile[]; truthCsv: string } 
     const zTrue = t.layout === 'truncated' ? '' : t.z.toFixed(5);
     const sn = t.layout === 'truncated' ? '' : exposure.snMedian.toFixed(1);
     const notes = t.layout === 'truncated' ? `${t.notes} (made from a ${t.hostClass} host at z=${t.z.toFixed(5)})` : t.notes;
-    truth.push([name, record.object, t.hostClass, zTrue, sn, t.layout, notes].map(csvField).join(','));
+    truth.push([name, record.object, t.hostClass, zTrue, sn, t.layout, notes].map((field) => csvField(field)).join(','));
     startMs += (t.exptimeS + OVERHEAD_S) * 1000;
   }
   return { files, truthCsv: `${truth.join('\n')}\n` };

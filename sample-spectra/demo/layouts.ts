@@ -38,7 +38,7 @@ function observationCards(r: ExposureRecord, sexagesimal: boolean): Card[] {
     { key: 'OBSGEO-L', value: real(SITE.longitudeDeg), comment: '[deg] site longitude, east positive' },
     { key: 'OBSGEO-H', value: real(SITE.heightM), comment: '[m] site height above the ellipsoid' },
     { key: 'DATE-OBS', value: r.dateObs, comment: 'UTC start of exposure' },
-    { key: 'MJD-OBS', value: real(Number(r.mjdObs.toFixed(6))), comment: '[d] MJD (UTC) start of exposure' },
+    { key: 'MJD-OBS', value: real(r.mjdObs), comment: '[d] MJD (UTC) start of exposure' },
     { key: 'EXPTIME', value: real(r.exptimeS), comment: '[s] exposure time' },
     { key: 'AIRMASS', value: real(Number(r.airmass.toFixed(3))), comment: 'airmass at mid-exposure' },
     sexagesimal
