@@ -98,7 +98,14 @@ const view: View = {
     renderTab(state);
     renderOverlay(state);
   },
-  spectrum: (state) => plots.drawSpectrum(state),
+  async spectrum(state) {
+    await plots.drawSpectrum(state);
+    // Stamped for tests and the bench: which spectrum is drawn, at which trial z.
+    const plot = byId('spectrum-plot');
+    plot.dataset.spectrum = state.currentId ?? '';
+    plot.dataset.z = String(state.trial.z);
+    if (!performance.getEntriesByName('zvet:first-plot').length && state.view?.arrays) performance.mark('zvet:first-plot');
+  },
   async correlation(state) {
     const template = await plots.drawCorrelation(state);
     const curves = state.view?.measurement?.correlations ?? [];

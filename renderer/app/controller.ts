@@ -62,7 +62,12 @@ export class Controller {
       this.view.panels(this.s);
     });
     this.overlayCall = new LatestOnly(150, (req) => api.templateModel(req), (res) => {
-      if (!res.ok || res.req.id !== this.s.currentId) return;
+      if (res.req.id !== this.s.currentId) return;
+      if (!res.ok) {
+        this.s.overlayProblem = res.error;
+        return this.view.panels(this.s);
+      }
+      this.s.overlayProblem = null;
       this.s.overlay = { key: overlayKey(res.req.template, res.req.z), flux: res.value.flux };
       void this.view.spectrum(this.s);
     });

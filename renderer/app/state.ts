@@ -25,6 +25,8 @@ export interface AppState {
   correlationTemplate: string | null;
   /** Template overlay flux for the trial z (fetched), keyed by template and z. */
   overlay: { key: string; flux: (number | null)[] } | null;
+  /** Why the host could not give the template overlay, when it could not. */
+  overlayProblem: string | null;
   tab: 'derived' | 'host';
   modal: 'none' | 'help' | 'line-pick';
   identifying: boolean;
@@ -53,6 +55,7 @@ export function initialState(): AppState {
     xRange: null,
     correlationTemplate: null,
     overlay: null,
+    overlayProblem: null,
     tab: 'derived',
     modal: 'none',
     identifying: false,

@@ -85,9 +85,9 @@ export class DecisionPanel {
       el('div', { class: 'row' },
         el('button', { type: 'button', 'aria-pressed': state.identifying ? 'true' : 'false', onclick: () => this.on.identify() }, 'Identify a line', el('kbd', {}, 'i')),
         el('button', { type: 'button', onclick: () => this.on.undo() }, 'Undo last', el('kbd', {}, 'u'))),
-      el('div', { class: 'row' }, el('span', { class: 'label' }, 'confidence'), ...CONFIDENCES.map(conf)),
-      el('div', { class: 'row' }, el('span', { class: 'label' }, 'class'), ...OBJECT_CLASSES.map(cls)),
-      el('div', { class: `verdict-now${v ? '' : ' pending'}`, id: 'verdict-now' },
+      el('div', { class: 'row stacked' }, el('span', { class: 'label' }, 'confidence (a word, always)'), ...CONFIDENCES.map(conf)),
+      el('div', { class: 'row stacked' }, el('span', { class: 'label' }, 'class'), ...OBJECT_CLASSES.map(cls)),
+      el('div', { class: `verdict-now${v ? '' : ' pending'}`, id: 'verdict-now', 'data-z': v ? String(v.z) : null },
         v ? verdictLine(v) : 'pending: not vetted yet',
         queued ? el('div', { class: 'muted' }, queued.state === 'failed' ? `NOT SAVED: ${queued.reason}` : 'saving…') : null));
     if (document.activeElement !== this.noteInput) this.noteInput.value = state.grade.note;

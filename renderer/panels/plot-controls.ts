@@ -23,7 +23,7 @@ export function renderPlotControls(state: AppState, box: HTMLElement, on: PlotCo
     el('label', {}, el('input', { type: 'checkbox', checked, disabled, onchange: (e) => f((e.target as HTMLInputElement).checked) }), label, el('kbd', {}, key));
   fill(box,
     el('label', {}, 'smoothing', kernel, width, 'px', el('kbd', {}, '['), el('kbd', {}, ']'), el('kbd', {}, 'k')),
-    check('best template', state.showTemplate, !state.view?.measurement, 'o', on.template),
+    check(state.overlayProblem && !state.overlay ? 'template (none from the host)' : 'template', state.showTemplate, !state.view?.measurement, 'o', on.template),
     check(hasSky ? 'sky' : 'sky (none in file)', state.showSky && hasSky, !hasSky, 'y', on.sky),
     el('span', { class: 'key-legend' },
       el('span', { style: `color:${THEME.emission}` }, `${MARKER_STYLE.emission.glyph} emission ─`),

@@ -40,6 +40,10 @@ export function buildCorrelationFigure(curve: CorrelationCurve, candidates: read
     markerTrace(other, true),
   ];
   const shapes: Partial<Layout>['shapes'] = trialZ === null ? [] : [{ type: 'line', xref: 'x', yref: 'paper', x0: trialZ, x1: trialZ, y0: 0, y1: 1, line: { color: THEME.trialZ, width: 1.5, dash: 'dot' } }];
+  const finite = curve.value.filter((v) => Number.isFinite(v));
+  const top = Math.max(...finite, 0);
+  const bottom = Math.min(...finite, 0);
+  const pad = 0.18 * (top - bottom || 1);
   const axis = { gridcolor: THEME.grid, linecolor: THEME.axis, zerolinecolor: THEME.axis, tickfont: { size: 13, color: THEME.muted } };
   return {
     data,
@@ -47,7 +51,7 @@ export function buildCorrelationFigure(curve: CorrelationCurve, candidates: read
       paper_bgcolor: THEME.ground, plot_bgcolor: THEME.ground, font: { family: THEME.font, size: 13, color: THEME.text },
       margin: { l: 52, r: 12, t: 8, b: 40 }, showlegend: false, hovermode: 'closest', uirevision: curve.template,
       xaxis: { ...axis, title: { text: 'z (trial z dotted)', font: { size: 13, color: THEME.text } } },
-      yaxis: { ...axis, title: { text: 'correlation', font: { size: 13, color: THEME.text } } },
+      yaxis: { ...axis, range: [bottom - 0.05 * pad, top + pad], autorange: false, title: { text: 'correlation', font: { size: 13, color: THEME.text } } },
       shapes,
     },
   };

@@ -24,6 +24,8 @@ export interface LineMarker {
   labelWaveAngstrom: number;
   /** Stacking row of the label, 0 nearest the plot edge. */
   row: number;
+  /** False when no row had room: the label shows only its glyph (the name is in the hover text). */
+  named: boolean;
 }
 
 /** Same-named lines closer than this in the rest frame share one label (Å, common practice). */
@@ -47,7 +49,7 @@ export interface LabelGeometry {
   widthPx: number;
   /** Width of one label character in CSS pixels. */
   charPx: number;
-  /** Most rows of labels per side; further labels reuse the last row. */
+  /** Most rows of labels per side; a label with no room left shows only its glyph. */
   maxRows: number;
 }
 
@@ -64,6 +66,7 @@ export function markersInRange(z: number, loAngstrom: number, hiAngstrom: number
       observedWaveAngstrom: obs,
       labelWaveAngstrom: obs.reduce((s, w) => s + w, 0) / obs.length,
       row: 0,
+      named: true,
     });
   }
   const pxPerAngstrom = geometry.widthPx / (hiAngstrom - loAngstrom);
@@ -73,7 +76,12 @@ export function markersInRange(z: number, loAngstrom: number, hiAngstrom: number
       const halfWidth = ((m.label.length + 2) * geometry.charPx) / 2;
       const centre = (m.labelWaveAngstrom - loAngstrom) * pxPerAngstrom;
       let row = rowEnds.findIndex((end) => end + geometry.charPx <= centre - halfWidth);
-      if (row < 0) row = rowEnds.length < geometry.maxRows ? rowEnds.length : geometry.maxRows - 1;
+      if (row < 0 && rowEnds.length < geometry.maxRows) row = rowEnds.length;
+      if (row < 0) {
+        m.named = false;
+        m.row = geometry.maxRows;
+        continue;
+      }
       rowEnds[row] = centre + halfWidth;
       m.row = row;
     }

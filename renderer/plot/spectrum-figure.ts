@@ -74,7 +74,7 @@ export function buildSpectrumFigure(input: SpectrumFigureInput): SpectrumFigure 
   // An invisible trace on the top axis, so plotly draws it.
   data.push({ type: 'scatter', mode: 'lines', x: [lo, hi].map((w) => w / (1 + (z ?? 0))), y: [null, null], xaxis: 'x2', hoverinfo: hover, showlegend: false });
 
-  const markers = z === null ? [] : markersInRange(z, lo, hi, { widthPx: input.widthPx, charPx: 7.5, maxRows: 3 });
+  const markers = z === null ? [] : markersInRange(z, lo, hi, { widthPx: input.widthPx, charPx: 7.5, maxRows: 4 });
   const shapes: Partial<Shape>[] = [];
   const annotations: Partial<Annotations>[] = [];
   for (const band of TELLURIC_BANDS) {
@@ -93,7 +93,7 @@ export function buildSpectrumFigure(input: SpectrumFigureInput): SpectrumFigure 
     const y = style.side === 'top' ? 0.985 - m.row * LABEL_ROW_STEP : 0.015 + m.row * LABEL_ROW_STEP;
     annotations.push({
       x: m.labelWaveAngstrom, xref: 'x', yref: 'paper', y, yanchor: style.side === 'top' ? 'top' : 'bottom',
-      text: `${style.glyph} ${m.label}`, showarrow: false, bgcolor: 'rgba(20,23,28,0.75)', borderpad: 1,
+      text: m.named ? `${style.glyph} ${m.label}` : style.glyph, hovertext: m.label, showarrow: false, bgcolor: 'rgba(20,23,28,0.75)', borderpad: 1,
       font: { size: 13, color: colour, family: THEME.font },
     });
   }

@@ -39,3 +39,12 @@ describe('line markers', () => {
     expect(ms.map((m) => m.row)).toEqual([0, 0]);
   });
 });
+
+describe('crowded labels', () => {
+  it('a label with no room left in any row keeps its line and glyph but drops its name', () => {
+    const ms = markersInRange(0.05, 3900, 4400, { widthPx: 120, charPx: 7.5, maxRows: 2 });
+    const top = ms.filter((m) => MARKER_STYLE[m.kind].side === 'top');
+    expect(top.some((m) => !m.named)).toBe(true);
+    for (const m of top) expect(m.named ? m.row < 2 : m.observedWaveAngstrom.length > 0).toBe(true);
+  });
+});

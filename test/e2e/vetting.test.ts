@@ -1,0 +1,260 @@
+// End to end: the real `zvet serve` on a copy of the demo worklist, driven in Debian's Chromium.
+// Four spectra are vetted by keyboard (accept the best; another candidate; a line identified by
+// clicking; no redshift), the page is reloaded and all four must come back from the journal,
+// and the catalogue is exported in all three formats and read back with astropy (ECSV, FITS) and
+// checked by fitsverify (FITS). No request may leave 127.0.0.1. Screenshots go to test-artifacts/.
+import { execFileSync } from 'node:child_process';
+import { cpSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { DEMO_WORKLIST, ROOT } from '../support/paths';
+import { astropyJson, fitsverify } from '../support/tools';
+import { startServe, type ServeProcess } from '../unit/server-harness';
+import { openWindow, waitDrawn, type WindowSession } from './browser';
+
+const ARTIFACTS = join(ROOT, 'test-artifacts');
+const O3_REST = 5008.24; // [O III] vacuum, DESIGN.md check value
+const AGN_TRUE_Z = 0.08762; // sample-spectra/truth.csv, KRT-26-0014
+
+let tmp: string;
+let server: ServeProcess;
+let win: WindowSession;
+let page: Page;
+
+async function shot(name: string): Promise<void> {
+  await page.waitForTimeout(150);
+  await page.screenshot({ path: join(ARTIFACTS, `${name}.png`) });
+}
+
+async function press(key: string): Promise<void> {
+  await page.keyboard.press(key);
+}
+
+/** Moves with the "next" key until the spectrum is in view. */
+async function nextUntil(id: string): Promise<void> {
+  for (let i = 0; i < 20; i++) {
+    if ((await page.locator('#spectrum-plot').getAttribute('data-spectrum')) === id) return;
+    await press('n');
+    await page.waitForFunction(() => !document.querySelector('.spectrum-title')?.textContent?.includes('loading…'));
+  }
+  await waitDrawn(page, id);
+}
+
+/** Waits until the host has confirmed the journal write for the spectrum in view. */
+async function savedAs(status: string): Promise<{ z: number | null }> {
+  await page.waitForFunction((s) => {
+    const box = document.getElementById('verdict-now');
+    return !!box && box.textContent!.startsWith(s) && !box.textContent!.includes('saving') && !document.querySelector('.save-state .saving');
+  }, status, { timeout: 20_000 });
+  const z = await page.locator('#verdict-now').getAttribute('data-z');
+  return { z: z === 'null' || z === null ? null : Number(z) };
+}
+
+async function candidateZ(index: number): Promise<number> {
+  const cell = page.locator('#candidates tbody tr').nth(index).locator('td').nth(1);
+  return Number(((await cell.textContent()) ?? '').split('±')[0]);
+}
+
+beforeAll(async () => {
+  execFileSync(process.execPath, [join(ROOT, 'scripts/build.mjs')], { cwd: ROOT, stdio: 'inherit' });
+  mkdirSync(ARTIFACTS, { recursive: true });
+  tmp = mkdtempSync(join(tmpdir(), 'zvet-e2e-'));
+  cpSync(DEMO_WORKLIST, join(tmp, 'night'), { recursive: true });
+  server = await startServe(join(tmp, 'night'), join(tmp, 'config'));
+  win = await openWindow(server.url);
+  page = win.page;
+}, 120_000);
+
+afterAll(async () => {
+  await win?.close();
+  await server?.stop();
+  if (tmp) rmSync(tmp, { recursive: true, force: true });
+});
+
+describe('vetting in the window', () => {
+  /** What the journal holds for each vetted spectrum (z exactly as saved). */
+  const vetted: Record<string, { status: string; z: number | null }> = {};
+
+  it('opens on the first pending spectrum with its plot, markers, candidates and the caution', async () => {
+    await waitDrawn(page, 'KRT-26-0011.fits');
+    await expect.poll(() => page.locator('#candidates tbody tr').count()).toBeGreaterThan(1);
+    expect(await page.locator('.caution').textContent()).toContain('suggestions until you vet them');
+    expect(await page.locator('#progress').textContent()).toContain('0 of 13 vetted');
+    // Line markers are annotations with a glyph: ▲ emission, ▼ absorption.
+    const labels = await page.locator('#spectrum-plot .annotation-text').allTextContents();
+    expect(labels.some((t) => t.startsWith('▲'))).toBe(true);
+    await page.waitForSelector('#tab-body dl');
+    await shot('main-view');
+  });
+
+  it('accepts the best candidate with one key', async () => {
+    const best = await candidateZ(0);
+    await press('s');
+    await press('a');
+    const { z } = await savedAs('accepted');
+    expect(z).toBeCloseTo(best, 4);
+    vetted['KRT-26-0011.fits'] = { status: 'accepted', z };
+  });
+
+  it('takes another candidate: its number, then Enter', async () => {
+    await nextUntil('KRT-26-0012.fits');
+    const second = await candidateZ(1);
+    await press('2');
+    await press('t');
+    await press('Enter');
+    const { z } = await savedAs('revised');
+    expect(z).toBeCloseTo(second, 4);
+    vetted['KRT-26-0012.fits'] = { status: 'revised', z };
+  });
+
+  it('identifies [O III] 5008 by clicking the feature, picks the rest line by its number, nudges and saves', async () => {
+    await nextUntil('KRT-26-0014.fits');
+    await press('i');
+    const observed = O3_REST * (1 + AGN_TRUE_Z);
+    const at = await page.evaluate((w) => {
+      const gd = document.getElementById('spectrum-plot') as HTMLElement & { _fullLayout: any };
+      const xa = gd._fullLayout.xaxis;
+      const ya = gd._fullLayout.yaxis;
+      const box = gd.getBoundingClientRect();
+      return { x: box.left + xa._offset + xa.l2p(w), y: box.top + ya._offset + ya._length * 0.5 };
+    }, observed);
+    await page.mouse.move(at.x, at.y);
+    await page.mouse.click(at.x, at.y);
+    await page.waitForSelector('#line-pick');
+    await shot('line-pick');
+    const rows = await page.locator('#line-pick li').allTextContents();
+    const idx = rows.findIndex((t) => t.includes('[O III] 5008.24'));
+    expect(idx, `the pick list offers [O III] 5008: ${rows.join(' | ')}`).toBeGreaterThanOrEqual(0);
+    await press(String(idx + 1));
+    await page.waitForSelector('#line-pick', { state: 'detached' });
+    const picked = Number(await page.locator('#spectrum-plot').getAttribute('data-z'));
+    // One screen pixel is a few Å here: the click lands within ±0.002 in z of the true line.
+    expect(Math.abs(picked - AGN_TRUE_Z)).toBeLessThan(0.002);
+    await press('.');
+    await press('>');
+    const nudged = Number(await page.locator('#spectrum-plot').getAttribute('data-z'));
+    // (1+z′) = (1+z)(1+v/c) with +10 then +100 km/s.
+    expect(nudged).toBeCloseTo((1 + picked) * (1 + 10 / 299792.458) * (1 + 100 / 299792.458) - 1, 9);
+    expect(await page.locator('#trial-z').textContent()).toContain(nudged.toFixed(5));
+    await press('Shift+A');
+    await press('l');
+    await press('Enter');
+    const { z } = await savedAs('revised');
+    expect(z).toBe(nudged);
+    vetted['KRT-26-0014.fits'] = { status: 'revised', z };
+  });
+
+  it('shows the host panel for the AGN at the vetted z', async () => {
+    await press('h');
+    await page.waitForSelector('#host-lines', { timeout: 30_000 });
+    await page.waitForSelector('#bpt-plot .main-svg');
+    expect(await page.locator('#aperture-caveat').textContent()).toContain('aperture');
+    await shot('host-panel');
+    await press('d');
+  });
+
+  it('marks a hopeless spectrum "no redshift"', async () => {
+    await nextUntil('KRT-26-0021.fits');
+    await press('x');
+    expect((await savedAs('no-redshift')).z).toBeNull();
+    vetted['KRT-26-0021.fits'] = { status: 'no-redshift', z: null };
+    expect(await page.locator('#progress').textContent()).toContain('4 of 13 vetted');
+  });
+
+  it('shows why an unreadable file cannot be read, in place', async () => {
+    await nextUntil('KRT-26-0023_truncated.fits');
+    await page.waitForSelector('#spectrum-problem:not([hidden])');
+    expect(await page.locator('#problem-text').textContent()).toMatch(/truncated|ends|bytes/i);
+    await shot('unreadable-file');
+  });
+
+  it('lists every key in the help overlay', async () => {
+    await press('?');
+    await page.waitForSelector('#help-card');
+    expect(await page.locator('#help-card kbd').count()).toBeGreaterThan(40);
+    await shot('help-overlay');
+    await press('Escape');
+    await page.waitForSelector('#help-card', { state: 'detached' });
+  });
+
+  it('filters the worklist', async () => {
+    await press('f');
+    await expect.poll(() => page.locator('#filters [aria-pressed="true"]').textContent()).toContain('secure');
+    expect(await page.locator('#worklist-items li[data-id]').count()).toBe(1);
+    await shot('worklist-filtered');
+    for (let i = 0; i < 4; i++) await press('f');
+    await expect.poll(() => page.locator('#filters [aria-pressed="true"]').textContent()).toContain('all');
+  });
+
+  it('restores all four verdicts after a reload', async () => {
+    await page.reload();
+    await page.waitForSelector('#worklist-items li[data-id]');
+    await expect.poll(() => page.locator('#progress').textContent()).toContain('4 of 13 vetted');
+    for (const [id, v] of Object.entries(vetted)) {
+      const row = page.locator(`#worklist-items li[data-id="${id}"]`);
+      expect(await row.locator('.status').getAttribute('aria-label')).toBe(v.status === 'no-redshift' ? 'no redshift' : v.status);
+      const zText = (await row.locator('.z').textContent()) ?? '';
+      if (v.z === null) expect(zText).toBe('no z');
+      else expect(Number(zText)).toBeCloseTo(v.z, 4);
+    }
+  });
+
+  it('exports CSV, ECSV and FITS that other software reads back', async () => {
+    const paths: Record<string, string> = {};
+    for (const f of ['csv', 'ecsv', 'fits']) {
+      await page.click(`#export-${f}`);
+      await page.waitForFunction((F) => document.getElementById('export-result')?.textContent?.startsWith(`${F}: `), f.toUpperCase(), { timeout: 30_000 });
+      const text = (await page.locator('#export-result').textContent()) ?? '';
+      const m = / rows written to (.+)$/.exec(text);
+      expect(m, text).not.toBeNull();
+      paths[f] = m![1];
+    }
+    await shot('exported');
+    // CSV: header row, one row per spectrum.
+    const [head, ...lines] = readFileSync(paths.csv, 'utf8').trim().split(/\r?\n/);
+    const cols = head.split(',');
+    const rowOf = (id: string) => lines.find((l) => l.startsWith(`${id},`) || l.startsWith(`"${id}",`))!.split(',');
+    for (const [id, v] of Object.entries(vetted)) {
+      expect(rowOf(id)[cols.indexOf('status')]).toBe(v.status);
+      if (v.z !== null) expect(Number(rowOf(id)[cols.indexOf('z')])).toBeCloseTo(v.z, 9);
+    }
+    // ECSV and FITS through astropy's Table.read (Debian python3-astropy).
+    const readBack = (file: string, format: string) => astropyJson<{ rows: Record<string, string | number | null>[]; units: Record<string, string | null> }>(`
+import sys, json, math
+from astropy.table import Table
+t = Table.read(sys.argv[1], format=sys.argv[2])
+def cell(v):
+    try:
+        if hasattr(v, 'mask') and v.mask: return None
+    except Exception: pass
+    v = v.item() if hasattr(v, 'item') else v
+    if isinstance(v, bytes): v = v.decode()
+    if isinstance(v, float) and math.isnan(v): return None
+    return v
+print(json.dumps({'rows': [{c: cell(r[c]) for c in ('spectrum', 'status', 'z')} for r in t],
+                  'units': {c: (str(t[c].unit) if t[c].unit is not None else None) for c in t.colnames}}))
+`, [file, format]);
+    for (const [file, format] of [[paths.ecsv, 'ascii.ecsv'], [paths.fits, 'fits']]) {
+      const t = readBack(file, format);
+      expect(t.units.ra_deg).toBe('deg');
+      for (const [id, v] of Object.entries(vetted)) {
+        const r = t.rows.find((x) => String(x.spectrum).trim() === id)!;
+        expect(String(r.status).trim()).toBe(v.status);
+        if (v.z === null) expect(r.z).toBeNull();
+        else expect(Number(r.z)).toBeCloseTo(v.z, 9);
+      }
+    }
+    const fv = fitsverify(paths.fits);
+    expect(fv.status, fv.report).toBe(0);
+  });
+
+  it('made no request outside 127.0.0.1 and threw no page error', () => {
+    const origin = `http://127.0.0.1:${server.port}/`;
+    const outside = win.requests.filter((u) => !u.startsWith(origin) && !u.startsWith('data:') && !u.startsWith('blob:'));
+    expect(outside).toEqual([]);
+    expect(win.requests.length).toBeGreaterThan(10);
+    expect(win.errors.filter((e) => !e.startsWith('Failed to load resource'))).toEqual([]);
+  });
+});
