@@ -10,6 +10,15 @@ export const MAX_INFLATED_BYTES = 256 * 1024 * 1024;
 
 const CHUNK = 64 * 1024;
 
+/**
+ * Past this many inflated bytes, data that inflates more than MAX_RATIO times its compressed
+ * size is taken for a bomb and refused at once. Spectra (floating-point samples with noise)
+ * compress a few times at most; only constant filler reaches ratios of hundreds (common
+ * practice, no source).
+ */
+const RATIO_CHECK_AFTER_BYTES = 16 * 1024 * 1024;
+const MAX_RATIO = 100;
+
 export function isGzip(bytes: Uint8Array): boolean {
   return bytes.length >= 2 && bytes[0] === 0x1f && bytes[1] === 0x8b;
 }
@@ -17,15 +26,20 @@ export function isGzip(bytes: Uint8Array): boolean {
 export function gunzip(bytes: Uint8Array, fileName: string, maxBytes = MAX_INFLATED_BYTES): Uint8Array {
   const parts: Uint8Array[] = [];
   let total = 0;
+  let consumed = 0;
   let done = false;
   const inflater = new Gunzip((chunk, final) => {
     total += chunk.length;
     if (total > maxBytes) throw new SpectrumReadError(fileName, `gzip data inflates to more than ${maxBytes} bytes; refused`);
+    if (total > RATIO_CHECK_AFTER_BYTES && total > MAX_RATIO * consumed) {
+      throw new SpectrumReadError(fileName, `gzip data inflates more than ${MAX_RATIO} times its size (a decompression bomb?); refused`);
+    }
     parts.push(chunk);
     if (final) done = true;
   });
   try {
     for (let at = 0; at < bytes.length; at += CHUNK) {
+      consumed = Math.min(at + CHUNK, bytes.length);
       inflater.push(bytes.subarray(at, Math.min(at + CHUNK, bytes.length)), at + CHUNK >= bytes.length);
     }
   } catch (err) {
