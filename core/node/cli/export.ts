@@ -1,0 +1,39 @@
+/**
+ * `zvet export WORKLIST --format csv|ecsv|fits --out FILE`: the worklist's catalogue, one row
+ * per spectrum (pending and unreadable ones included), written atomically. WORKLIST is the
+ * folder (or one spectrum file); its journal supplies the verdicts.
+ */
+import type { Command } from 'commander';
+import { CATALOGUE_FORMATS, formatFromFileName, type CatalogueFormat } from '../../catalogue/export.js';
+import { exportCatalogue } from '../export-catalogue.js';
+import { Worklist } from '../worklist.js';
+import { runAction } from './run-action.js';
+import { UsageError } from './usage-error.js';
+
+interface ExportOptions {
+  format?: string;
+  out: string;
+}
+
+function chooseFormat(opts: ExportOptions): CatalogueFormat {
+  const format = opts.format?.toLowerCase() ?? formatFromFileName(opts.out);
+  if (format === null) throw new UsageError(`--format is needed: ${opts.out} does not end in .csv, .ecsv or .fits`);
+  if (!(CATALOGUE_FORMATS as readonly string[]).includes(format)) throw new UsageError(`--format must be one of ${CATALOGUE_FORMATS.join(', ')}, not ${opts.format}`);
+  return format as CatalogueFormat;
+}
+
+export function registerExport(program: Command): void {
+  program
+    .command('export')
+    .description('write the catalogue of a worklist (verdicts and file metadata, one row per spectrum)')
+    .argument('<worklist>', 'worklist folder (its <name>.verdicts.jsonl holds the verdicts)')
+    .option('--format <format>', `catalogue format: ${CATALOGUE_FORMATS.join(', ')} (default: from the --out file ending)`)
+    .requiredOption('--out <file>', 'catalogue file to write (replaced atomically)')
+    .action(runAction(async (worklistPath: string, opts: ExportOptions) => {
+      const format = chooseFormat(opts);
+      const worklist = await Worklist.open(worklistPath);
+      for (const w of worklist.journal.warnings) process.stderr.write(`zvet: warning: ${w}\n`);
+      const r = await exportCatalogue(worklist, format, opts.out);
+      process.stdout.write(`wrote ${r.rows} rows to ${r.path} (${format}): ${r.vetted} vetted, ${r.pending} pending, ${r.unreadable} unreadable\n`);
+    }));
+}

@@ -1,0 +1,117 @@
+// `zvet export` through the built program (npm test builds first) on a copy of the demo
+// worklist with a hand-written journal: every spectrum gets a row, the journal's rules hold
+// (last verdict wins, undo, torn last line warned about), and astropy (ascii.ecsv, io.fits)
+// and fitsverify read what it writes.
+import { spawnSync } from 'node:child_process';
+import { afterAll, describe, expect, it } from 'vitest';
+import { cpSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { DEMO_WORKLIST, ZVET_BIN } from '../support/paths.js';
+import { astropyJson, fitsverify } from '../support/tools.js';
+
+const base = mkdtempSync(join(tmpdir(), 'zvet-cli-export-'));
+const night = join(base, 'kestrel-2026-03-14');
+cpSync(DEMO_WORKLIST, night, { recursive: true, filter: (src) => !src.endsWith('.verdicts.jsonl') });
+afterAll(() => rmSync(base, { recursive: true, force: true }));
+
+// Written by hand, as the window would have appended it during the night; the last line was
+// cut off by a crash.
+const journal = [
+  '{"v":1,"kind":"verdict","verdict":{"spectrum":"KRT-26-0011.fits","hdu":0,"status":"accepted","z":0.04823,"zErr":0.00011,"confidence":"secure","objectClass":"galaxy","template":"star-forming","note":"","time":"2026-03-14T03:20:00.000Z","user":"observer"}}',
+  '{"v":1,"kind":"verdict","verdict":{"spectrum":"KRT-26-0014.fits","hdu":0,"status":"accepted","z":0.0871,"zErr":0.0003,"confidence":"likely","objectClass":"galaxy","template":"passive","note":"","time":"2026-03-14T04:30:00.000Z","user":"observer"}}',
+  '{"v":1,"kind":"verdict","verdict":{"spectrum":"KRT-26-0014.fits","hdu":0,"status":"revised","z":0.08762,"zErr":0.00009,"confidence":"secure","objectClass":"agn","template":"narrow-line AGN","note":"strong [O III], \\"Seyfert 2\\"","time":"2026-03-14T04:31:00.000Z","user":"observer"}}',
+  '{"v":1,"kind":"verdict","verdict":{"spectrum":"KRT-26-0012.fits","hdu":0,"status":"accepted","z":0.9,"zErr":0.001,"confidence":"tentative","objectClass":"galaxy","template":"passive","note":"","time":"2026-03-14T04:40:00.000Z","user":"observer"}}',
+  '{"v":1,"kind":"undo","spectrum":"KRT-26-0012.fits","time":"2026-03-14T04:40:05.000Z"}',
+  '{"v":1,"kind":"verdict","verdict":{"spectrum":"KRT-26-0021.fits","hdu":0,"status":"no-redshift","z":null,"zErr":null,"confidence":null,"objectClass":"unknown","template":null,"note":"S/N too low","time":"2026-03-14T08:30:00.000Z","user":"observer"}}',
+  '{"v":1,"kind":"verdict","verdict":{"spectrum":"KRT-26-0016.fi',
+].join('\n');
+writeFileSync(join(night, 'kestrel-2026-03-14.verdicts.jsonl'), journal);
+
+function zvet(...args: string[]) {
+  const r = spawnSync(process.execPath, [ZVET_BIN, ...args], { encoding: 'utf8' });
+  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
+}
+
+interface Row {
+  spectrum: string;
+  status: string;
+  z: number | null;
+  class: string | null;
+  note: string | null;
+  object: string | null;
+  read_problem: string | null;
+}
+
+function readBack(path: string, format: string): { rows: Row[]; units: Record<string, string | null> } {
+  return astropyJson(
+    `
+import sys, json, math
+import numpy as np
+from astropy.table import Table
+t = Table.read(sys.argv[1], hdu=1) if sys.argv[2] == 'fits' else Table.read(sys.argv[1], format='ascii.' + sys.argv[2])
+def cell(col, i):
+    if getattr(col, 'mask', None) is not None and np.ma.getmaskarray(col)[i]:
+        return None
+    v = col[i]
+    if isinstance(v, (bytes, np.bytes_)): v = v.decode()
+    if isinstance(v, np.generic): v = v.item()
+    if isinstance(v, float) and math.isnan(v): return None
+    if isinstance(v, str) and v == '': return None
+    return v
+print(json.dumps(dict(
+    units={n: (None if t[n].unit is None else t[n].unit.to_string()) for n in t.colnames},
+    rows=[{n: cell(t[n], i) for n in ('spectrum', 'status', 'z', 'class', 'note', 'object', 'read_problem')} for i in range(len(t))])))
+`,
+    [path, format],
+  );
+}
+
+describe('zvet export on the demo worklist', () => {
+  it.each(['csv', 'ecsv', 'fits'] as const)('writes the %s catalogue with every spectrum and the verdicts in force', (format) => {
+    const out = join(base, `night.${format}`);
+    const r = zvet('export', night, '--format', format, '--out', out);
+    expect(r.stderr).toMatch(/^zvet: warning: .*kestrel-2026-03-14\.verdicts\.jsonl: line 7 \(the last\) is incomplete/);
+    expect(r.status).toBe(0);
+    expect(r.stdout).toBe(`wrote 13 rows to ${out} (${format}): 3 vetted, 10 pending, 1 unreadable\n`);
+    const { rows, units } = readBack(out, format);
+    expect(rows).toHaveLength(13);
+    const by = Object.fromEntries(rows.map((row) => [row.spectrum, row]));
+    expect(by['KRT-26-0011.fits']).toMatchObject({ status: 'accepted', z: 0.04823, class: 'galaxy', object: 'KRT-26-0011' });
+    expect(by['KRT-26-0014.fits']).toMatchObject({ status: 'revised', z: 0.08762, class: 'agn', note: 'strong [O III], "Seyfert 2"' });
+    expect(by['KRT-26-0012.fits']).toMatchObject({ status: 'pending', z: null });
+    expect(by['KRT-26-0021.fits']).toMatchObject({ status: 'no-redshift', z: null, note: 'S/N too low' });
+    expect(by['KRT-26-0016.fits']).toMatchObject({ status: 'pending', object: 'KRT-26-0016' });
+    expect(by['KRT-26-0023_truncated.fits'].status).toBe('pending');
+    expect(by['KRT-26-0023_truncated.fits'].read_problem).toMatch(/truncated/);
+    if (format !== 'csv') expect(units.ra_deg).toBe('deg');
+    if (format === 'fits') expect(fitsverify(out).report).toMatch(/^verification OK/);
+    // Nothing but the catalogues was added to the worklist copy, and no temporary file stays.
+    expect(readdirSync(base).filter((n) => n.includes('.tmp'))).toEqual([]);
+    expect(readFileSync(join(night, 'kestrel-2026-03-14.verdicts.jsonl'), 'utf8')).toBe(journal);
+  });
+
+  it('takes the format from the --out ending, and refuses what it cannot do with one line and exit 2', () => {
+    const out = join(base, 'by-ending.ecsv');
+    expect(zvet('export', night, '--out', out).status).toBe(0);
+    expect(readFileSync(out, 'utf8').startsWith('# %ECSV 1.0\n')).toBe(true);
+
+    const noFormat = zvet('export', night, '--out', join(base, 'catalogue.txt'));
+    expect(noFormat.status).toBe(2);
+    expect(noFormat.stderr).toMatch(/^zvet: --format is needed: .*catalogue\.txt does not end in \.csv, \.ecsv or \.fits\n$/);
+
+    const badFormat = zvet('export', night, '--format', 'votable', '--out', join(base, 'c.xml'));
+    expect(badFormat.status).toBe(2);
+    expect(badFormat.stderr).toBe('zvet: --format must be one of csv, ecsv, fits, not votable\n');
+
+    const missing = zvet('export', join(base, 'no-such-night'), '--out', join(base, 'c.csv'));
+    expect(missing.status).toBe(2);
+    expect(missing.stderr).toBe(`zvet: ${join(base, 'no-such-night')}: no such file or folder\n`);
+
+    const noFolder = zvet('export', night, '--out', join(base, 'no-such-folder', 'c.csv'));
+    expect(noFolder.status).toBe(2);
+    const lines = noFolder.stderr.trimEnd().split('\n').filter((l) => !l.startsWith('zvet: warning: '));
+    expect(lines).toHaveLength(1);
+    expect(lines[0]).toMatch(/^zvet: .*no-such-folder.*: no such file or folder$/);
+  });
+});
