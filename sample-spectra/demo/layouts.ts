@@ -133,11 +133,15 @@ export function writePixelTable(r: ExposureRecord): Uint8Array {
 /** A collaborator's export: comment lines, a header row with units, vacuum wavelengths. */
 export function writeCsv(r: ExposureRecord): Uint8Array {
   const lines = [
-    `# ${r.object} re-reduced by a collaborator; wavelengths converted from air to VACUUM`,
+    `# ${r.object} re-reduced by a collaborator; wavelengths converted from air to vacuum`,
     `# OBJECT: ${r.object}`,
-    `# RA: ${r.raDeg.toFixed(6)} deg  DEC: ${r.decDeg.toFixed(6)} deg`,
-    `# DATE-OBS: ${r.dateObs} UTC  EXPTIME: ${r.exptimeS} s`,
-    `# OBSERVAT: ${SITE.name}  frame: topocentric`,
+    `# RA: ${r.raDeg.toFixed(6)}`,
+    `# DEC: ${r.decDeg.toFixed(6)}`,
+    `# DATE-OBS: ${r.dateObs}`,
+    `# EXPTIME: ${r.exptimeS}`,
+    `# OBSERVAT: ${SITE.name}`,
+    `# SPECSYS: TOPOCENT`,
+    `# AIRORVAC: vacuum`,
     `wavelength (Angstrom),flux (${FLUX_UNIT}),error (${FLUX_UNIT})`,
   ];
   for (let i = 0; i < r.grid.length; i++) {
