@@ -2,9 +2,10 @@
  * The content security policy and companion headers of the window, the same in browser mode and
  * in the Electron window. Nothing may load from anywhere but the app itself.
  *
- * style-src allows 'unsafe-inline' because plotly.js writes its own <style> rules and style
- * attributes at run time (it warns "probably due to strict CSP" and draws wrongly without it);
- * scripts stay strictly 'self', which is where the risk lies.
+ * style-src allows 'unsafe-inline' because plotly.js writes its own <style> rules at run time:
+ * in Chromium under style-src 'self' it logs "Cannot addRelatedStyleRule, probably due to strict
+ * CSP" and its stacked plot layers lose `position: absolute`, so the plot falls apart. Inline
+ * styles cannot run code; scripts stay strictly 'self', which is where the risk lies.
  */
 export const CONTENT_SECURITY_POLICY = [
   "default-src 'self'",
