@@ -9,7 +9,8 @@ import { buildCatalogue, CATALOGUE_COLUMNS, type CatalogueColumn, type Catalogue
 import { formatFromFileName, serialiseTable, type CatalogueFormat } from '../../core/catalogue/export.js';
 import type { Verdict } from '../../core/catalogue/verdict.js';
 import type { SpectrumMeta } from '../../core/spectrum/spectrum.js';
-import { astropyJson, fitsverify } from '../support/tools.js';
+import { fitsverify } from '../support/tools.js';
+import { readTableWithAstropy } from './astropy-table.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'zvet-catalogue-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -36,41 +37,6 @@ function save(format: CatalogueFormat): string {
   return path;
 }
 
-interface ReadBack {
-  names: string[];
-  units: Record<string, string | null>;
-  descriptions: Record<string, string | null>;
-  meta: Record<string, string>;
-  rows: Record<string, string | number | boolean | null>[];
-}
-
-/** Reads a table with astropy and returns plain JSON: masked or NaN cells as null. */
-function astropyRead(path: string, format: string): ReadBack {
-  return astropyJson<ReadBack>(
-    `
-import sys, json, math
-import numpy as np
-from astropy.table import Table
-t = Table.read(sys.argv[1], format=sys.argv[2]) if sys.argv[2] != 'fits' else Table.read(sys.argv[1], hdu='CATALOGUE')
-def cell(col, i):
-    if getattr(col, 'mask', None) is not None and np.ma.getmaskarray(col)[i]:
-        return None
-    v = col[i]
-    if isinstance(v, (bytes, np.bytes_)): v = v.decode()
-    if isinstance(v, np.generic): v = v.item()
-    if isinstance(v, float) and math.isnan(v): return None
-    return v
-print(json.dumps(dict(
-    names=t.colnames,
-    units={n: (None if t[n].unit is None else t[n].unit.to_string()) for n in t.colnames},
-    descriptions={n: t[n].description for n in t.colnames},
-    meta={k: str(v) for k, v in t.meta.items()},
-    rows=[{n: cell(t[n], i) for n in t.colnames} for i in range(len(t))])))
-`,
-    [path, format],
-  );
-}
-
 describe('catalogue table', () => {
   it('has one row per spectrum, pending ones included, and the unreadable file with its reason', () => {
     expect(table.rows).toHaveLength(4);
@@ -93,7 +59,7 @@ describe('catalogue table', () => {
 
 describe.each(['csv', 'ecsv', 'fits'] as const)('%s export read back by astropy', (format) => {
   const path = save(format);
-  const got = astropyRead(path, format === 'csv' ? 'ascii.csv' : format === 'ecsv' ? 'ascii.ecsv' : 'fits');
+  const got = readTableWithAstropy(path, format === 'csv' ? 'ascii.csv' : format === 'ecsv' ? 'ascii.ecsv' : 'fits');
 
   it('has every column and row with the values written', () => {
     expect(got.names).toEqual(table.columns.map((c) => c.name));

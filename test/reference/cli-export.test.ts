@@ -8,7 +8,8 @@ import { cpSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync }
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { DEMO_WORKLIST, ZVET_BIN } from '../support/paths.js';
-import { astropyJson, fitsverify } from '../support/tools.js';
+import { fitsverify } from '../support/tools.js';
+import { readTableWithAstropy } from './astropy-table.js';
 
 const base = mkdtempSync(join(tmpdir(), 'zvet-cli-export-'));
 const night = join(base, 'kestrel-2026-03-14');
@@ -33,40 +34,6 @@ function zvet(...args: string[]) {
   return { status: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
-interface Row {
-  spectrum: string;
-  status: string;
-  z: number | null;
-  class: string | null;
-  note: string | null;
-  object: string | null;
-  read_problem: string | null;
-}
-
-function readBack(path: string, format: string): { rows: Row[]; units: Record<string, string | null> } {
-  return astropyJson(
-    `
-import sys, json, math
-import numpy as np
-from astropy.table import Table
-t = Table.read(sys.argv[1], hdu=1) if sys.argv[2] == 'fits' else Table.read(sys.argv[1], format='ascii.' + sys.argv[2])
-def cell(col, i):
-    if getattr(col, 'mask', None) is not None and np.ma.getmaskarray(col)[i]:
-        return None
-    v = col[i]
-    if isinstance(v, (bytes, np.bytes_)): v = v.decode()
-    if isinstance(v, np.generic): v = v.item()
-    if isinstance(v, float) and math.isnan(v): return None
-    if isinstance(v, str) and v == '': return None
-    return v
-print(json.dumps(dict(
-    units={n: (None if t[n].unit is None else t[n].unit.to_string()) for n in t.colnames},
-    rows=[{n: cell(t[n], i) for n in ('spectrum', 'status', 'z', 'class', 'note', 'object', 'read_problem')} for i in range(len(t))])))
-`,
-    [path, format],
-  );
-}
-
 describe('zvet export on the demo worklist', () => {
   it.each(['csv', 'ecsv', 'fits'] as const)('writes the %s catalogue with every spectrum and the verdicts in force', (format) => {
     const out = join(base, `night.${format}`);
@@ -74,7 +41,7 @@ describe('zvet export on the demo worklist', () => {
     expect(r.stderr).toMatch(/^zvet: warning: .*kestrel-2026-03-14\.verdicts\.jsonl: line 7 \(the last\) is incomplete/);
     expect(r.status).toBe(0);
     expect(r.stdout).toBe(`wrote 13 rows to ${out} (${format}): 3 vetted, 10 pending, 1 unreadable\n`);
-    const { rows, units } = readBack(out, format);
+    const { rows, units } = readTableWithAstropy(out, ({ csv: 'ascii.csv', ecsv: 'ascii.ecsv', fits: 'fits' } as const)[format]);
     expect(rows).toHaveLength(13);
     const by = Object.fromEntries(rows.map((row) => [row.spectrum, row]));
     expect(by['KRT-26-0011.fits']).toMatchObject({ status: 'accepted', z: 0.04823, class: 'galaxy', object: 'KRT-26-0011' });
