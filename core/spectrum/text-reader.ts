@@ -7,7 +7,7 @@
  */
 import { FitsHeader, parseFitsNumber, type FitsCard } from '../fits/header.js';
 import { COLUMN_NAMES, ERROR_KIND, findByRole, maskFrom, sigmaFrom, type ColumnRole, type ErrorRole } from './columns.js';
-import type { SpectrumDraft } from './draft.js';
+import type { MediumDecision, SpectrumDraft } from './draft.js';
 import { stackKeywords } from './keywords.js';
 import { ASSUMED_AIR, mediumFromKeywords, mediumFromName } from './medium.js';
 import { metadataOf } from './metadata.js';
@@ -30,6 +30,7 @@ export function readTextSpectrum(bytes: Uint8Array, fileName: string): SpectrumD
   const cards: FitsCard[] = [];
   let headerRow: string[] | undefined;
   let lastComment: string | undefined;
+  const notes: string[] = [];
   let delimiter: RegExp | undefined;
   let ncols = 0;
   const columns: number[][] = [];
@@ -39,9 +40,12 @@ export function readTextSpectrum(bytes: Uint8Array, fileName: string): SpectrumD
     if (line === '') continue;
     if (line.startsWith('#') || line.startsWith('%') || line.startsWith('!')) {
       const body = line.replace(/^[#%!]+\s*/, '');
-      const kv = /^([A-Za-z][\w-]{0,15})\s*[=:]\s*(.*)$/.exec(body);
-      if (kv) cards.push({ key: kv[1].toUpperCase(), value: cardValue(kv[2]) });
-      else lastComment = body;
+      const found = commentCards(body);
+      if (found.length) cards.push(...found);
+      else {
+        lastComment = body;
+        notes.push(body);
+      }
       continue;
     }
     delimiter ??= line.includes(',') ? /\s*,\s*/ : line.includes('\t') ? /\s*\t\s*/ : /\s+/;
@@ -57,8 +61,9 @@ export function readTextSpectrum(bytes: Uint8Array, fileName: string): SpectrumD
       if (ncols < 2 || ncols > 4) fail(`line ${ln + 1} has ${ncols} columns; zvet reads 2 to 4 (wavelength, flux, error, mask)`);
       for (let c = 0; c < ncols; c++) columns.push([]);
       // A commented-out header row just above the data ('# wave flux err') names the columns too.
-      if (!headerRow && lastComment && lastComment.split(delimiter).length === ncols && lastComment.split(delimiter).every((f) => parseNumber(f) === null)) {
-        headerRow = lastComment.split(delimiter);
+      const commented = lastComment?.split(delimiter);
+      if (!headerRow && commented?.length === ncols && commented.every((f) => parseNumber(f) === null && describeColumn(f).role)) {
+        headerRow = commented;
       }
     }
     if (fields.length !== ncols) fail(`line ${ln + 1} has ${fields.length} columns, but earlier lines have ${ncols}`);
@@ -100,7 +105,7 @@ export function readTextSpectrum(bytes: Uint8Array, fileName: string): SpectrumD
   const keywords = stackKeywords(header);
   const waveName = named?.[waveAt];
   const waveUnit: WaveUnit = (waveName?.unit && parseWaveUnit(waveName.unit)) || guessWaveUnit(wave);
-  const medium = mediumFromKeywords(keywords) ?? (waveName ? mediumFromName(waveName.name) : undefined) ?? ASSUMED_AIR;
+  const medium = mediumFromKeywords(keywords) ?? (waveName ? mediumFromName(waveName.name) : undefined) ?? mediumFromNotes(notes) ?? ASSUMED_AIR;
   return {
     format: headerRow ? 'text (named columns)' : 'text',
     hdu: null,
@@ -126,10 +131,37 @@ function parseNumber(field: string): number | null {
   return parseFitsNumber(f);
 }
 
+/**
+ * 'KEY = value' / 'KEY: value' pairs in a comment line, several per line when separated by two
+ * or more blanks ('RA: 161.16 deg  DEC: -1.87 deg'). A trailing unit word after a number or
+ * time (deg, s, m, UTC) is dropped; 'FRAME' is read as VELFRAME.
+ */
+function commentCards(body: string): FitsCard[] {
+  if (!/^[A-Za-z][\w-]{0,15}\s*[=:]\s*\S/.test(body)) return [];
+  const out: FitsCard[] = [];
+  const re = /([A-Za-z][\w-]{0,15})\s*[=:]\s*(.+?)(?=\s{2,}[A-Za-z][\w-]{0,15}\s*[=:]|$)/g;
+  for (let m = re.exec(body); m; m = re.exec(body)) {
+    const key = m[1].toUpperCase();
+    out.push({ key: key === 'FRAME' ? 'VELFRAME' : key, value: cardValue(m[2]) });
+  }
+  return out;
+}
+
 function cardValue(text: string): string | number | boolean {
-  const t = text.trim().replace(/^'(.*)'$/, '$1').replace(/^"(.*)"$/, '$1');
+  let t = text.trim().replace(/^'(.*)'$/, '$1').replace(/^"(.*)"$/, '$1');
   if (t === 'T' || t === 'F') return t === 'T';
+  t = t.replace(/^(\S+)\s+(deg|degrees|s|sec|seconds|m|UTC|UT)$/i, '$1');
   return parseFitsNumber(t) ?? t;
+}
+
+/** Free-text comments that state the medium ('converted from air to vacuum', 'air wavelengths'). */
+function mediumFromNotes(notes: string[]): MediumDecision | undefined {
+  for (const note of notes) {
+    const quoted = `a comment says '${note.length > 70 ? `${note.slice(0, 70)}…` : note}'`;
+    if (/\b(to|in)\s+vacuum\b|\bvacuum\s+wavelengths?\b/i.test(note)) return { medium: 'vacuum', reason: quoted };
+    if (/\b(to|in)\s+air\b|\bair\s+wavelengths?\b/i.test(note)) return { medium: 'air', reason: quoted };
+  }
+  return undefined;
 }
 
 /**

@@ -50,6 +50,22 @@ describe('text spectra', () => {
   });
 });
 
+describe('comments in text spectra', () => {
+  it('several KEY: value pairs on one line, units after numbers dropped; FRAME is the velocity frame', () => {
+    const text = `# OBJECT: KRT-26-0018\n# RA: 161.158357 deg  DEC: -1.870000 deg\n# DATE-OBS: 2026-03-14T05:48:00.000 UTC  EXPTIME: 2400 s\n# OBSERVAT: Kestrel Ridge  frame: topocentric\n${rows(12, (i) => `${5000 + i},1,0.1`)}`;
+    const s = readSpectrum(enc(text), 'k.csv');
+    expect(s.meta).toMatchObject({ object: 'KRT-26-0018', raDeg: 161.158357, decDeg: -1.87, dateObsUtc: '2026-03-14T05:48:00.000Z', exposureS: 2400, velocityFrame: 'topocentric' });
+    expect(s.meta.site?.name).toBe('Kestrel Ridge');
+  });
+  it('a free-text comment stating the medium decides it', () => {
+    const vac = readSpectrum(enc(`# re-reduced; wavelengths converted from air to VACUUM\n${rows(12, (i) => `${5000 + i} 1`)}`), 'v.txt');
+    expect(vac.provenance.medium).toBe('vacuum');
+    expect(vac.provenance.mediumReason).toMatch(/^a comment says 're-reduced; wavelengths converted from air to VACUUM'$/);
+    const air = readSpectrum(enc(`# air wavelengths\n${rows(12, (i) => `${5000 + i} 1`)}`), 'a.txt');
+    expect(air.provenance.mediumReason).toMatch(/^a comment says/);
+  });
+});
+
 describe('describeColumn', () => {
   it('splits name and unit', () => {
     expect(describeColumn('wavelength[nm]')).toMatchObject({ role: 'wave', unit: 'nm' });
