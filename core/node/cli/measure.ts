@@ -29,6 +29,7 @@ interface MeasureCliOptions {
   zmax?: string;
   lineList?: string;
   templateSpectrum?: string[];
+  stageTimes?: boolean;
 }
 
 /** Files submitted ahead of the one being written, per job (keeps memory flat). */
@@ -47,6 +48,7 @@ export function registerMeasure(program: Command, columns: MeasureColumn[] = MEA
     .option('--zmax <z>', 'highest redshift searched (galaxy and QSO templates)')
     .option('--line-list <file>', 'extra template from a JSON line list (rest-frame vacuum Å)')
     .option('--template-spectrum <file...>', 'extra templates from rest-frame spectra (any file zvet reads)')
+    .option('--stage-times', 'print the time spent per stage (read, preprocess, correlate, refine) to standard error')
     .action(runAction(async (paths: string[], opts: MeasureCliOptions) => measure(paths, opts, columns)));
 }
 
@@ -109,6 +111,10 @@ async function measure(paths: string[], opts: MeasureCliOptions, columns: Measur
     }
   } finally {
     bar?.stop();
+    if (opts.stageTimes) {
+      const t = pool.totals;
+      process.stderr.write(`stage_times_ms ${JSON.stringify({ files: t.files, read_ms: t.readMs, preprocess_ms: t.preprocessMs, correlate_ms: t.correlateMs, refine_ms: t.refineMs })}\n`);
+    }
     await pool.close();
     if (out !== process.stdout) await new Promise<void>((resolve) => (out as NodeJS.WritableStream).end(resolve));
   }

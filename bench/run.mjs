@@ -1,0 +1,60 @@
+// Benchmark of `zvet measure` on the open survey spectra (run by `npm run bench` after the
+// build): spectra per second with --jobs 1 and with all cores, the time per stage, and the peak
+// resident memory over a long batch. Prints figures against the targets; asserts nothing.
+import { spawn } from 'node:child_process';
+import { readdirSync, readFileSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
+import { dirname, join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+const root = resolve(dirname(fileURLToPath(import.meta.url)), '..');
+const sdss = resolve(root, '../shared/spectra-open/sdss');
+const bin = join(root, 'bin/zvet.js');
+const survey = readdirSync(sdss).filter((f) => f.startsWith('spec-') && f.endsWith('.fits')).map((f) => join(sdss, f));
+const cores = availableParallelism();
+
+function repeated(n) {
+  return Array.from({ length: n }, (_, i) => survey[i % survey.length]);
+}
+
+/** Runs zvet measure on the files; returns wall seconds, peak RSS (MB) and the stage times. */
+function run(files, jobs) {
+  return new Promise((resolvePromise, reject) => {
+    const t0 = process.hrtime.bigint();
+    const child = spawn(process.execPath, [bin, 'measure', ...files, '--jobs', String(jobs), '--out', '/dev/null', '--stage-times'], { stdio: ['ignore', 'ignore', 'pipe'] });
+    let stderr = '';
+    let peakKb = 0;
+    child.stderr.on('data', (d) => (stderr += d));
+    const poll = setInterval(() => {
+      try {
+        const m = /VmHWM:\s+(\d+) kB/.exec(readFileSync(`/proc/${child.pid}/status`, 'utf8'));
+        if (m) peakKb = Math.max(peakKb, Number(m[1]));
+      } catch {
+        // the process has just ended
+      }
+    }, 20);
+    child.on('error', reject);
+    child.on('exit', (code) => {
+      clearInterval(poll);
+      const seconds = Number(process.hrtime.bigint() - t0) / 1e9;
+      const m = /stage_times_ms (\{.*\})/.exec(stderr);
+      if (code !== 0 || !m) return reject(new Error(`zvet measure exited ${code}: ${stderr.split('\n')[0]}`));
+      resolvePromise({ seconds, peakMb: peakKb / 1024, stages: JSON.parse(m[1]) });
+    });
+  });
+}
+
+function stageLine(s) {
+  const per = (ms) => `${(ms / s.files).toFixed(2)} ms`;
+  return `read ${per(s.read_ms)}, preprocess ${per(s.preprocess_ms)}, correlate ${per(s.correlate_ms)}, refine ${per(s.refine_ms)} per spectrum (worker time)`;
+}
+
+const n = Math.max(500, survey.length * Math.ceil(500 / survey.length));
+console.log(`zvet measure bench: ${survey.length} SDSS/BOSS/eBOSS survey spectra repeated to ${n}, default templates, ${cores} cores`);
+for (const jobs of [1, cores]) {
+  const r = await run(repeated(n), jobs);
+  console.log(`--jobs ${jobs}: ${(n / r.seconds).toFixed(1)} spectra/s end to end (target ≥ ${jobs === 1 ? 600 : 1000}); ${stageLine(r.stages)}; peak RSS ${r.peakMb.toFixed(0)} MB`);
+}
+const long = 10000;
+const r = await run(repeated(long), cores);
+console.log(`${long} spectra, --jobs ${cores}: ${(long / r.seconds).toFixed(1)} spectra/s; peak RSS ${r.peakMb.toFixed(0)} MB (target < 300 MB)`);
