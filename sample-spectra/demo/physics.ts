@@ -146,13 +146,13 @@ export function nightSky(grid: Float64Array, brightness: number): NightSky {
  * and scaling: common practice, no source; the band limits are those DESIGN.md names).
  */
 export function telluricTransmission(grid: Float64Array, airmass: number): Float64Array {
-  // O₂ bands have a sharp head (1.5 Å); the H₂O bands rise gently (20 Å).
+  // O₂ bands have a sharp head (1.5 Å); the H₂O bands rise gently (60 Å).
   const bands: { head: number; rise: number; end: number; tail: number; depth: number }[] = [
     { head: 6867, rise: 1.5, end: 6960, tail: 35, depth: 0.35 },
     { head: 7594, rise: 1.5, end: 7700, tail: 40, depth: 0.7 },
-    { head: 7165, rise: 20, end: 7340, tail: 90, depth: 0.12 },
-    { head: 8130, rise: 20, end: 8350, tail: 110, depth: 0.14 },
-    { head: 8950, rise: 20, end: 9400, tail: 250, depth: 0.25 },
+    { head: 7165, rise: 60, end: 7340, tail: 90, depth: 0.12 },
+    { head: 8130, rise: 60, end: 8350, tail: 110, depth: 0.14 },
+    { head: 8950, rise: 60, end: 9400, tail: 250, depth: 0.25 },
   ];
   const scale = airmass ** 0.55;
   return grid.map((w) => {
