@@ -28,7 +28,7 @@ export const NIGHT_PLAN: readonly Target[] = [
     notes: 'star-forming host; [O II] to [S II] in range',
   },
   {
-    number: 14, hostClass: 'agn', z: 0.08762, continuum: 3.5, hbetaFlux: 12, lines: 'seyfert2',
+    number: 14, hostClass: 'agn', z: 0.08762, continuum: 3.5, hbetaFlux: 22, lines: 'seyfert2',
     targetSn: 16, exptimeS: 900, decDeg: -4.213, hourAngleH: 0.5, layout: 'multispec',
     notes: 'narrow-line AGN (Seyfert 2): [O III]/Hb = 10, [N II]/Ha = 1.1, above the Kewley 2001 line',
   },
