@@ -13,10 +13,12 @@ import { renderPlotControls } from './panels/plot-controls.js';
 import { renderSpectrumTitle } from './panels/spectrum-title.js';
 import { renderExport, renderSaveState } from './panels/status-panels.js';
 import { renderWorklist } from './panels/worklist-panel.js';
-import type { PlotElement } from './plot/plotly.js';
+import { loadPlotly, type PlotElement } from './plot/plotly.js';
 import { byId, el, fill } from './ui/dom.js';
 import { actionFor } from './ui/keymap.js';
 
+// plotly.min.js loads while the first host calls are on their way.
+void loadPlotly();
 const api = connectHost();
 let controller: Controller;
 let cosmologyName = COSMOLOGY_PRESETS.planck18?.name ?? 'planck18';

@@ -122,6 +122,7 @@ export class Controller {
   /** Shows a spectrum; with `timed`, marks 'zvet:drawn' once the spectrum and markers are drawn. */
   async show(id: string, timed = false): Promise<void> {
     this.s.currentId = id;
+    this.s.message = null;
     this.s.loading = true;
     this.s.identifying = false;
     this.view.panels(this.s);
@@ -132,6 +133,7 @@ export class Controller {
       view = { id, arrays: null, meta: null, measurement: null, templateModel: null, verdict: this.itemOf(id)?.verdict ?? null, error: `${id}: ${(err as Error).message}` };
     }
     if (this.s.currentId !== id) return;
+    if (timed) performance.mark('zvet:loaded');
     const s = this.s;
     s.view = { ...view, verdict: this.itemOf(id)?.verdict ?? view.verdict };
     s.loading = false;
@@ -145,6 +147,7 @@ export class Controller {
       requestAnimationFrame(() => {
         performance.mark('zvet:drawn');
         performance.measure('zvet:next-to-drawn', 'zvet:next', 'zvet:drawn');
+        performance.measure('zvet:next-to-loaded', 'zvet:next', 'zvet:loaded');
       });
     }
     this.view.panels(s);
@@ -238,6 +241,7 @@ export class Controller {
     const input = verdictFor(s.view, decision, s.trial, s.grade);
     if ('refused' in input) return this.say(input.refused);
     if (decision.kind === 'accept-best') s.trial = candidateTrial(s.view, 0);
+    s.message = null;
     void this.queue.enqueue(input);
     this.trialChanged();
   }

@@ -4,9 +4,9 @@
  * on a candidate.
  */
 import type { AppState } from './state.js';
-import { buildSpectrumFigure, fullWaveRange } from '../plot/spectrum-figure.js';
+import { buildSpectrumFigure, FLUX_TRACE, fullWaveRange } from '../plot/spectrum-figure.js';
 import { buildCorrelationFigure } from '../plot/correlation-figure.js';
-import { plotly, PLOT_CONFIG, type PlotElement } from '../plot/plotly.js';
+import { loadPlotly, PLOT_CONFIG, type PlotElement } from '../plot/plotly.js';
 import { candidates } from '../state/decision.js';
 
 export interface PlotEvents {
@@ -25,7 +25,7 @@ export class Plots {
   /** Redraws the spectrum; resolves when plotly has drawn it. */
   async drawSpectrum(state: AppState): Promise<void> {
     const arrays = state.view?.arrays;
-    const P = plotly();
+    const P = await loadPlotly();
     if (!arrays) {
       P.purge(this.spectrumEl);
       this.spectrumWired = false;
@@ -54,8 +54,8 @@ export class Plots {
       const b = e['xaxis.range[1]'] ?? (e['xaxis.range'] as number[] | undefined)?.[1];
       if (typeof a === 'number' && typeof b === 'number' && (!this.lastRange || a !== this.lastRange[0] || b !== this.lastRange[1])) this.events.rangeChanged([a, b]);
     });
-    this.spectrumEl.on('plotly_click', (e: { points?: { x: number; data: { xaxis?: string } }[] }) => {
-      const p = e.points?.find((pt) => (pt.data.xaxis ?? 'x') === 'x');
+    this.spectrumEl.on('plotly_click', (e: { points?: { x: number; curveNumber: number }[] }) => {
+      const p = e.points?.find((pt) => pt.curveNumber === FLUX_TRACE);
       if (p && typeof p.x === 'number') this.events.featureClicked(p.x);
     });
   }
@@ -63,7 +63,7 @@ export class Plots {
   async drawCorrelation(state: AppState): Promise<string | null> {
     const curves = state.view?.measurement?.correlations ?? [];
     const curve = curves.find((c) => c.template === state.correlationTemplate) ?? curves[0];
-    const P = plotly();
+    const P = await loadPlotly();
     if (!curve) {
       P.purge(this.correlationEl);
       this.correlationWired = false;

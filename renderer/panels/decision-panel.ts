@@ -72,7 +72,7 @@ export class DecisionPanel {
     const v = state.view?.verdict && state.view.verdict.status !== 'pending' ? state.view.verdict : null;
     const queued = state.saves.find((q) => q.input.id === state.currentId);
     const conf = (c: Confidence) => el('button', { type: 'button', 'aria-pressed': state.grade.confidence === c ? 'true' : 'false', style: `color:${CONFIDENCE_LOOK[c].colour}`, onclick: () => this.on.confidence(c) }, `${CONFIDENCE_LOOK[c].shape} ${c}`, el('kbd', {}, CONFIDENCE_KEYS[c]));
-    const cls = (c: ObjectClass) => el('button', { type: 'button', 'aria-pressed': state.grade.objectClass === c ? 'true' : 'false', onclick: () => this.on.objectClass(c) }, c, el('kbd', {}, `⇧${CLASS_KEYS[c]}`));
+    const cls = (c: ObjectClass) => el('button', { type: 'button', 'aria-pressed': state.grade.objectClass === c ? 'true' : 'false', title: `Shift+${CLASS_KEYS[c]}`, onclick: () => this.on.objectClass(c) }, c);
     fill(this.dynamicButtons,
       el('div', { class: 'row nudge' }, el('span', { class: 'label' }, 'nudge'),
         ...NUDGE_STEPS_KMS.map((s) => el('button', { type: 'button', title: `${s > 0 ? '+' : '−'}${Math.abs(s)} km/s`, onclick: () => this.on.nudge(s) }, `${s > 0 ? '+' : '−'}${Math.abs(s)}`)),
@@ -80,13 +80,13 @@ export class DecisionPanel {
       el('div', { class: 'row' }, el('span', { class: 'label' }, ''), el('span', { class: 'muted' }, `keys , . ±10 · < > ±100 · ${stepInfo}`)),
       el('div', { class: 'row decide-buttons' },
         el('button', { type: 'button', id: 'btn-accept', onclick: () => this.on.acceptBest() }, 'Accept best', el('kbd', {}, 'a')),
-        el('button', { type: 'button', id: 'btn-save-trial', onclick: () => this.on.saveTrial() }, 'Save trial z', el('kbd', {}, 'Enter')),
-        el('button', { type: 'button', id: 'btn-no-z', onclick: () => this.on.noRedshift() }, 'No redshift', el('kbd', {}, 'x'))),
+        el('button', { type: 'button', id: 'btn-save-trial', onclick: () => this.on.saveTrial() }, 'Save trial z', el('kbd', {}, 'Enter'))),
       el('div', { class: 'row' },
+        el('button', { type: 'button', id: 'btn-no-z', onclick: () => this.on.noRedshift() }, 'No redshift', el('kbd', {}, 'x')),
         el('button', { type: 'button', 'aria-pressed': state.identifying ? 'true' : 'false', onclick: () => this.on.identify() }, 'Identify a line', el('kbd', {}, 'i')),
-        el('button', { type: 'button', onclick: () => this.on.undo() }, 'Undo last', el('kbd', {}, 'u'))),
+        el('button', { type: 'button', onclick: () => this.on.undo() }, 'Undo', el('kbd', {}, 'u'))),
       el('div', { class: 'row stacked' }, el('span', { class: 'label' }, 'confidence (a word, always)'), ...CONFIDENCES.map(conf)),
-      el('div', { class: 'row stacked' }, el('span', { class: 'label' }, 'class'), ...OBJECT_CLASSES.map(cls)),
+      el('div', { class: 'row stacked' }, el('span', { class: 'label' }, 'class (Shift + initial: G A Q S U)'), ...OBJECT_CLASSES.map(cls)),
       el('div', { class: `verdict-now${v ? '' : ' pending'}`, id: 'verdict-now', 'data-z': v ? String(v.z) : null },
         v ? verdictLine(v) : 'pending: not vetted yet',
         queued ? el('div', { class: 'muted' }, queued.state === 'failed' ? `NOT SAVED: ${queued.reason}` : 'saving…') : null));

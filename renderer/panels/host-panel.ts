@@ -2,7 +2,7 @@
 import type { HostAnalysis } from '../../core/hosts/analyse.js';
 import { restLine } from '../../core/redshift/line-list.js';
 import { buildBptFigure } from '../plot/bpt-figure.js';
-import { plotly, PLOT_CONFIG } from '../plot/plotly.js';
+import { loadPlotly, PLOT_CONFIG } from '../plot/plotly.js';
 import { el, fill } from '../ui/dom.js';
 import { fmtNum } from '../ui/format.js';
 import { usableResult, type LiveResult } from './derived-panel.js';
@@ -54,5 +54,5 @@ export function renderHost(box: HTMLElement, live: LiveResult<HostAnalysis> | nu
     el('p', { class: 'muted' }, `IMF: ${sfr.imf.kennicutt98} (K98); ${sfr.imf.ke12} (KE12). ${sfr.note ?? ''}`),
     el('p', { class: 'caveat', id: 'aperture-caveat' }, `⚠ ${sfr.caveat}`));
   const fig = buildBptFigure(c.point);
-  void plotly().react(plot, fig.data, fig.layout, { ...PLOT_CONFIG, displayModeBar: false });
+  void loadPlotly().then((P) => P.react(plot, fig.data, fig.layout, { ...PLOT_CONFIG, displayModeBar: false }));
 }

@@ -46,6 +46,38 @@ export function fullWaveRange(wave: readonly (number | null)[]): [number, number
   return [lo, hi];
 }
 
+/** Index of the flux trace in the figure's data (clicks on the spectrum are read from it). */
+export const FLUX_TRACE = 2;
+
+/**
+ * Line markers as a few traces rather than one plotly shape and annotation each (much quicker
+ * to redraw): per line kind one trace of vertical segments in its dash pattern, and one text
+ * trace per label side, labels carrying their kind's glyph.
+ */
+export function markerTraces(markers: readonly LineMarker[]): Data[] {
+  const traces: Data[] = [];
+  for (const kind of ['emission', 'absorption', 'both'] as const) {
+    const x: (number | null)[] = [];
+    const y: (number | null)[] = [];
+    for (const m of markers) if (m.kind === kind) for (const w of m.observedWaveAngstrom) x.push(w, w, null), y.push(0, 1, null);
+    if (x.length === 0) continue;
+    traces.push({ type: 'scatter', mode: 'lines', x, y, yaxis: 'y2', name: `${MARKER_STYLE[kind].glyph} ${kind === 'both' ? 'Balmer' : kind} lines`, showlegend: false, hoverinfo: 'skip', line: { color: THEME[kind], width: 1, dash: MARKER_STYLE[kind].dash }, opacity: 0.75 });
+  }
+  for (const side of ['top', 'bottom'] as const) {
+    const ms = markers.filter((m) => MARKER_STYLE[m.kind].side === side);
+    if (ms.length === 0) continue;
+    traces.push({
+      type: 'scatter', mode: 'text', yaxis: 'y2', showlegend: false, hoverinfo: 'skip', name: `labels ${side}`,
+      x: ms.map((m) => m.labelWaveAngstrom),
+      y: ms.map((m) => (side === 'top' ? 0.985 - Math.min(m.row, 3.6) * LABEL_ROW_STEP : 0.015 + Math.min(m.row, 3.6) * LABEL_ROW_STEP)),
+      text: ms.map((m) => (m.named ? `${MARKER_STYLE[m.kind].glyph} ${m.label}` : MARKER_STYLE[m.kind].glyph)),
+      textposition: side === 'top' ? 'bottom center' : 'top center',
+      textfont: { family: THEME.font, size: 13, color: ms.map((m) => THEME[m.kind]) },
+    });
+  }
+  return traces;
+}
+
 export function buildSpectrumFigure(input: SpectrumFigureInput): SpectrumFigure {
   const { arrays, z } = input;
   const wave = arrays.waveAngstrom;
@@ -84,19 +116,7 @@ export function buildSpectrumFigure(input: SpectrumFigureInput): SpectrumFigure 
   for (const run of maskedRuns(wave, arrays.mask)) {
     shapes.push({ type: 'rect', xref: 'x', yref: 'paper', x0: run.loAngstrom, x1: run.hiAngstrom, y0: 0, y1: 1, fillcolor: THEME.masked, line: { width: 0 }, layer: 'below' });
   }
-  for (const m of markers) {
-    const style = MARKER_STYLE[m.kind];
-    const colour = THEME[m.kind];
-    for (const w of m.observedWaveAngstrom) {
-      shapes.push({ type: 'line', xref: 'x', yref: 'paper', x0: w, x1: w, y0: 0, y1: 1, line: { color: colour, width: 1, dash: style.dash }, opacity: 0.75 });
-    }
-    const y = style.side === 'top' ? 0.985 - m.row * LABEL_ROW_STEP : 0.015 + m.row * LABEL_ROW_STEP;
-    annotations.push({
-      x: m.labelWaveAngstrom, xref: 'x', yref: 'paper', y, yanchor: style.side === 'top' ? 'top' : 'bottom',
-      text: m.named ? `${style.glyph} ${m.label}` : style.glyph, hovertext: m.label, showarrow: false, bgcolor: 'rgba(20,23,28,0.75)', borderpad: 1,
-      font: { size: 13, color: colour, family: THEME.font },
-    });
-  }
+  data.push(...markerTraces(markers));
   const yRange = robustRange(flux, wave, lo, hi);
   const axisCommon = { gridcolor: THEME.grid, linecolor: THEME.axis, zerolinecolor: THEME.axis, tickfont: { size: 13, color: THEME.muted }, title: { font: { size: 13, color: THEME.text } } };
   const layout: Partial<Layout> = {
@@ -115,6 +135,8 @@ export function buildSpectrumFigure(input: SpectrumFigureInput): SpectrumFigure 
       title: { ...axisCommon.title, text: z === null ? 'rest wavelength (Å): no z' : `rest wavelength at z = ${z.toFixed(5)} (Å)`, standoff: 4 },
     },
     yaxis: { ...axisCommon, range: yRange, autorange: false, title: { ...axisCommon.title, text: `flux (${input.fluxUnit})` } },
+    // The marker lines and labels live on a hidden 0–1 axis, so zooming the flux leaves them put.
+    yaxis2: { overlaying: 'y', range: [0, 1], autorange: false, visible: false, fixedrange: true },
     yaxis3: { ...axisCommon, overlaying: 'y', side: 'right', showgrid: false, title: { ...axisCommon.title, text: 'sky' } },
     shapes,
     annotations,

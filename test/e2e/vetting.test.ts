@@ -82,9 +82,10 @@ describe('vetting in the window', () => {
     await expect.poll(() => page.locator('#candidates tbody tr').count()).toBeGreaterThan(1);
     expect(await page.locator('.caution').textContent()).toContain('suggestions until you vet them');
     expect(await page.locator('#progress').textContent()).toContain('0 of 13 vetted');
-    // Line markers are annotations with a glyph: ▲ emission, ▼ absorption.
-    const labels = await page.locator('#spectrum-plot .annotation-text').allTextContents();
+    // Line marker labels carry a glyph: ▲ emission (top), ▼ absorption (bottom).
+    const labels = await page.locator('#spectrum-plot .textpoint').allTextContents();
     expect(labels.some((t) => t.startsWith('▲'))).toBe(true);
+    expect(labels.some((t) => t.startsWith('▼'))).toBe(true);
     await page.waitForSelector('#tab-body dl');
     await shot('main-view');
   });

@@ -48,3 +48,18 @@ describe('crowded labels', () => {
     for (const m of top) expect(m.named ? m.row < 2 : m.observedWaveAngstrom.length > 0).toBe(true);
   });
 });
+
+describe('marker traces in the figure', () => {
+  it('draws each kind in its own dash pattern and puts emission labels on top, absorption below', async () => {
+    const { markerTraces } = await import('../../renderer/plot/spectrum-figure.js');
+    const traces = markerTraces(markersInRange(0.1, 3600, 9400, geometry)) as { mode: string; name: string; line?: { dash: string }; y: number[]; text?: string[] }[];
+    const dashOf = (word: string) => traces.find((t) => t.mode === 'lines' && t.name.includes(word))?.line?.dash;
+    expect(dashOf('emission')).toBe('solid');
+    expect(dashOf('absorption')).toBe('dash');
+    const top = traces.find((t) => t.name === 'labels top')!;
+    const bottom = traces.find((t) => t.name === 'labels bottom')!;
+    expect(top.text!.every((t) => !t.startsWith('▼'))).toBe(true);
+    expect(bottom.text!.every((t) => t.startsWith('▼'))).toBe(true);
+    expect(Math.min(...top.y)).toBeGreaterThan(Math.max(...bottom.y));
+  });
+});
