@@ -20,12 +20,25 @@ interface HeaderColumn {
   unit?: string;
 }
 
+/**
+ * Text never holds C0 control bytes other than tab, line and page breaks, nor DEL. Checked over
+ * the whole file, not just its start: a FITS file with a mangled first card has a long clean
+ * header before its binary data, and a reason quoting that data would carry raw control bytes.
+ */
+function hasControlBytes(bytes: Uint8Array): boolean {
+  for (let i = 0; i < bytes.length; i++) {
+    const b = bytes[i];
+    if ((b < 0x20 && (b < 0x09 || b > 0x0d)) || b === 0x7f) return true;
+  }
+  return false;
+}
+
 export function readTextSpectrum(bytes: Uint8Array, fileName: string): SpectrumDraft {
   const fail = (reason: string): never => {
     throw new SpectrumReadError(fileName, reason);
   };
   if (bytes.length === 0) fail('the file is empty');
-  if (bytes.subarray(0, 4096).includes(0)) fail('not a spectrum: binary data that is neither FITS nor gzip');
+  if (hasControlBytes(bytes)) fail('not a spectrum: binary data that is neither FITS nor gzip');
   const text = new TextDecoder('utf-8', { fatal: false }).decode(bytes);
   const cards: FitsCard[] = [];
   let headerRow: string[] | undefined;

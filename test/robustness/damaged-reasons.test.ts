@@ -1,0 +1,57 @@
+// Each way of damaging a spectrum (test/support/damaged-spectra.ts), applied to every 1-D FITS
+// image of the demo night, is refused with a SpectrumReadError whose reason says what is wrong in
+// one printable line: no control characters (a terminal or a CSV cell must show it as it is).
+// This is the in-process half of the batch-resilience check; the other half runs `zvet measure`.
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { readSpectrum } from '../../core/spectrum/read';
+import { SpectrumReadError } from '../../core/spectrum/spectrum';
+import { FITS_DAMAGE, TEXT_DAMAGE } from '../support/damaged-spectra';
+import { DEMO_WORKLIST } from '../support/paths';
+
+/** The demo's 1-D FITS images (the table, text and truncated files are not images). */
+const IMAGES = ['KRT-26-0011.fits', 'KRT-26-0012.fits', 'KRT-26-0013.fits', 'KRT-26-0014.fits', 'KRT-26-0015_1d.fits', 'KRT-26-0016.fits', 'KRT-26-0019.fits.gz', 'KRT-26-0020.fits', 'KRT-26-0021.fits', 'KRT-26-0022.fits'];
+/** C0 controls and DEL: nothing a one-line reason may carry. */
+const CONTROL = /[\u0000-\u001f\u007f]/;
+
+function reasonFor(bytes: Buffer, name: string): string {
+  try {
+    readSpectrum(new Uint8Array(bytes), name);
+  } catch (err) {
+    expect(err).toBeInstanceOf(SpectrumReadError);
+    return (err as SpectrumReadError).reason;
+  }
+  throw new Error(`${name} was read although it is damaged`);
+}
+
+/** Seeded PRNG (mulberry32) so a failure can be replayed. */
+function prng(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = Math.imul(a ^ (a >>> 15), 1 | a);
+    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+describe('damaged spectra: the reason', () => {
+  for (const damage of FITS_DAMAGE) {
+    it(`${damage.name}: ${damage.reason}`, () => {
+      for (const [k, image] of IMAGES.entries()) {
+        const name = `damaged-${k}${damage.ending}`;
+        const reason = reasonFor(damage.make(readFileSync(join(DEMO_WORKLIST, image)), prng(k + 1)), name);
+        expect(reason, `${image}: ${JSON.stringify(reason)}`).toMatch(damage.reason);
+        expect(reason, `${image}: ${JSON.stringify(reason)}`).not.toMatch(CONTROL);
+      }
+    });
+  }
+  for (const damage of TEXT_DAMAGE) {
+    it(`${damage.name}: ${damage.reason}`, () => {
+      const reason = reasonFor(damage.make(Buffer.alloc(0), prng(1)), `damaged${damage.ending}`);
+      expect(reason).toMatch(damage.reason);
+      expect(reason).not.toMatch(CONTROL);
+    });
+  }
+});
