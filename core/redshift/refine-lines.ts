@@ -6,7 +6,7 @@
  * Recipes, §15.5), scaled by χ²_red when that exceeds 1.
  */
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
-import { TIED_LINES } from './class-templates.js';
+import { lineGroups } from './line-groups.js';
 import { invert, normalMatrix } from './linalg.js';
 import { pixelsNearLines, type NativeResidual } from './native-residual.js';
 import type { ProfileLine, Template } from './templates.js';
@@ -35,15 +35,8 @@ interface Component {
 export function fitEmissionLines(nr: NativeResidual, template: Template, z0: number): LineFit | null {
   const lo = nr.waveAngstrom[0], hi = nr.waveAngstrom[nr.waveAngstrom.length - 1];
   const inRange = template.lines.filter((l) => l.strength > 0 && l.waveRestAngstrom * (1 + z0) > lo && l.waveRestAngstrom * (1 + z0) < hi);
-  const groupOf = new Map<string, number>();
-  const comps: Component[] = [];
-  let nGroups = 0;
-  for (const l of inRange) {
-    const tie = TIED_LINES[l.id];
-    const key = tie && inRange.some((o) => o.id === tie.partner) ? tie.partner : l.id;
-    if (!groupOf.has(key)) groupOf.set(key, nGroups++);
-    comps.push({ line: l, group: groupOf.get(key)!, ratio: key === l.id ? 1 : tie.ratio, broad: l.sigmaKmS > BROAD_KMS });
-  }
+  const { members, nGroups } = lineGroups(inRange);
+  const comps: Component[] = inRange.map((line, k) => ({ line, ...members[k], broad: line.sigmaKmS > BROAD_KMS }));
   if (nGroups === 0) return null;
   const sub = { ...template, lines: inRange };
   const idx = pixelsNearLines(nr, sub, z0, 4);

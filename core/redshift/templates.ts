@@ -54,19 +54,24 @@ function lineTemplate(name: string, templateClass: TemplateClass, zMin: number, 
     lines,
     absorptionOnly: lines.every((l) => l.strength < 0),
     evaluate(waveRest, instSigmaKmS, out, strengthPower = 1) {
-      const n = waveRest.length;
-      for (const l of lines) {
-        const sigmaA = (l.waveRestAngstrom * Math.hypot(l.sigmaKmS, instSigmaKmS)) / C_KMS;
-        const peak = (Math.sign(l.strength) * Math.pow(Math.abs(l.strength), strengthPower)) / (sigmaA * SQRT_2PI);
-        const a = l.waveRestAngstrom - 5 * sigmaA, b = l.waveRestAngstrom + 5 * sigmaA;
-        let i = lowerBound(waveRest, a);
-        for (; i < n && waveRest[i] <= b; i++) {
-          const u = (waveRest[i] - l.waveRestAngstrom) / sigmaA;
-          out[i] += peak * Math.exp(-0.5 * u * u);
-        }
-      }
+      for (const l of lines) addLineProfile(l, waveRest, instSigmaKmS, out, Math.sign(l.strength) * Math.pow(Math.abs(l.strength), strengthPower));
     },
   };
+}
+
+/**
+ * Adds `scale` × the line's unit-area Gaussian (σ = the line's width and instSigmaKmS in
+ * quadrature) at the sorted rest wavelengths into out, over ±5σ.
+ */
+export function addLineProfile(line: ProfileLine, waveRest: Float64Array, instSigmaKmS: number, out: Float64Array, scale: number): void {
+  const n = waveRest.length;
+  const sigmaA = (line.waveRestAngstrom * Math.hypot(line.sigmaKmS, instSigmaKmS)) / C_KMS;
+  const peak = scale / (sigmaA * SQRT_2PI);
+  const b = line.waveRestAngstrom + 5 * sigmaA;
+  for (let i = lowerBound(waveRest, line.waveRestAngstrom - 5 * sigmaA); i < n && waveRest[i] <= b; i++) {
+    const u = (waveRest[i] - line.waveRestAngstrom) / sigmaA;
+    out[i] += peak * Math.exp(-0.5 * u * u);
+  }
 }
 
 export function lowerBound(sorted: Float64Array, x: number): number {

@@ -6,7 +6,9 @@ import { rebinFluxConserving, pixelEdges, type LogGrid } from '../../core/redshi
 import { describePeak } from '../../core/redshift/peaks.js';
 import type { CorrelationCurveData } from '../../core/redshift/correlate.js';
 import { measureRedshift } from '../../core/redshift/measure.js';
-import { builtInTemplates } from '../../core/redshift/templates.js';
+import { builtInTemplates, fromUserSpectrum, type Template } from '../../core/redshift/templates.js';
+import { templateModelFlux } from '../../core/redshift/template-model.js';
+import type { UserSpectrumTemplate } from '../../core/redshift/types.js';
 import type { Spectrum } from '../../core/spectrum/spectrum.js';
 
 /** Seeded normal deviates (mulberry32 + Box–Muller). */
@@ -23,14 +25,14 @@ function rng(seed: number): () => number {
 }
 
 /** SDSS-like spectrum: 3800–9200 Å, Δlog10 λ = 1e-4, continuum 10, noise σ, lines of a template at z. */
-function synthetic(z: number | null, sigma: number, seed: number, amplitude = 400): Spectrum {
+function synthetic(z: number | null, sigma: number, seed: number, amplitude = 400, template: Template = builtInTemplates().find((t) => t.name === 'star-forming')!): Spectrum {
   const n = 3840;
   const wave = Float64Array.from({ length: n }, (_, i) => 3800 * Math.pow(10, 1e-4 * i));
   const flux = new Float64Array(n).fill(10);
   if (z !== null) {
-    const sf = builtInTemplates().find((t) => t.name === 'star-forming')!;
     const prof = new Float64Array(n);
-    sf.evaluate(Float64Array.from(wave, (w) => w / (1 + z)), 69, prof);
+    // 69 km/s: the width of one pixel, the instrument width the engine assumes.
+    template.evaluate(Float64Array.from(wave, (w) => w / (1 + z)), 69, prof);
     for (let i = 0; i < n; i++) flux[i] += (amplitude * prof[i]) / (1 + z);
   }
   const g = rng(seed);
@@ -144,5 +146,59 @@ describe('measureRedshift on synthetic spectra', () => {
     }
     // Normalised over the overlap, noise peaks land anywhere: not mostly at the range ends.
     expect(atEdge).toBeLessThanOrEqual(4);
+  });
+});
+
+/** χ² of a model against a spectrum over the pixels where the model is defined, and their number. */
+function chi2Of(model: Float64Array, s: Spectrum): { chi2: number; n: number } {
+  let chi2 = 0, n = 0;
+  for (let i = 0; i < model.length; i++) {
+    if (!Number.isFinite(model[i])) continue;
+    chi2 += ((s.flux[i] - model[i]) / s.error[i]) ** 2;
+    n++;
+  }
+  return { chi2, n };
+}
+
+describe('templateModelFlux', () => {
+  // A redshift inside each built-in template's range (the star's is a small velocity).
+  const cases: [string, number][] = [['star-forming', 0.1234], ['agn-narrow', 0.31], ['passive', 0.152], ['qso', 2.05], ['star', 0.0003]];
+  for (const [name, z] of cases) {
+    it(`reproduces a ${name} spectrum made at z = ${z} to within the noise, and fits clearly worse 3000 km/s off`, () => {
+      const t = builtInTemplates().find((x) => x.name === name)!;
+      const s = synthetic(z, 1, 7, 400, t);
+      const right = chi2Of(templateModelFlux(name, z, s), s);
+      // Unit-σ noise: χ²/N ≈ 1 ± √(2/N) (≈ 0.03 here); the continuum estimate adds a little.
+      expect(right.n).toBeGreaterThan(1000);
+      expect(right.chi2 / right.n).toBeLessThan(1.1);
+      const zWrong = (1 + z) * (1 + 3000 / 299792.458) - 1;
+      const wrong = chi2Of(templateModelFlux(name, zWrong, s), s);
+      expect(wrong.chi2 / wrong.n).toBeGreaterThan(1.5 * (right.chi2 / right.n));
+    });
+  }
+
+  it('works for a user template spectrum and is NaN outside its rest range and on masked pixels', () => {
+    // A rest-frame template spectrum 3000–7000 Å: a continuum with the passive template's absorption lines.
+    const restWave = Float64Array.from({ length: 4001 }, (_, i) => 3000 + i);
+    const restFlux = new Float64Array(restWave.length).fill(1);
+    const passive = builtInTemplates().find((x) => x.name === 'passive')!;
+    passive.evaluate(restWave, 100, restFlux);
+    const user: UserSpectrumTemplate = { name: 'my-early-type', waveRestAngstrom: restWave, flux: restFlux };
+    const z = 0.2;
+    const s = synthetic(z, 1, 8, 100, fromUserSpectrum(user));
+    for (let i = 200; i < 210; i++) s.mask[i] = 1;
+    const model = templateModelFlux('my-early-type', z, s, { userSpectrumTemplates: [user] });
+    for (let i = 200; i < 210; i++) expect(model[i]).toBeNaN();
+    s.waveAngstrom.forEach((w, i) => {
+      if (w / (1 + z) > 7000.5) expect(model[i]).toBeNaN();
+    });
+    const right = chi2Of(model, s);
+    expect(right.chi2 / right.n).toBeLessThan(1.1);
+    const wrong = chi2Of(templateModelFlux('my-early-type', z + 0.01, s, { userSpectrumTemplates: [user] }), s);
+    expect(wrong.chi2 / wrong.n).toBeGreaterThan(1.5 * (right.chi2 / right.n));
+  });
+
+  it('names the template it does not know', () => {
+    expect(() => templateModelFlux('no-such-template', 0.1, synthetic(0.1, 1, 9))).toThrow(/no-such-template/);
   });
 });

@@ -19,6 +19,8 @@ import { COSMOLOGY_PRESETS, type CosmologyModel } from '../../astro/cosmology.js
 import { correctFrames, type FrameResult } from '../../astro/frames.js';
 import type { Verdict } from '../../catalogue/verdict.js';
 import { analyseHost, type HostAnalysis } from '../../hosts/analyse.js';
+import { templateModelFlux } from '../../redshift/template-model.js';
+import { TemplateChoiceError } from '../../redshift/template-set.js';
 import type { Site, Spectrum } from '../../spectrum/spectrum.js';
 import { describeFailure } from '../cli/run-action.js';
 import { resolveExportPath } from './export-path.js';
@@ -68,6 +70,15 @@ function writeFailure(err: unknown, journalPath: string): string {
   if (e && typeof e.code === 'string' && typeof e.path !== 'string') e.path = journalPath;
   const text = describeFailure(e);
   return text.includes(journalPath) ? text : `${journalPath}: ${text}`;
+}
+
+/** The best candidate's template model for the overlay; null when the spectrum cannot be modelled. */
+function modelOrNull(template: string, z: number, spectrum: Spectrum, options: RemeasureOptions): SpectrumView['templateModel'] {
+  try {
+    return { template, z, flux: toJsonNumbers(templateModelFlux(template, z, spectrum, options)) };
+  } catch {
+    return null;
+  }
 }
 
 function missing(what: string): HostFailure {
@@ -198,7 +209,7 @@ class Handlers implements HostHandlers {
     const verdict = this.verdictsInForce(s).get(id) ?? null;
     if (!result.spectrum) return { id, arrays: null, meta: null, measurement: null, templateModel: null, verdict, error: result.error ?? `${id}: the file could not be read` };
     const best = result.measurement?.best ?? null;
-    const model = null;
+    const model = best ? modelOrNull(best.template, best.z, result.spectrum, options) : null;
     return {
       id,
       arrays: spectrumArrays(result.spectrum),
@@ -224,7 +235,12 @@ class Handlers implements HostHandlers {
 
   async templateModel(req: { id: string; template: string; z: number }): Promise<{ flux: (number | null)[] }> {
     const s = this.requireSession();
-    throw missing('the template model');
+    const spectrum = await this.spectrumOf(s, req.id);
+    try {
+      return { flux: toJsonNumbers(templateModelFlux(req.template, req.z, spectrum, s.optionsFor.get(req.id) ?? {})) };
+    } catch (err) {
+      throw new HostFailure(err instanceof TemplateChoiceError || err instanceof RangeError ? 400 : 422, `${req.id}: ${(err as Error).message}`);
+    }
   }
 
   async derived(req: { id: string; z: number; zErr: number | null }): Promise<FrameResult> {
