@@ -130,6 +130,10 @@ describe('host handlers: spectra and measurements', () => {
     // The new options stick for the next load of that spectrum.
     expect((await h.loadSpectrum({ id: 'KRT-26-0013.fits' })).measurement!.best!.z).toBe(narrow.measurement!.best!.z);
     expect(calls.filter((c) => c.includes('KRT-26-0013.fits'))).toHaveLength(2);
+    // Reopening the same folder (a reload of the window) measures nothing again.
+    await h.openWorklist({ path: folder });
+    await h.loadSpectrum({ id: 'KRT-26-0013.fits' });
+    expect(calls.filter((c) => c.includes('KRT-26-0013.fits'))).toHaveLength(2);
   });
 
   it('fills the list with suggestions in the background', async () => {

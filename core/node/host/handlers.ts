@@ -89,6 +89,8 @@ class Handlers implements HostHandlers {
   private session: Session | null = null;
   /** Serialises journal writes so verdicts reach the disk in the order they were made. */
   private writing: Promise<unknown> = Promise.resolve();
+  /** Measurements under way; closing waits for them rather than killing a busy worker. */
+  private readonly measuring = new Set<Promise<MeasuredFile>>();
 
   constructor(
     private readonly settings: SettingsStore,
@@ -122,15 +124,18 @@ class Handlers implements HostHandlers {
       const refusal = real === null ? 'the file has gone' : isInside(realRoot, real) ? null : 'it links to a file outside the worklist folder, so it is not read';
       entries.set(e.spectrum, { absPath: real ?? e.absPath, refusal });
     }
-    if (this.session) this.session.closed = true;
+    const previous = this.session;
+    if (previous) previous.closed = true;
+    // Reopening the same folder (a reload of the window) keeps what was already measured.
+    const same = previous?.worklist.root === worklist.root ? previous : null;
     const session: Session = {
       worklist,
       entries,
       queued: [],
       lastWriteError: null,
-      cache: new MeasurementCache(),
-      optionsFor: new Map(),
-      hduFor: new Map(),
+      cache: same?.cache ?? new MeasurementCache(),
+      optionsFor: same?.optionsFor ?? new Map(),
+      hduFor: same?.hduFor ?? new Map(),
       closed: false,
     };
     this.session = session;
@@ -176,17 +181,20 @@ class Handlers implements HostHandlers {
 
   // ---- measuring ---------------------------------------------------------------------------
 
-  private measured(s: Session, id: string, options: RemeasureOptions): Promise<MeasuredFile> {
+  private async measured(s: Session, id: string, options: RemeasureOptions): Promise<MeasuredFile> {
     const entry = this.entryOf(s, id);
-    if (entry.refusal) return Promise.resolve({ hdu: null, error: `${id}: ${entry.refusal}`, measurement: null, spectrum: null });
-    return s.cache.get(optionsKey(id, options), async () => {
-      const result = await this.services.measureFile(entry.absPath, { ...options, withCorrelation: true });
-      if (!s.closed) {
-        s.cache.note(id, result);
-        if (result.hdu !== null || !s.hduFor.has(id)) s.hduFor.set(id, result.hdu);
-      }
-      return result;
+    if (entry.refusal) return { hdu: null, error: `${id}: ${entry.refusal}`, measurement: null, spectrum: null };
+    const result = await s.cache.get(optionsKey(id, options), () => {
+      const job = this.services.measureFile(entry.absPath, { ...options, withCorrelation: true });
+      this.measuring.add(job);
+      job.finally(() => this.measuring.delete(job)).catch(() => undefined);
+      return job;
     });
+    if (!s.closed) {
+      s.cache.note(id, result);
+      if (result.hdu !== null || !s.hduFor.has(id)) s.hduFor.set(id, result.hdu);
+    }
+    return result;
   }
 
   /** Measures every spectrum once, one at a time, so the list fills in with suggestions. */
@@ -352,6 +360,7 @@ class Handlers implements HostHandlers {
 
   async close(): Promise<void> {
     if (this.session) this.session.closed = true;
+    await Promise.allSettled([...this.measuring]);
     await this.writing;
     await this.services.close();
   }
