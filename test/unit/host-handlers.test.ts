@@ -107,6 +107,20 @@ describe('host handlers: spectra and measurements', () => {
     expect(JSON.parse(JSON.stringify(view)).arrays.flux).toHaveLength(n);
   });
 
+  it('draws the best template over the spectrum, and any template at any trial z', async () => {
+    const h = handlers();
+    await h.openWorklist({ path: folder });
+    const view = await h.loadSpectrum({ id: 'KRT-26-0013.fits' });
+    const n = view.arrays!.flux.length;
+    expect(view.templateModel).toMatchObject({ template: view.measurement!.best!.template, z: view.measurement!.best!.z });
+    expect(view.templateModel!.flux).toHaveLength(n);
+    const trial = await h.templateModel({ id: 'KRT-26-0013.fits', template: 'passive', z: 0.3 });
+    expect(trial.flux).toHaveLength(n);
+    expect(trial.flux.some((v) => v !== null)).toBe(true);
+    const unknown = await failure(h.templateModel({ id: 'KRT-26-0013.fits', template: 'no-such-template', z: 0.3 }));
+    expect(unknown.status).toBe(400);
+  });
+
   it('shows an unreadable file with its reason in place, not as a failed call', async () => {
     const h = handlers();
     await h.openWorklist({ path: folder });

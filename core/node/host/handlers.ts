@@ -81,10 +81,6 @@ function modelOrNull(template: string, z: number, spectrum: Spectrum, options: R
   }
 }
 
-function missing(what: string): HostFailure {
-  return new HostFailure(503, `${what} is not available in this build yet`);
-}
-
 class Handlers implements HostHandlers {
   private session: Session | null = null;
   /** Serialises journal writes so verdicts reach the disk in the order they were made. */
