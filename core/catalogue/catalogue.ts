@@ -3,7 +3,9 @@
  * list of column definitions. Later steps add columns (frame-corrected z, distances, host
  * diagnostics) by appending definitions to CATALOGUE_COLUMNS or passing their own list.
  */
+import type { FrameResult } from '../astro/frames.js';
 import type { SpectrumMeta } from '../spectrum/spectrum.js';
+import type { HostSummary } from './host-fields.js';
 import type { Cell, ColumnSpec, Table } from './table.js';
 import type { Verdict } from './verdict.js';
 
@@ -19,6 +21,18 @@ export interface CatalogueSource {
   hdu: number | null;
   /** One-line reason the file could not be read, or null. */
   readProblem: string | null;
+  /** What was derived from the verdict's z (derived-columns.ts); absent or null = nothing. */
+  derived?: CatalogueDerived | null;
+}
+
+/** Frame-corrected z and distances, and host diagnostics, at a vetted z; null where not computed. */
+export interface CatalogueDerived {
+  frames: FrameResult | null;
+  /** Why the frames could not be computed, or null. */
+  framesProblem: string | null;
+  host: HostSummary | null;
+  /** Why the host lines could not be measured, or null. */
+  hostProblem: string | null;
 }
 
 export interface CatalogueColumn extends ColumnSpec {

@@ -24,9 +24,11 @@ export function tableToEcsv(table: Table): string {
     header.push(`- {name: ${q(c.name)}${unit}, datatype: ${c.type}, description: ${q(c.description)}}`);
   }
   const meta = Object.entries(table.meta);
-  if (meta.length) {
+  const comments = table.comments ?? [];
+  if (meta.length || comments.length) {
     header.push('meta: !!omap');
     for (const [k, v] of meta) header.push(`- {${q(k)}: ${q(v)}}`);
+    if (comments.length) header.push(`- {comments: [${comments.map(q).join(', ')}]}`);
   }
   header.push('schema: astropy-2.0');
   const lines = header.map((h) => `# ${h}`);

@@ -1,17 +1,34 @@
 /**
  * Catalogue as a FITS binary table (one row per spectrum) in the first extension,
  * EXTNAME = 'CATALOGUE': float64 → D, int64 → K, bool → L, text → A (TUNITn units, each
- * column's description in the comment of its TTYPEn card, table meta as header keywords).
+ * column's description in the comment of its TTYPEn card, table meta as header keywords, the
+ * table's comments as COMMENT cards wrapped at word boundaries).
  * FITS text is printable ASCII, so other characters are written as '?'; the CSV and ECSV
  * exports keep the full text.
  */
 import { writeFits, type ColumnFormat } from '../fits/write.js';
 import { checkTable, type ColumnType, type Table } from './table.js';
 
+const COMMENT_WIDTH = 72;
 const FORMATS: Record<ColumnType, ColumnFormat> = { float64: 'D', int64: 'K', bool: 'L', string: 'A' };
 
 function asciiOnly(text: string): string {
   return text.replace(/[^\x20-\x7e]/g, '?');
+}
+
+/** COMMENT card texts (at most 72 characters, FITS Standard 4.0 §4.4.2.4), broken between words. */
+function commentLines(text: string): string[] {
+  const lines: string[] = [];
+  let line = '';
+  for (const word of asciiOnly(text).split(/\s+/).filter(Boolean)) {
+    if (line && line.length + 1 + word.length > COMMENT_WIDTH) {
+      lines.push(line);
+      line = '';
+    }
+    line = line ? `${line} ${word}` : word;
+  }
+  if (line) lines.push(line);
+  return lines;
 }
 
 export function tableToFits(table: Table): Uint8Array {
@@ -23,6 +40,7 @@ export function tableToFits(table: Table): Uint8Array {
       cards: [
         { key: 'EXTNAME', value: 'CATALOGUE' },
         ...Object.entries(table.meta).map(([key, value]) => ({ key: key.toUpperCase(), value: asciiOnly(value) })),
+        ...(table.comments ?? []).flatMap(commentLines).map((comment) => ({ key: 'COMMENT', comment })),
       ],
       columns: table.columns.map((c, i) => ({
         name: c.name,

@@ -26,6 +26,11 @@ export interface Table {
    * are at most 8 characters a–z 0–9 _ - so that FITS can hold them as keywords.
    */
   meta: Record<string, string>;
+  /**
+   * Caveats for whoever reads the file, one sentence each: ECSV meta `comments` and FITS
+   * COMMENT cards (where astropy's Table.read puts both, as meta['comments']).
+   */
+  comments?: string[];
 }
 
 /** Throws when a cell does not fit its column's datatype (a programming error). */

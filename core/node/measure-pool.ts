@@ -7,10 +7,13 @@ import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
+import type { CosmologyModel } from '../astro/cosmology.js';
+import type { MeasureRowExtras } from '../catalogue/measure-derived-columns.js';
 import type { Measurement, MeasureOptions } from '../redshift/types.js';
 import type { Spectrum } from '../spectrum/spectrum.js';
 
-export interface MeasureFileResult {
+/** Carries the spectrum's metadata always, and host diagnostics when asked for. */
+export interface MeasureFileResult extends MeasureRowExtras {
   file: string;
   hdu: number | null;
   status: 'ok' | 'error';
@@ -34,6 +37,8 @@ export interface WorkerRequest {
   path: string;
   options: MeasureOptions;
   includeSpectrum: boolean;
+  /** Measure the host lines at the best z, with this cosmology for the SFR; null = don't. */
+  hostLines: { cosmology: CosmologyModel } | null;
 }
 
 export interface WorkerReply {
@@ -78,11 +83,11 @@ export class MeasurePool {
     for (let i = 0; i < jobs; i++) this.slots.push(this.spawn());
   }
 
-  measureFile(path: string, options: MeasureOptions & { includeSpectrum?: boolean } = {}): Promise<MeasureFileResult> {
+  measureFile(path: string, options: MeasureOptions & { includeSpectrum?: boolean; hostLines?: { cosmology: CosmologyModel } } = {}): Promise<MeasureFileResult> {
     if (this.closed) return Promise.reject(new Error('MeasurePool is closed'));
-    const { includeSpectrum, ...measureOptions } = options;
+    const { includeSpectrum, hostLines, ...measureOptions } = options;
     return new Promise((resolve) => {
-      this.queue.push({ req: { id: this.nextId++, path, options: measureOptions, includeSpectrum: !!includeSpectrum }, resolve });
+      this.queue.push({ req: { id: this.nextId++, path, options: measureOptions, includeSpectrum: !!includeSpectrum, hostLines: hostLines ?? null }, resolve });
       this.dispatch();
     });
   }

@@ -1,8 +1,11 @@
 /**
  * Worker thread of MeasurePool: reads a spectrum file itself, measures it and posts the result
- * back; the spectrum's arrays are transferred, not copied, when the caller wants them.
+ * back with the spectrum's metadata (and, when asked, the host lines at the best z); the
+ * spectrum's arrays are transferred, not copied, when the caller wants them.
  */
 import { parentPort } from 'node:worker_threads';
+import { summariseHost } from '../catalogue/host-fields.js';
+import { analyseHost } from '../hosts/analyse.js';
 import { measureRedshift, type StageTimes } from '../redshift/measure.js';
 import type { MeasureOptions } from '../redshift/types.js';
 import { SpectrumReadError, type Spectrum } from '../spectrum/spectrum.js';
@@ -21,7 +24,8 @@ port.on('message', async (req: WorkerRequest) => {
     spectrum = await readSpectrumFile(req.path);
     times.readMs = performance.now() - t0;
     const measurement = measureRedshift(spectrum, req.options as MeasureOptions, times);
-    result = { file: req.path, hdu: spectrum.provenance.hdu, status: 'ok', error: null, measurement };
+    result = { file: req.path, hdu: spectrum.provenance.hdu, status: 'ok', error: null, measurement, meta: spectrum.meta };
+    if (req.hostLines) Object.assign(result, hostLinesAt(spectrum, measurement.best?.z, req.hostLines));
   } catch (err) {
     if (!times.readMs) times.readMs = performance.now() - t0;
     result = { file: req.path, hdu: spectrum?.provenance.hdu ?? null, status: 'error', error: oneLine(err), measurement: null };
@@ -41,6 +45,15 @@ port.on('message', async (req: WorkerRequest) => {
     port.postMessage(reply);
   }
 });
+
+function hostLinesAt(spectrum: Spectrum, z: number | undefined, options: NonNullable<WorkerRequest['hostLines']>): Pick<MeasureFileResult, 'lines' | 'linesNote'> {
+  if (z === undefined) return { lines: null, linesNote: 'no redshift to measure the lines at' };
+  try {
+    return { lines: summariseHost(analyseHost(spectrum, z, options)), linesNote: null };
+  } catch (err) {
+    return { lines: null, linesNote: `lines not measured: ${oneLine(err)}` };
+  }
+}
 
 function oneLine(err: unknown): string {
   const text = err instanceof SpectrumReadError ? err.reason : err instanceof Error ? err.message : String(err);

@@ -1,18 +1,27 @@
 /**
- * `zvet export WORKLIST --format csv|ecsv|fits --out FILE`: the worklist's catalogue, one row
- * per spectrum (pending and unreadable ones included), written atomically. WORKLIST is the
- * folder (or one spectrum file); its journal supplies the verdicts.
+ * `zvet export WORKLIST --format csv|ecsv|fits --out FILE [--site NAME] [--preset NAME | --h0 H
+ * --om M --ol L]`: the worklist's catalogue, one row per spectrum (pending and unreadable ones
+ * included), with the frame-corrected z, distances and host diagnostics of every vetted z,
+ * written atomically. WORKLIST is the folder (or one spectrum file); its journal supplies the
+ * verdicts.
  */
 import type { Command } from 'commander';
 import { CATALOGUE_FORMATS, formatFromFileName, type CatalogueFormat } from '../../catalogue/export.js';
 import { exportCatalogue } from '../export-catalogue.js';
 import { Worklist } from '../worklist.js';
+import { COSMOLOGY_OPTION_HELP, modelFromOptions } from './cosmo.js';
 import { runAction } from './run-action.js';
+import { SITE_OPTION_HELP, siteOption } from './site-option.js';
 import { UsageError } from './usage-error.js';
 
 interface ExportOptions {
   format?: string;
   out: string;
+  site?: string;
+  preset?: string;
+  h0?: string;
+  om?: string;
+  ol?: string;
 }
 
 function chooseFormat(opts: ExportOptions): CatalogueFormat {
@@ -29,11 +38,18 @@ export function registerExport(program: Command): void {
     .argument('<worklist>', 'worklist folder (its <name>.verdicts.jsonl holds the verdicts)')
     .option('--format <format>', `catalogue format: ${CATALOGUE_FORMATS.join(', ')} (default: from the --out file ending)`)
     .requiredOption('--out <file>', 'catalogue file to write (replaced atomically)')
+    .option('--site <name>', SITE_OPTION_HELP)
+    .option('--preset <name>', COSMOLOGY_OPTION_HELP.preset)
+    .option('--h0 <km/s/Mpc>', COSMOLOGY_OPTION_HELP.h0)
+    .option('--om <Ωm>', COSMOLOGY_OPTION_HELP.om)
+    .option('--ol <ΩΛ>', COSMOLOGY_OPTION_HELP.ol)
     .action(runAction(async (worklistPath: string, opts: ExportOptions) => {
       const format = chooseFormat(opts);
+      const cosmology = modelFromOptions(opts);
+      const site = siteOption(opts.site);
       const worklist = await Worklist.open(worklistPath);
       for (const w of worklist.journal.warnings) process.stderr.write(`zvet: warning: ${w}\n`);
-      const r = await exportCatalogue(worklist, format, opts.out);
+      const r = await exportCatalogue(worklist, format, opts.out, { cosmology, site });
       process.stdout.write(`wrote ${r.rows} rows to ${r.path} (${format}): ${r.vetted} vetted, ${r.pending} pending, ${r.unreadable} unreadable\n`);
     }));
 }

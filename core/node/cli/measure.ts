@@ -1,15 +1,19 @@
 /**
  * `zvet measure PATH... [--out FILE|-] [--format csv|jsonl] [--jobs N] [--templates LIST]
- * [--zmin Z] [--zmax Z] [--line-list FILE] [--template-spectrum FILE]`: automatic redshift
- * candidates for every spectrum file (folders: every spectrum file below them), measured in
- * parallel, one row per input in input order, streamed. Exit 0 when all were measured, 1 when
- * some failed, 2 for usage errors. Automatic redshifts are suggestions until vetted.
+ * [--zmin Z] [--zmax Z] [--line-list FILE] [--template-spectrum FILE] [--site NAME]
+ * [--preset NAME | --h0 H --om M --ol L] [--lines]`: automatic redshift candidates for every
+ * spectrum file (folders: every spectrum file below them), measured in parallel, one row per
+ * input in input order, streamed; each row also has the best z in the barycentric (or
+ * heliocentric) and CMB frames with distances, and with --lines the host diagnostics at that z.
+ * Exit 0 when all were measured, 1 when some failed, 2 for usage errors. Automatic redshifts
+ * are suggestions until vetted.
  */
 import { SingleBar } from 'cli-progress';
 import type { Command } from 'commander';
 import { createWriteStream } from 'node:fs';
 import { readFile } from 'node:fs/promises';
 import { basename } from 'node:path';
+import { MEASURE_LINE_COLUMNS, measureFrameColumns } from '../../catalogue/measure-derived-columns.js';
 import { csvCells, csvHeader, csvLine, jsonlLine, MEASURE_COLUMNS, type MeasureColumn } from '../../redshift/measure-columns.js';
 import { resolveTemplates, TemplateChoiceError } from '../../redshift/template-set.js';
 import type { MeasureOptions } from '../../redshift/types.js';
@@ -17,6 +21,8 @@ import { LineListError, parseUserLineList } from '../../redshift/user-line-list.
 import { MeasurePool, type MeasureFileResult } from '../measure-pool.js';
 import { readSpectrumFile } from '../read-spectrum-file.js';
 import { listSpectrumFiles } from '../spectrum-files.js';
+import { COSMOLOGY_OPTION_HELP, modelFromOptions } from './cosmo.js';
+import { SITE_OPTION_HELP, siteOption } from './site-option.js';
 import { EXIT_OK, EXIT_SOME_FAILED, runAction } from './run-action.js';
 import { UsageError } from './usage-error.js';
 
@@ -30,6 +36,12 @@ interface MeasureCliOptions {
   lineList?: string;
   templateSpectrum?: string[];
   stageTimes?: boolean;
+  site?: string;
+  preset?: string;
+  h0?: string;
+  om?: string;
+  ol?: string;
+  lines?: boolean;
 }
 
 /** Files submitted ahead of the one being written, per job (keeps memory flat). */
@@ -48,11 +60,19 @@ export function registerMeasure(program: Command, columns: MeasureColumn[] = MEA
     .option('--zmax <z>', 'highest redshift searched (galaxy and QSO templates)')
     .option('--line-list <file>', 'extra template from a JSON line list (rest-frame vacuum Å)')
     .option('--template-spectrum <file...>', 'extra templates from rest-frame spectra (any file zvet reads)')
+    .option('--site <name>', SITE_OPTION_HELP)
+    .option('--preset <name>', COSMOLOGY_OPTION_HELP.preset)
+    .option('--h0 <km/s/Mpc>', COSMOLOGY_OPTION_HELP.h0)
+    .option('--om <Ωm>', COSMOLOGY_OPTION_HELP.om)
+    .option('--ol <ΩΛ>', COSMOLOGY_OPTION_HELP.ol)
+    .option('--lines', 'also measure the host lines at the best z: Hα, Hβ, [O III], [N II] fluxes, BPT class, E(B−V), SFR')
     .option('--stage-times', 'print the time spent per stage (read, preprocess, correlate, refine) to standard error')
     .action(runAction(async (paths: string[], opts: MeasureCliOptions) => measure(paths, opts, columns)));
 }
 
-async function measure(paths: string[], opts: MeasureCliOptions, columns: MeasureColumn[]): Promise<number> {
+async function measure(paths: string[], opts: MeasureCliOptions, baseColumns: MeasureColumn[]): Promise<number> {
+  const cosmology = modelFromOptions(opts);
+  const columns = [...baseColumns, ...measureFrameColumns({ site: siteOption(opts.site), cosmology }), ...(opts.lines ? MEASURE_LINE_COLUMNS : [])];
   const format = opts.format ?? (opts.out && opts.out.endsWith('.jsonl') ? 'jsonl' : 'csv');
   if (format !== 'csv' && format !== 'jsonl') throw new UsageError(`--format: "${format}" is not csv or jsonl`);
   const jobs = opts.jobs === undefined ? undefined : positiveInt(opts.jobs, '--jobs');
@@ -103,7 +123,7 @@ async function measure(paths: string[], opts: MeasureCliOptions, columns: Measur
   try {
     if (format === 'csv') await write(csvLine(csvHeader(columns)));
     for (let i = 0; i < files.length; i++) {
-      while (submitted < files.length && submitted < i + ahead) pending.push(pool.measureFile(files[submitted++], options));
+      while (submitted < files.length && submitted < i + ahead) pending.push(pool.measureFile(files[submitted++], { ...options, hostLines: opts.lines ? { cosmology } : undefined }));
       const result = await pending.shift()!;
       if (result.status !== 'ok') failed++;
       await write(format === 'csv' ? csvLine(csvCells(columns, result)) : jsonlLine(columns, result));
@@ -118,6 +138,8 @@ async function measure(paths: string[], opts: MeasureCliOptions, columns: Measur
     await pool.close();
     if (out !== process.stdout) await new Promise<void>((resolve) => (out as NodeJS.WritableStream).end(resolve));
   }
+  // The last line on standard error says how the batch went, so a long run ends with its tally.
+  process.stderr.write(`${files.length} spectra: ${files.length - failed} measured, ${failed} failed\n`);
   return failed ? EXIT_SOME_FAILED : EXIT_OK;
 }
 
