@@ -123,9 +123,16 @@ const view: View = {
 
 controller = new Controller(api, view);
 
+// A mouse click must not leave a button focused: Enter would then press that button again
+// instead of saving the trial z. Tab still focuses buttons for keyboard users.
+document.addEventListener('mousedown', (e) => {
+  if ((e.target as HTMLElement).closest('button, input[type="checkbox"]')) e.preventDefault();
+});
+
 document.addEventListener('keydown', (e) => {
   const target = e.target as HTMLElement;
-  if (target.matches('input, textarea, select')) return;
+  if (target.matches('textarea, select, input:not([type="checkbox"])')) return;
+  if (target.matches('button, input[type="checkbox"]') && (e.key === 'Enter' || e.key === ' ')) return;
   if (controller.s.modal === 'line-pick' && /^[1-9]$/.test(e.key)) {
     e.preventDefault();
     controller.chooseLine(Number(e.key) - 1);

@@ -14,7 +14,7 @@ export function renderSaveState(state: AppState, line: HTMLElement, banner: HTML
   banner.hidden = !failed;
   if (failed) {
     fill(banner,
-      el('span', {}, `⚠ NOT SAVED — ${failed.input.id}: ${failed.reason}. ${state.saves.length} verdict${state.saves.length === 1 ? ' is' : 's are'} kept in the queue.`),
+      el('span', {}, `⚠ NOT SAVED — ${failed.input.id}: ${failed.reason}. The window keeps ${state.saves.length === 1 ? 'it' : `these ${state.saves.length}`} queued until a write succeeds.`),
       el('button', { type: 'button', onclick: onRetry }, 'Retry now', el('kbd', {}, '⇧R')));
   }
 }

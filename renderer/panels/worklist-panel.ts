@@ -17,7 +17,7 @@ export function confidenceBadge(c: Parameters<typeof confidenceText>[0]): HTMLEl
   return el('span', { class: 'conf', style: `color:${look.colour}` }, el('span', { class: 'shape', 'aria-hidden': 'true' }, look.shape), look.text);
 }
 
-function row(item: SpectrumListItem, current: boolean, savingIds: Set<string>, onPick: (id: string) => void): HTMLElement {
+function row(item: SpectrumListItem, current: boolean, saving: Map<string, string>, onPick: (id: string) => void): HTMLElement {
   const v = item.verdict && item.verdict.status !== 'pending' ? item.verdict : null;
   const status = item.error ? { glyph: '⚠', word: 'unreadable' } : STATUS_GLYPH[v?.status ?? 'pending'];
   const zText = v ? (v.status === 'no-redshift' ? 'no z' : fmtZ(v.z, 4)) : item.suggestion ? `${fmtZ(item.suggestion.z, 4)}?` : '';
@@ -33,7 +33,7 @@ function row(item: SpectrumListItem, current: boolean, savingIds: Set<string>, o
   el('span', { class: 'status', 'aria-label': status.word }, status.glyph),
   el('span', { class: 'name' }, item.id),
   el('span', { class: v ? 'z' : 'z muted' }, zText),
-  el('span', { class: 'sub' }, ...(Array.isArray(sub) ? sub : [sub]), savingIds.has(item.id) ? el('span', { class: 'muted' }, 'saving…') : null));
+  el('span', { class: 'sub' }, ...(Array.isArray(sub) ? sub : [sub]), saving.has(item.id) ? el('span', { class: saving.get(item.id) === 'failed' ? 'problem' : 'muted' }, saving.get(item.id) === 'failed' ? 'NOT SAVED' : 'saving…') : null));
 }
 
 export function renderWorklist(state: AppState, parts: { filters: HTMLElement; items: HTMLElement; progress: HTMLElement; name: HTMLElement; warnings: HTMLElement }, on: { filter(f: WorklistFilter): void; pick(id: string): void }): void {
@@ -43,9 +43,9 @@ export function renderWorklist(state: AppState, parts: { filters: HTMLElement; i
   fill(parts.filters, ...FILTERS.map((f) => el('button', { type: 'button', 'aria-pressed': state.filter === f ? 'true' : 'false', onclick: () => on.filter(f) }, `${f} ${counts.get(f)}`)));
   const { vetted, total } = progress(wl?.items ?? []);
   fill(parts.progress, el('span', { class: 'bar', 'aria-hidden': 'true' }, el('span', { style: `width:${total ? (100 * vetted) / total : 0}%` })), `${vetted} of ${total} vetted`);
-  const savingIds = new Set(state.saves.map((q) => q.input.id));
+  const saving = new Map(state.saves.map((q) => [q.input.id, q.state]));
   const shown = (wl?.items ?? []).filter((it) => passesFilter(it, state.filter));
-  fill(parts.items, ...(shown.length ? shown.map((it) => row(it, it.id === state.currentId, savingIds, on.pick)) : [el('li', { class: 'empty' }, wl ? `no spectra are ${state.filter}` : 'no worklist open')]));
+  fill(parts.items, ...(shown.length ? shown.map((it) => row(it, it.id === state.currentId, saving, on.pick)) : [el('li', { class: 'empty' }, wl ? `no spectra are ${state.filter}` : 'no worklist open')]));
   parts.items.querySelector('[aria-current="true"]')?.scrollIntoView({ block: 'nearest' });
   fill(parts.warnings, ...(wl?.warnings ?? []).map((w) => el('p', {}, `⚠ ${w}`)));
 }

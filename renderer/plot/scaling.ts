@@ -1,8 +1,8 @@
 /** Display scaling: a y range that ignores spikes, and a template scaled onto the flux. */
 
 /**
- * Flux range of the pixels inside [lo, hi] from the 1st to the 99.5th percentile, widened by a
- * quarter above and below so that line labels have room (common practice, no source).
+ * Flux range of the pixels inside [lo, hi] from the 1st to the 99.5th percentile, widened above
+ * and below so that the data sit in the middle band between the rows of line labels.
  */
 export function robustRange(flux: readonly (number | null)[], wave: readonly (number | null)[], lo: number, hi: number): [number, number] {
   const inside: number[] = [];
@@ -17,7 +17,7 @@ export function robustRange(flux: readonly (number | null)[], wave: readonly (nu
   const bottom = at(0.01);
   const top = at(0.995);
   const span = top - bottom || Math.abs(top) || 1;
-  return [bottom - 0.25 * span, top + 0.3 * span];
+  return [bottom - 0.35 * span, top + 0.4 * span];
 }
 
 /** The template multiplied by the least-squares factor a = Σ f·t / Σ t² over good pixels. */

@@ -34,7 +34,10 @@ export interface SpectrumFigure {
   fullRange: [number, number];
 }
 
-const LABEL_ROW_STEP = 0.055;
+/** Label rows step down from the top (and up from the bottom) in this fraction of the plot height. */
+const LABEL_ROW_STEP = 0.05;
+/** Marker lines span the middle band only, so that they never run through a label. */
+const LINE_BAND: [number, number] = [0.21, 0.79];
 
 export function fullWaveRange(wave: readonly (number | null)[]): [number, number] {
   let lo = Infinity;
@@ -59,7 +62,7 @@ export function markerTraces(markers: readonly LineMarker[]): Data[] {
   for (const kind of ['emission', 'absorption', 'both'] as const) {
     const x: (number | null)[] = [];
     const y: (number | null)[] = [];
-    for (const m of markers) if (m.kind === kind) for (const w of m.observedWaveAngstrom) x.push(w, w, null), y.push(0, 1, null);
+    for (const m of markers) if (m.kind === kind) for (const w of m.observedWaveAngstrom) x.push(w, w, null), y.push(LINE_BAND[0], LINE_BAND[1], null);
     if (x.length === 0) continue;
     traces.push({ type: 'scatter', mode: 'lines', x, y, yaxis: 'y2', name: `${MARKER_STYLE[kind].glyph} ${kind === 'both' ? 'Balmer' : kind} lines`, showlegend: false, hoverinfo: 'skip', line: { color: THEME[kind], width: 1, dash: MARKER_STYLE[kind].dash }, opacity: 0.75 });
   }

@@ -4,7 +4,7 @@
 // and the catalogue is exported in all three formats and read back with astropy (ECSV, FITS) and
 // checked by fitsverify (FITS). No request may leave 127.0.0.1. Screenshots go to test-artifacts/.
 import { execFileSync } from 'node:child_process';
-import { cpSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { cpSync, mkdirSync, mkdtempSync, readFileSync, renameSync, rmdirSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -153,6 +153,8 @@ describe('vetting in the window', () => {
     await page.waitForSelector('#bpt-plot .main-svg');
     expect(await page.locator('#aperture-caveat').textContent()).toContain('aperture');
     await shot('host-panel');
+    await page.locator('#aperture-caveat').scrollIntoViewIfNeeded();
+    await shot('host-panel-lines');
     await press('d');
   });
 
@@ -162,6 +164,38 @@ describe('vetting in the window', () => {
     expect((await savedAs('no-redshift')).z).toBeNull();
     vetted['KRT-26-0021.fits'] = { status: 'no-redshift', z: null };
     expect(await page.locator('#progress').textContent()).toContain('4 of 13 vetted');
+  });
+
+  it('undoes the last verdict and takes it again', async () => {
+    await press('u');
+    await page.waitForFunction(() => document.getElementById('verdict-now')?.textContent?.startsWith('pending'));
+    expect(await page.locator('#progress').textContent()).toContain('3 of 13 vetted');
+    await press('x');
+    await savedAs('no-redshift');
+  });
+
+  it('shows a failed journal write loudly, keeps it queued, and saves it on retry', async () => {
+    const journal = join(tmp, 'night', 'night.verdicts.jsonl');
+    renameSync(journal, `${journal}.aside`);
+    mkdirSync(journal); // appending to a folder fails: EISDIR
+    await press('Shift+G');
+    await page.waitForSelector('#save-failure:not([hidden])');
+    const banner = (await page.locator('#save-failure').textContent()) ?? '';
+    expect(banner).toContain('NOT SAVED');
+    expect(banner).toContain('KRT-26-0021.fits');
+    expect(await page.locator('#verdict-now').textContent()).toContain('NOT SAVED');
+    await shot('save-failed');
+    rmdirSync(journal);
+    renameSync(`${journal}.aside`, journal);
+    await press('Shift+R');
+    await page.waitForSelector('#save-failure', { state: 'hidden' });
+    await savedAs('no-redshift');
+    expect(await page.locator('.save-state .saved').textContent()).toContain('KRT-26-0021.fits');
+    // Journal records (core/catalogue/journal-format.ts): the last one for this spectrum is the regraded verdict.
+    const records = readFileSync(journal, 'utf8').trim().split('\n').map((l) => JSON.parse(l));
+    const last = records.filter((r) => (r.kind === 'verdict' ? r.verdict.spectrum : r.spectrum) === 'KRT-26-0021.fits').at(-1);
+    expect(last.kind).toBe('verdict');
+    expect(last.verdict).toMatchObject({ status: 'no-redshift', objectClass: 'galaxy' });
   });
 
   it('shows why an unreadable file cannot be read, in place', async () => {
