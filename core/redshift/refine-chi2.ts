@@ -1,10 +1,13 @@
 /**
- * Refinement of an absorption redshift: χ² of the best-scaled template against the spectrum on
- * a fine z grid around the correlation peak, on the native pixels with the error spectrum; the
+ * Refinement of an absorption redshift: χ² of the template against the spectrum on a fine z
+ * grid around the correlation peak, on the native pixels with the error spectrum, each line (or
+ * tied doublet) with its own amplitude of the template's sign, so that line ratios unlike the
+ * template's do not masquerade as a poor redshift; the
  * minimum and its error from a parabola through the lowest points, Δχ² = 1 (e.g. Press et al.,
  * Numerical Recipes, §15.6), scaled by √χ²_red when that exceeds 1.
  */
 import { pixelsNearLines, type NativeResidual } from './native-residual.js';
+import { nonNegativeFit, templateBasis } from './template-basis.js';
 import type { Template } from './templates.js';
 
 /** Grid points either side of the start z. */
@@ -24,25 +27,23 @@ export function fitTemplateChi2(nr: NativeResidual, template: Template, z0: numb
   const y = Float64Array.from(idx, (i) => nr.resid[i]);
   const w = Float64Array.from(idx, (i) => 1 / (nr.sigma[i] * nr.sigma[i]));
   const rest = new Float64Array(wave.length);
-  const t = new Float64Array(wave.length);
+  const model = new Float64Array(wave.length);
   const dz = halfRangeZ / HALF_STEPS;
   const zs: number[] = [];
   const chi: number[] = [];
-  let syy = 0;
-  for (let k = 0; k < y.length; k++) syy += w[k] * y[k] * y[k];
+  let nFree = 1;
   for (let s = -HALF_STEPS; s <= HALF_STEPS; s++) {
     const z = z0 + s * dz;
     for (let k = 0; k < wave.length; k++) rest[k] = wave[k] / (1 + z);
-    t.fill(0);
-    template.evaluate(rest, nr.pixelKmS, t);
-    let sty = 0, stt = 0;
-    for (let k = 0; k < t.length; k++) {
-      sty += w[k] * t[k] * y[k];
-      stt += w[k] * t[k] * t[k];
-    }
+    const { basis } = templateBasis(template, rest, nr.pixelKmS);
+    const amplitude = nonNegativeFit(basis, y, w, basis.map((_, g) => g));
+    model.fill(0);
+    for (let g = 0; g < basis.length; g++) if (amplitude[g] > 0) for (let k = 0; k < model.length; k++) model[k] += amplitude[g] * basis[g][k];
+    let c = 0;
+    for (let k = 0; k < y.length; k++) c += w[k] * (y[k] - model[k]) ** 2;
     zs.push(z);
-    // Amplitude fitted freely but only with the template's sign.
-    chi.push(stt > 0 && sty > 0 ? syy - (sty * sty) / stt : syy);
+    chi.push(c);
+    nFree = 1 + basis.length;
   }
   let kMin = 0;
   for (let k = 1; k < chi.length; k++) if (chi[k] < chi[kMin]) kMin = k;
@@ -51,7 +52,7 @@ export function fitTemplateChi2(nr: NativeResidual, template: Template, z0: numb
   if (!(a > 0)) return null;
   const z = -b / (2 * a);
   const chiMin = c - (b * b) / (4 * a);
-  const chi2Red = Math.max(chiMin, 0) / Math.max(1, y.length - 2);
+  const chi2Red = Math.max(chiMin, 0) / Math.max(1, y.length - nFree);
   const zErr = (1 / Math.sqrt(a)) * Math.sqrt(Math.max(1, chi2Red));
   return { z, zErr, chi2Red, nLinesFitted: template.lines.length };
 }

@@ -1,15 +1,15 @@
 /**
  * Refinement of an emission-line redshift: a joint fit of Gaussian lines at one common z with
- * the error spectrum (Levenberg–Marquardt, ml-levenberg-marquardt). Parameters: velocity
+ * the error spectrum (Levenberg–Marquardt on the analytic Jacobian, lm-fit.ts). Parameters: velocity
  * offset v (km/s), one σ for narrow and one for broad lines (km/s), and one amplitude per line
  * or tied doublet. The covariance is (Jᵀ W J)⁻¹ at the solution (e.g. Press et al., Numerical
  * Recipes, §15.5), scaled by χ²_red when that exceeds 1.
  */
-import { levenbergMarquardt } from 'ml-levenberg-marquardt';
 import { lineGroups } from './line-groups.js';
+import { lmFit } from './lm-fit.js';
 import { invert, normalMatrix } from './linalg.js';
 import { pixelsNearLines, type NativeResidual } from './native-residual.js';
-import type { ProfileLine, Template } from './templates.js';
+import { lowerBound, type ProfileLine, type Template } from './templates.js';
 
 const C_KMS = 299792.458;
 const SQRT_2PI = Math.sqrt(2 * Math.PI);
@@ -17,6 +17,8 @@ const SQRT_2PI = Math.sqrt(2 * Math.PI);
 const BROAD_KMS = 600;
 /** A fit that wanders further than this from the correlation z is rejected, km/s. */
 const MAX_SHIFT_KMS = 1500;
+/** A line's profile is evaluated out to this many σ (e^(−32) beyond: nothing left). */
+const PROFILE_REACH = 8;
 
 export interface LineFit {
   z: number;
@@ -49,71 +51,56 @@ export function fitEmissionLines(nr: NativeResidual, template: Template, z0: num
   const broad0 = broadLines.length ? Math.min(...broadLines.map((l) => l.sigmaKmS)) : 1000;
   const inst = nr.pixelKmS;
 
-  // Parameters: [v, σ_narrow, σ_broad, A_0 … A_(g−1)].
-  const basis = (p: number[], xi: number, comp: Component): { g: number; dv: number; ds: number } => {
+  const nP = 3 + nGroups;
+  const xs = Float64Array.from(x), ys = Float64Array.from(y), ws = Float64Array.from(w);
+  // Parameters: [v, σ_narrow, σ_broad, A_0 … A_(g−1)]. Each line touches only the points within
+  // PROFILE_REACH of its centre, found by bisection in the sorted wavelengths.
+  const evaluate = (p: Float64Array, model: Float64Array, jac: Float64Array | null): void => {
+    model.fill(0);
     const zf = (1 + z0) * (1 + p[0] / C_KMS);
-    const c = comp.line.waveRestAngstrom * zf;
-    const sv = comp.broad ? p[2] : p[1];
-    const stot = Math.hypot(sv, inst);
-    const s = (c * stot) / C_KMS;
-    const u = (xi - c) / s;
-    const g = (comp.ratio * Math.exp(-0.5 * u * u)) / (s * SQRT_2PI);
-    // ∂g/∂c = g·u/s, ∂c/∂v = λ_rest(1+z0)/c; ∂g/∂s = g(u² − 1)/s, ∂s/∂σv = c·σv/(C·stot)
-    const dv = ((g * u) / s) * ((comp.line.waveRestAngstrom * (1 + z0)) / C_KMS);
-    const ds = ((g * (u * u - 1)) / s) * ((c * sv) / (C_KMS * stot));
-    return { g, dv, ds };
-  };
-  const model = (p: number[]) => (xi: number) => {
-    let f = 0;
-    for (const comp of comps) f += p[3 + comp.group] * basis(p, xi, comp).g;
-    return f;
-  };
-  const jacobian = (p: number[]) => (xi: number) => {
-    const row = new Array<number>(3 + nGroups).fill(0);
     for (const comp of comps) {
-      const b = basis(p, xi, comp);
-      const a = p[3 + comp.group];
-      row[0] += a * b.dv;
-      row[comp.broad ? 2 : 1] += a * b.ds;
-      row[3 + comp.group] += b.g;
+      const c = comp.line.waveRestAngstrom * zf;
+      const sv = comp.broad ? p[2] : p[1];
+      const stot = Math.hypot(sv, inst);
+      const sA = (c * stot) / C_KMS;
+      const amp = p[3 + comp.group];
+      const norm = comp.ratio / (sA * SQRT_2PI);
+      // ∂g/∂c = g·u/s, ∂c/∂v = λ_rest(1+z0)/c; ∂g/∂s = g(u² − 1)/s, ∂s/∂σv = c·σv/(C·stot)
+      const dcdv = (comp.line.waveRestAngstrom * (1 + z0)) / C_KMS, dsdsv = (c * sv) / (C_KMS * stot);
+      const jS = comp.broad ? 2 : 1, jA = 3 + comp.group;
+      const end = c + PROFILE_REACH * sA;
+      for (let k = lowerBound(xs, c - PROFILE_REACH * sA); k < xs.length && xs[k] <= end; k++) {
+        const u = (xs[k] - c) / sA;
+        const g = norm * Math.exp(-0.5 * u * u);
+        model[k] += amp * g;
+        if (jac) {
+          const row = k * nP;
+          jac[row] += amp * ((g * u) / sA) * dcdv;
+          jac[row + jS] += amp * ((g * (u * u - 1)) / sA) * dsdsv;
+          jac[row + jA] += g;
+        }
+      }
     }
-    return row;
   };
-  const start = [0, narrow0, broad0, ...initialAmplitudes(x, y, w, comps, nGroups, (xi, c) => basis([0, narrow0, broad0], xi, c).g)];
+  const gaussian = (xi: number, comp: Component): number => {
+    const c = comp.line.waveRestAngstrom * (1 + z0);
+    const sA = (c * Math.hypot(comp.broad ? broad0 : narrow0, inst)) / C_KMS;
+    const u = (xi - c) / sA;
+    return (comp.ratio * Math.exp(-0.5 * u * u)) / (sA * SQRT_2PI);
+  };
+  const start = Float64Array.from([0, narrow0, broad0, ...initialAmplitudes(x, y, w, comps, nGroups, gaussian)]);
   const fixedBroad = broadLines.length === 0;
   const fixedNarrow = inRange.every((l) => l.sigmaKmS > BROAD_KMS);
-  let p: number[];
-  try {
-    const res = levenbergMarquardt({ x, y }, model, {
-      initialValues: start,
-      weights: w,
-      jacobianFunction: jacobian,
-      minValues: [-MAX_SHIFT_KMS * 2, fixedNarrow ? narrow0 : 5, fixedBroad ? broad0 : 300, ...start.slice(3).map(() => -Infinity)],
-      maxValues: [MAX_SHIFT_KMS * 2, fixedNarrow ? narrow0 : BROAD_KMS, fixedBroad ? broad0 : 6000, ...start.slice(3).map(() => Infinity)],
-      // errorTolerance is an absolute χ² that noisy data never reach; the start is already close.
-      maxIterations: 12,
-      errorTolerance: 1e-12,
-      damping: 1e-2,
-    });
-    p = res.parameterValues;
-  } catch {
-    return null;
-  }
+  const lower = Float64Array.from([-MAX_SHIFT_KMS * 2, fixedNarrow ? narrow0 : 5, fixedBroad ? broad0 : 300, ...new Array<number>(nGroups).fill(-Infinity)]);
+  const upper = Float64Array.from([MAX_SHIFT_KMS * 2, fixedNarrow ? narrow0 : BROAD_KMS, fixedBroad ? broad0 : 6000, ...new Array<number>(nGroups).fill(Infinity)]);
+  const fit = lmFit({ y: ys, w: ws, lower, upper, evaluate }, start);
+  const p = fit.p;
   if (!p.every(Number.isFinite) || Math.abs(p[0]) > MAX_SHIFT_KMS) return null;
-  const f = model(p);
-  let chi2 = 0;
-  for (let k = 0; k < x.length; k++) chi2 += w[k] * (y[k] - f(x[k])) ** 2;
-  // Free parameters: v, the widths that could move, the amplitudes.
-  const free = [0, ...(fixedNarrow ? [] : [1]), ...(fixedBroad ? [] : [2]), ...Array.from({ length: nGroups }, (_, g) => 3 + g)];
-  const jf = jacobian(p);
-  const rows = x.map((xi) => {
-    const r = jf(xi);
-    return free.map((j) => r[j]);
-  });
-  const cov = invert(normalMatrix(rows, w));
-  if (!cov || !(cov[0][0] > 0)) return null;
-  const dof = Math.max(1, x.length - free.length);
-  const chi2Red = chi2 / dof;
+  const nF = fit.free.length;
+  const cov = invert(Array.from({ length: nF }, (_, i) => Array.from(fit.normal.subarray(i * nF, (i + 1) * nF))));
+  if (!cov || fit.free[0] !== 0 || !(cov[0][0] > 0)) return null;
+  const dof = Math.max(1, x.length - nF);
+  const chi2Red = fit.chi2 / dof;
   const sigmaV = Math.sqrt(cov[0][0]) * Math.sqrt(Math.max(1, chi2Red));
   const z = (1 + z0) * (1 + p[0] / C_KMS) - 1;
   return { z, zErr: ((1 + z0) * sigmaV) / C_KMS, chi2Red, nLinesFitted: inRange.length };
