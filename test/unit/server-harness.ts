@@ -26,6 +26,7 @@ export async function startServe(folder: string, configDir: string): Promise<Ser
   let err = '';
   child.stdout!.on('data', (d: Buffer) => (out += d.toString()));
   child.stderr!.on('data', (d: Buffer) => (err += d.toString()));
+  // Exit code 0 after a stop signal means it was handled; a death by the signal shows as null.
   const exited = new Promise<number | null>((done) => child.on('exit', (code) => done(code)));
   const url = await new Promise<string>((done, fail) => {
     const timer = setInterval(() => {

@@ -56,13 +56,15 @@ export function registerServe(program: Command): void {
           for (const w of state.warnings) process.stderr.write(`zvet: ${w}\n`);
         }
         const server = await startHostServer({ api: handlers, staticRoot: rendererRoot(), port });
+        // Listen for the stop signals before printing: a pipe write is synchronous on Linux, so
+        // whoever reads the line may signal at once.
+        const stopped = new Promise<void>((done) => {
+          process.once('SIGINT', () => done());
+          process.once('SIGTERM', () => done());
+        });
         process.stdout.write(`${server.url}\n`);
         if (opts.open) openBrowser(server.url);
-        await new Promise<void>((done) => {
-          const stop = () => done();
-          process.once('SIGINT', stop);
-          process.once('SIGTERM', stop);
-        });
+        await stopped;
         await server.close();
         await handlers.close();
         return 0;
