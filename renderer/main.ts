@@ -50,6 +50,12 @@ function live<T>(slot: LiveSlot<T> | null, state: AppState): LiveResult<T> | nul
 let lastTab: { tab: string; slot: unknown; stale: boolean } | null = null;
 
 function renderTab(state: AppState): void {
+  // The host panel's table and diagram want room: the side column widens while it is shown.
+  const layout = document.querySelector('.layout')!;
+  if (layout.classList.contains('wide-side') !== (state.tab === 'host')) {
+    layout.classList.toggle('wide-side', state.tab === 'host');
+    void plots.resize().then(() => view.spectrum(state));
+  }
   byId('tab-derived').setAttribute('aria-selected', String(state.tab === 'derived'));
   byId('tab-host').setAttribute('aria-selected', String(state.tab === 'host'));
   const slot = state.tab === 'derived' ? controller.derived : controller.host;

@@ -42,6 +42,12 @@ export class Plots {
     if (!this.spectrumWired) this.wireSpectrum();
   }
 
+  /** After the layout changed size: fit both plots to their boxes again. */
+  async resize(): Promise<void> {
+    const P = await loadPlotly();
+    for (const gd of [this.spectrumEl, this.correlationEl]) if (gd.querySelector('.main-svg')) await P.Plots.resize(gd);
+  }
+
   fullRange(state: AppState): [number, number] | null {
     return state.view?.arrays ? fullWaveRange(state.view.arrays.waveAngstrom) : null;
   }

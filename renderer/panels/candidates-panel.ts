@@ -17,7 +17,7 @@ export function renderCandidates(state: AppState, box: HTMLElement, onTry: (inde
     el('tr', { class: `clickable${state.trial.candidateIndex === i ? ' chosen' : ''}`, onclick: () => onTry(i), title: 'click to try this z' },
       el('td', {}, el('kbd', {}, String(i + 1))),
       el('td', { class: 'num' }, fmtZErr(c.z, c.zErr)),
-      el('td', {}, c.template),
+      el('td', { class: 'nowrap' }, c.template),
       el('td', { class: 'num' }, c.r.toFixed(1)),
       el('td', { class: 'num' }, `${Math.round(100 * c.overlap)} %`),
       el('td', { class: 'muted' }, i === 0 ? 'best' : '')));

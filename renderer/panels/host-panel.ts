@@ -16,8 +16,11 @@ function lineLabel(name: string): string {
   }
 }
 
-function sci(v: number | null, digits = 2): string {
-  return v === null || !Number.isFinite(v) ? '—' : v.toExponential(digits);
+/** Three significant figures, plain where that stays short, else in e-notation. */
+function sig(v: number | null): string {
+  if (v === null || !Number.isFinite(v)) return '—';
+  const a = Math.abs(v);
+  return a !== 0 && (a < 0.01 || a >= 1e5) ? v.toExponential(2) : String(Number(v.toPrecision(3)));
 }
 
 export function renderHost(box: HTMLElement, live: LiveResult<HostAnalysis> | null): void {
@@ -27,9 +30,9 @@ export function renderHost(box: HTMLElement, live: LiveResult<HostAnalysis> | nu
   const c = h.classification;
   const plot = el('div', { class: 'bpt-plot', id: 'bpt-plot' });
   const rows = h.lines.filter((l) => l.limit === false || l.component === 'narrow').map((l) => el('tr', {},
-    el('td', {}, lineLabel(l.name)),
+    el('td', { class: 'nowrap' }, lineLabel(l.name)),
     el('td', { class: 'num' }, l.rest_wave.toFixed(1)),
-    el('td', { class: 'num' }, l.limit ? `< ${sci(l.flux)}` : `${sci(l.flux)} ± ${sci(l.flux_err, 1)}`),
+    el('td', { class: 'num' }, l.limit ? `< ${sig(l.flux)}` : `${sig(l.flux)} ± ${sig(l.flux_err)}`),
     el('td', { class: 'num' }, l.limit ? '—' : l.ew_rest.toFixed(1)),
     el('td', { class: 'num' }, l.sn.toFixed(1)),
     el('td', { class: 'num' }, l.fwhm_kms === null ? '—' : l.fwhm_kms.toFixed(0))));
@@ -41,14 +44,14 @@ export function renderHost(box: HTMLElement, live: LiveResult<HostAnalysis> | nu
     plot,
     el('h2', {}, `Lines at z = ${h.z.toFixed(5)}`),
     el('table', { id: 'host-lines' },
-      el('thead', {}, el('tr', {}, ...['line', 'λ rest (Å)', `flux (${unit}·Å)`, 'EW rest (Å)', 'S/N', 'FWHM (km/s)'].map((t) => el('th', {}, t)))),
+      el('thead', {}, el('tr', {}, ...['line', 'λ rest (Å)', 'flux ± 1σ', 'EW rest (Å)', 'S/N', 'FWHM (km/s)'].map((t) => el('th', {}, t)))),
       el('tbody', {}, ...rows)),
-    el('p', { class: 'muted' }, `"<" marks a 3σ upper limit. ${h.measurement.stellar_absorption_method}`),
+    el('p', { class: 'muted' }, `Fluxes in ${unit} × Å; "<" marks a 3σ upper limit. ${h.measurement.stellar_absorption_method}`),
     el('h2', {}, 'Dust and star formation'),
     el('dl', {},
       el('dt', {}, 'Hα/Hβ'), el('dd', {}, h.balmer.decrement === null ? '—' : `${h.balmer.decrement.toFixed(2)} ± ${(h.balmer.decrement_err ?? 0).toFixed(2)}`),
       el('dt', {}, `E(B−V), ${h.balmer.curve}`), el('dd', {}, fmtNum(h.balmer.ebv, 3, 'mag')),
-      el('dt', {}, 'L(Hα)'), el('dd', {}, sfr.l_halpha_erg_s === null ? '—' : `${sci(sfr.l_halpha_erg_s)} erg/s${sfr.dust_corrected ? ' (dust-corr.)' : ''}`),
+      el('dt', {}, 'L(Hα)'), el('dd', {}, sfr.l_halpha_erg_s === null ? '—' : `${sig(sfr.l_halpha_erg_s)} erg/s${sfr.dust_corrected ? ' (dust-corr.)' : ''}`),
       el('dt', {}, 'SFR, Kennicutt 98'), el('dd', {}, sfr.sfr_kennicutt98_msun_yr === null ? '—' : `${sfr.sfr_kennicutt98_msun_yr.toPrecision(3)} ± ${(sfr.sfr_kennicutt98_err_msun_yr ?? 0).toPrecision(2)} M☉/yr`),
       el('dt', {}, 'SFR, Kennicutt & Evans 12'), el('dd', {}, sfr.sfr_ke12_msun_yr === null ? '—' : `${sfr.sfr_ke12_msun_yr.toPrecision(3)} ± ${(sfr.sfr_ke12_err_msun_yr ?? 0).toPrecision(2)} M☉/yr`)),
     el('p', { class: 'muted' }, `IMF: ${sfr.imf.kennicutt98} (K98); ${sfr.imf.ke12} (KE12). ${sfr.note ?? ''}`),

@@ -153,7 +153,7 @@ describe('vetting in the window', () => {
     await page.waitForSelector('#bpt-plot .main-svg');
     expect(await page.locator('#aperture-caveat').textContent()).toContain('aperture');
     await shot('host-panel');
-    await page.locator('#aperture-caveat').scrollIntoViewIfNeeded();
+    await page.locator('#host-lines').scrollIntoViewIfNeeded();
     await shot('host-panel-lines');
     await press('d');
   });
