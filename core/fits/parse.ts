@@ -51,7 +51,9 @@ export function parseFits(bytes: Uint8Array, fileName: string): FitsFile {
   let offset = 0;
   while (offset < bytes.length) {
     const index = hdus.length;
-    if (index > 0 && (bytes.length - offset < BLOCK_LENGTH || ascii(bytes, offset, 8) !== 'XTENSION')) break;
+    // Bytes after the last HDU that do not begin an extension are ignored (FITS 4.0 §3.5, special
+    // records); an extension header cut to less than a block is a truncated file, not trailing bytes.
+    if (index > 0 && (bytes.length - offset < 8 || ascii(bytes, offset, 8) !== 'XTENSION')) break;
     const { header, end } = readHeader(bytes, offset, index, fail);
     const hdu = describeHdu(header, index, end, bytes, fileName, fail);
     const remaining = bytes.length - end;

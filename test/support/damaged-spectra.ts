@@ -10,6 +10,8 @@ export interface Damage {
   make(good: Buffer, random: () => number): Buffer;
   /** What the reason must say. */
   reason: RegExp;
+  /** The demo file this damage needs (one with an extension HDU), when any image will not do. */
+  demoSource?: string;
 }
 
 const FITS_BLOCK = 2880;
@@ -45,6 +47,18 @@ function primaryHeaderBytes(fits: Buffer): number {
   return Math.ceil((cardAt(fits, 'END') + 80) / FITS_BLOCK) * FITS_BLOCK;
 }
 
+function cardValue(fits: Buffer, keyword: string): number {
+  const at = cardAt(fits, keyword);
+  return Number(fits.toString('latin1', at + 10, at + 30).trim());
+}
+
+/** Bytes of the primary data array: |BITPIX|/8 × NAXIS1 × … × NAXISn (FITS 4.0 §4.4.1.1). */
+function primaryDataBytes(fits: Buffer): number {
+  let n = Math.abs(cardValue(fits, 'BITPIX')) / 8;
+  for (let axis = 1; axis <= cardValue(fits, 'NAXIS'); axis++) n *= cardValue(fits, `NAXIS${axis}`);
+  return n;
+}
+
 /** Replaces the value of one card of the primary header. */
 function withCard(fits: Buffer, keyword: string, value: string): Buffer {
   const out = Buffer.from(fits);
@@ -59,8 +73,8 @@ export const FITS_DAMAGE: Damage[] = [
     ending: '.fits',
     make: (good, random) => {
       const f = fitsBytes(good);
-      const header = primaryHeaderBytes(f);
-      return f.subarray(0, header + 1 + Math.floor(random() * ((f.length - header) / 2)));
+      // Inside the data array itself: a file short only of its final padding still holds all data.
+      return f.subarray(0, primaryHeaderBytes(f) + 1 + Math.floor(random() * (primaryDataBytes(f) - 1)));
     },
     reason: /^truncated: HDU 0 header claims \d+ bytes of data but the file holds only \d+ more$/,
   },
@@ -77,6 +91,19 @@ export const FITS_DAMAGE: Damage[] = [
       return f;
     },
     reason: BINARY,
+  },
+  {
+    // Cut inside the header of the ERROR extension, with less than one 2880-byte block of it left.
+    name: 'truncated in an extension header',
+    ending: '_1d.fits',
+    demoSource: 'KRT-26-0015_1d.fits',
+    make: (good) => {
+      const f = fitsBytes(good);
+      const extension = f.indexOf('XTENSION', primaryHeaderBytes(f), 'latin1');
+      if (extension < 0 || extension % FITS_BLOCK !== 0) throw new Error('the file has no extension HDU to cut');
+      return f.subarray(0, extension + 1000);
+    },
+    reason: /^truncated: the header of HDU 1 has no END card$/,
   },
   { name: 'impossible BITPIX', ending: '.fits', make: (good) => withCard(fitsBytes(good), 'BITPIX', '7'), reason: /^HDU 0: BITPIX 7 is not valid$/ },
   { name: 'absurd NAXIS1', ending: '.fits', make: (good) => withCard(fitsBytes(good), 'NAXIS1', '999999999'), reason: /^truncated: HDU 0 header claims \d+ bytes of data but the file holds only \d+ more$/ },
