@@ -8,12 +8,13 @@
 export function robustContinuum(flux: Float64Array, good: Uint8Array, blockPixels: number, iterations = 3, clipSigma = 2.5): Float64Array {
   const n = flux.length;
   const use = Uint8Array.from(good);
-  let cont = blockMedianContinuum(flux, use, blockPixels);
+  const scratch = new Float64Array(n);
+  let cont = blockMedianContinuum(flux, use, blockPixels, scratch);
   for (let it = 0; it < iterations; it++) {
-    const resid: number[] = [];
-    for (let i = 0; i < n; i++) if (use[i]) resid.push(Math.abs(flux[i] - cont[i]));
-    if (resid.length < 10) break;
-    const sigma = 1.4826 * median(resid);
+    let k = 0;
+    for (let i = 0; i < n; i++) if (use[i]) scratch[k++] = Math.abs(flux[i] - cont[i]);
+    if (k < 10) break;
+    const sigma = 1.4826 * medianInPlace(scratch, k);
     if (!(sigma > 0)) break;
     let changed = false;
     for (let i = 0; i < n; i++) {
@@ -23,24 +24,22 @@ export function robustContinuum(flux: Float64Array, good: Uint8Array, blockPixel
       }
     }
     if (!changed) break;
-    cont = blockMedianContinuum(flux, use, blockPixels);
+    cont = blockMedianContinuum(flux, use, blockPixels, scratch);
   }
   return cont;
 }
 
-function blockMedianContinuum(flux: Float64Array, use: Uint8Array, blockPixels: number): Float64Array {
+function blockMedianContinuum(flux: Float64Array, use: Uint8Array, blockPixels: number, scratch: Float64Array): Float64Array {
   const n = flux.length;
   const nBlocks = Math.max(1, Math.round(n / blockPixels));
   const xs: number[] = [];
   const ys: number[] = [];
-  const buf = new Float64Array(Math.ceil(n / nBlocks) + 1);
   for (let b = 0; b < nBlocks; b++) {
     const lo = Math.floor((b * n) / nBlocks), hi = Math.floor(((b + 1) * n) / nBlocks);
     let k = 0, xsum = 0;
-    for (let i = lo; i < hi; i++) if (use[i]) { buf[k++] = flux[i]; xsum += i; }
+    for (let i = lo; i < hi; i++) if (use[i]) { scratch[k++] = flux[i]; xsum += i; }
     if (k < Math.max(3, 0.2 * (hi - lo))) continue;
-    const part = buf.subarray(0, k).sort();
-    ys.push(k % 2 ? part[k >> 1] : 0.5 * (part[k / 2 - 1] + part[k / 2]));
+    ys.push(medianInPlace(scratch, k));
     xs.push(xsum / k);
   }
   const cont = new Float64Array(n);
@@ -59,8 +58,50 @@ function blockMedianContinuum(flux: Float64Array, use: Uint8Array, blockPixels: 
 }
 
 export function median(values: ArrayLike<number>): number {
-  const a = Float64Array.from(values).sort();
-  const n = a.length;
+  const a = Float64Array.from(values);
+  return medianInPlace(a, a.length);
+}
+
+/** Median of a[0…n−1] by quickselect (Hoare 1961, CACM 4, 321); reorders those entries. NaN when n = 0. */
+export function medianInPlace(a: Float64Array, n: number): number {
   if (n === 0) return NaN;
-  return n % 2 ? a[n >> 1] : 0.5 * (a[n / 2 - 1] + a[n / 2]);
+  const hi = selectInPlace(a, n, n >> 1);
+  if (n % 2) return hi;
+  // The lower middle is the largest entry left of the upper one after selection.
+  let lo = -Infinity;
+  for (let i = 0; i < n >> 1; i++) if (a[i] > lo) lo = a[i];
+  return 0.5 * (lo + hi);
+}
+
+/** The k-th smallest of a[0…n−1]; afterwards a[0…k−1] ≤ a[k] ≤ a[k+1…n−1]. */
+function selectInPlace(a: Float64Array, n: number, k: number): number {
+  let left = 0, right = n - 1;
+  while (right > left) {
+    const mid = (left + right) >> 1;
+    // Median of three as the pivot.
+    if (a[mid] < a[left]) swap(a, mid, left);
+    if (a[right] < a[left]) swap(a, right, left);
+    if (a[right] < a[mid]) swap(a, right, mid);
+    const pivot = a[mid];
+    let i = left, j = right;
+    while (i <= j) {
+      while (a[i] < pivot) i++;
+      while (a[j] > pivot) j--;
+      if (i <= j) {
+        swap(a, i, j);
+        i++;
+        j--;
+      }
+    }
+    if (k <= j) right = j;
+    else if (k >= i) left = i;
+    else break;
+  }
+  return a[k];
+}
+
+function swap(a: Float64Array, i: number, j: number): void {
+  const t = a[i];
+  a[i] = a[j];
+  a[j] = t;
 }

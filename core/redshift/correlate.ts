@@ -110,11 +110,37 @@ interface SpectrumTransforms {
   nGood: number;
 }
 
+/** Work buffers per FFT size, reused from spectrum to spectrum (one correlation at a time per thread). */
+interface Scratch {
+  a: Float64Array;
+  b: Float64Array;
+  c: Float64Array;
+  d: Float64Array;
+  /** Interleaved complex buffers. */
+  z: Float64Array[];
+}
+
+const scratchBySize = new Map<number, Scratch>();
+
+function scratchFor(fft: ComplexFft): Scratch {
+  let s = scratchBySize.get(fft.size);
+  if (!s) {
+    const n = fft.size;
+    s = { a: new Float64Array(n), b: new Float64Array(n), c: new Float64Array(n), d: new Float64Array(n), z: Array.from({ length: 7 }, () => fft.buffer()) };
+    scratchBySize.set(n, s);
+  }
+  return s;
+}
+
 function spectrumTransforms(p: PreparedSpectrum, lay: Layout): SpectrumTransforms {
   const fft = complexFft(lay.size);
   const n = lay.size;
   const off = p.grid.start - lay.specOrigin;
-  const a = new Float64Array(n), b = new Float64Array(n), c = new Float64Array(n), d = new Float64Array(n);
+  const { a, b, c, d, z } = scratchFor(fft);
+  a.fill(0);
+  b.fill(0);
+  c.fill(0);
+  d.fill(0);
   let nGood = 0;
   for (let i = 0; i < p.grid.length; i++) {
     const w = p.weight[i];
@@ -124,10 +150,10 @@ function spectrumTransforms(p: PreparedSpectrum, lay: Layout): SpectrumTransform
     d[off + i] = w > 0 ? 1 : 0;
     nGood += d[off + i];
   }
-  const sw = fft.buffer(), ww = fft.buffer(), s2 = fft.buffer(), g = fft.buffer(), scratch = fft.buffer();
+  // z[4…6] hold the transforms kept while this spectrum's templates run; z[0…3] are scratch.
+  const [s2, g, scratch, , sw, ww, pp] = z;
   forwardRealPair(fft, a, b, sw, ww, scratch);
   forwardRealPair(fft, c, d, s2, g, scratch);
-  const pp = fft.buffer();
   for (let k = 0; k < n; k++) {
     sw[2 * k + 1] = -sw[2 * k + 1];
     ww[2 * k + 1] = -ww[2 * k + 1];
@@ -156,7 +182,7 @@ function correlateOne(p: PreparedSpectrum, template: Template, lay: Layout, st: 
   const e = bankEntry(template, p.grid.step, lay);
   const { fft } = e;
   const n = lay.size;
-  const x = fft.buffer(), y = fft.buffer();
+  const [x, y, cx, cy] = scratchFor(fft).z;
   for (let k = 0; k < n; k++) {
     const re = 2 * k, im = re + 1;
     // conj(SW)·T + i·conj(W)·T2
@@ -170,7 +196,6 @@ function correlateOne(p: PreparedSpectrum, template: Template, lay: Layout, st: 
     y[re] = st.p[re] * e.m[re] - st.p[im] * e.m[im];
     y[im] = st.p[re] * e.m[im] + st.p[im] * e.m[re];
   }
-  const cx = fft.buffer(), cy = fft.buffer();
   fft.inverse(cx, x);
   fft.inverse(cy, y);
   const nLag = lay.lagMax - lay.lagMin + 1;

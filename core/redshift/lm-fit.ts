@@ -40,6 +40,7 @@ export function lmFit(prob: LmProblem, start: Float64Array, maxIterations = LM_M
   const model = new Float64Array(nY), jac = new Float64Array(nY * nP);
   const a = new Float64Array(nF * nF), g = new Float64Array(nF), m = new Float64Array(nF * nF), step = new Float64Array(nF);
   const trial = new Float64Array(nP);
+  const nzIndex = new Int32Array(nF), nzValue = new Float64Array(nF);
   const chi2At = (q: Float64Array): number => {
     prob.evaluate(q, model, null);
     let s = 0;
@@ -53,12 +54,20 @@ export function lmFit(prob: LmProblem, start: Float64Array, maxIterations = LM_M
     g.fill(0);
     for (let k = 0; k < nY; k++) {
       const wk = prob.w[k], r = wk * (prob.y[k] - model[k]), row = k * nP;
+      // A point depends on few parameters (the lines near it): accumulate over those only.
+      let nz = 0;
       for (let i = 0; i < nF; i++) {
         const ji = jac[row + free[i]];
-        if (ji === 0) continue;
+        if (ji !== 0) {
+          nzIndex[nz] = i;
+          nzValue[nz++] = ji;
+        }
+      }
+      for (let u = 0; u < nz; u++) {
+        const i = nzIndex[u], ji = nzValue[u];
         g[i] += ji * r;
         const wji = wk * ji;
-        for (let l = i; l < nF; l++) a[i * nF + l] += wji * jac[row + free[l]];
+        for (let v = u; v < nz; v++) a[i * nF + nzIndex[v]] += wji * nzValue[v];
       }
     }
     for (let i = 0; i < nF; i++) for (let l = 0; l < i; l++) a[i * nF + l] = a[l * nF + i];

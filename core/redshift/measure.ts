@@ -7,7 +7,7 @@ import type { Spectrum } from '../spectrum/spectrum.js';
 import { suggestConfidence } from './confidence.js';
 import { correlate, type CorrelationCurveData } from './correlate.js';
 import { detectLines, DETECTION_SNR, linesInRange } from './line-detection.js';
-import { nativeResidual } from './native-residual.js';
+import { nativeResidual, type NativeResidual } from './native-residual.js';
 import { findPeaks, type Peak } from './peaks.js';
 import { preprocess, type PreparedSpectrum } from './preprocess.js';
 import { fitTemplateChi2 } from './refine-chi2.js';
@@ -90,13 +90,13 @@ function finish(p: PreparedSpectrum, distinct: Scored[], curves: CorrelationCurv
     notes.push('no correlation peak: nothing in the spectrum matches a template');
     return { candidates, best: null, refinement: { method: 'none', chi2Red: null, nLinesFitted: 0 }, confidence: 'none', nLines: 0, ...(correlations ? { correlations } : {}), notes };
   }
-  const order = rankByLineEvidence(p, distinct);
+  const { order, residual } = rankByLineEvidence(p, distinct);
   const top = distinct[order];
   if (order !== 0) {
     candidates.unshift(...candidates.splice(order, 1));
     distinct.unshift(...distinct.splice(order, 1));
   }
-  const nr = nativeResidual(p, top.template, top.peak.z);
+  const nr = residual ?? nativeResidual(p, top.template, top.peak.z);
   let best: Candidate = { ...candidates[0] };
   let refinement: Refinement = { method: 'none', chi2Red: null, nLinesFitted: 0 };
   const fit = top.template.absorptionOnly
@@ -126,18 +126,21 @@ const EVIDENCE_SNR_CAP = 10;
  * spectrum: Σ min(S/N, cap)² over lines seen with the right sign. One strong line matched by the
  * wrong line of another template (broad Hα taken for Lyα) explains less than the full pattern.
  */
-function rankByLineEvidence(p: PreparedSpectrum, distinct: Scored[]): number {
-  let bestIndex = 0, bestEvidence = -Infinity;
+function rankByLineEvidence(p: PreparedSpectrum, distinct: Scored[]): { order: number; residual: NativeResidual | null } {
+  let order = 0, bestEvidence = -Infinity;
+  let residual: NativeResidual | null = null;
   distinct.slice(0, EVIDENCE_CANDIDATES).forEach((s, i) => {
     if (s.template.lines.length === 0) return;
     const nr = nativeResidual(p, s.template, s.peak.z);
     const ev = detectLines(nr, s.template, s.peak.z).reduce((acc, d) => acc + (d.snr >= DETECTION_SNR ? Math.min(d.snr, EVIDENCE_SNR_CAP) ** 2 : 0), 0);
     if (ev > bestEvidence) {
       bestEvidence = ev;
-      bestIndex = i;
+      order = i;
+      residual = nr;
     }
   });
-  return bestIndex;
+  // The chosen candidate's residual, kept for its refinement (null when no candidate has lines).
+  return { order, residual };
 }
 
 function downsampleCurve(c: CorrelationCurveData): CorrelationCurve {

@@ -1,6 +1,7 @@
 // Unit checks of the redshift engine on synthetic data with known answers.
 import { describe, expect, it } from 'vitest';
 import { apodise } from '../../core/redshift/preprocess.js';
+import { median } from '../../core/redshift/continuum.js';
 import { complexFft, forwardRealPair } from '../../core/redshift/fft.js';
 import { rebinFluxConserving, pixelEdges, type LogGrid } from '../../core/redshift/log-grid.js';
 import { describePeak } from '../../core/redshift/peaks.js';
@@ -200,5 +201,18 @@ describe('templateModelFlux', () => {
 
   it('names the template it does not know', () => {
     expect(() => templateModelFlux('no-such-template', 0.1, synthetic(0.1, 1, 9))).toThrow(/no-such-template/);
+  });
+});
+
+describe('median by quickselect', () => {
+  it('equals the median of the sorted values, odd and even counts, with ties', () => {
+    const g = rng(11);
+    for (const n of [1, 2, 3, 10, 101, 1000]) {
+      const v = Float64Array.from({ length: n }, (_, i) => (i % 7 === 0 ? 1 : g()));
+      const sorted = Float64Array.from(v).sort();
+      const expected = n % 2 ? sorted[(n - 1) / 2] : 0.5 * (sorted[n / 2 - 1] + sorted[n / 2]);
+      expect(median(v)).toBe(expected);
+    }
+    expect(median([])).toBeNaN();
   });
 });
