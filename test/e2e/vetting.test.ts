@@ -90,6 +90,40 @@ describe('vetting in the window', () => {
     await shot('main-view');
   });
 
+  it('zooms, pans and smooths by key, with the rest-frame axis following at λ/(1+z)', async () => {
+    const axes = () => page.evaluate(() => {
+      const gd = document.getElementById('spectrum-plot') as HTMLElement & { _fullLayout: any; data: any[] };
+      return { x: gd._fullLayout.xaxis.range as number[], x2: gd._fullLayout.xaxis2.range as number[], z: Number(gd.dataset.z), flux: gd.data[2].name as string };
+    });
+    const full = await axes();
+    await press('=');
+    await press('ArrowRight');
+    await expect.poll(async () => (await axes()).x[1] - (await axes()).x[0]).toBeLessThan(0.7 * (full.x[1] - full.x[0]));
+    const zoomed = await axes();
+    expect(zoomed.x[0]).toBeGreaterThan(full.x[0]);
+    for (const i of [0, 1]) expect(zoomed.x2[i]).toBeCloseTo(zoomed.x[i] / (1 + zoomed.z), 6);
+    await press(']');
+    await expect.poll(async () => (await axes()).flux).toBe('flux (boxcar 3 px)');
+    await press('k');
+    await expect.poll(async () => (await axes()).flux).toBe('flux (gaussian 3 px)');
+    await press('[');
+    await press('0');
+    await expect.poll(async () => (await axes()).x).toEqual(full.x);
+    expect((await axes()).flux).toBe('flux');
+    // By mouse: a box drag over the middle fifth zooms in, and the rest axis follows again.
+    const box = (await page.locator('#spectrum-plot .nsewdrag').first().boundingBox())!;
+    await page.mouse.move(box.x + 0.4 * box.width, box.y + 0.5 * box.height);
+    await page.mouse.down();
+    await page.mouse.move(box.x + 0.5 * box.width, box.y + 0.52 * box.height, { steps: 5 });
+    await page.mouse.move(box.x + 0.6 * box.width, box.y + 0.55 * box.height, { steps: 5 });
+    await page.mouse.up();
+    await expect.poll(async () => (await axes()).x[1] - (await axes()).x[0]).toBeLessThan(0.3 * (full.x[1] - full.x[0]));
+    const dragged = await axes();
+    for (const i of [0, 1]) expect(dragged.x2[i]).toBeCloseTo(dragged.x[i] / (1 + dragged.z), 6);
+    await press('0');
+    await expect.poll(async () => (await axes()).x).toEqual(full.x);
+  });
+
   it('accepts the best candidate with one key', async () => {
     const best = await candidateZ(0);
     await press('s');

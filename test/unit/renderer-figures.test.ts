@@ -1,0 +1,44 @@
+import { describe, expect, it } from 'vitest';
+import { buildCorrelationFigure, curveAt } from '../../renderer/plot/correlation-figure.js';
+import { buildBptFigure, demarcationCurve } from '../../renderer/plot/bpt-figure.js';
+import { kauffmann03 } from '../../core/hosts/demarcation.js';
+import type { Candidate } from '../../core/redshift/types.js';
+
+const cand = (z: number, template: string): Candidate => ({ z, zErr: 1e-4, r: 6, template, templateClass: 'star-forming', overlap: 0.9, lines: [] });
+
+describe('correlation figure', () => {
+  const curve = { template: 'sf', z: [0, 0.1, 0.2, 0.3], value: [0, 0.5, 0.1, -0.1] };
+  it('interpolates the curve linearly and is empty outside it', () => {
+    expect(curveAt(curve, 0.05)).toBeCloseTo(0.25, 12);
+    expect(curveAt(curve, 0.25)).toBeCloseTo(0, 12);
+    expect(curveAt(curve, 0.4)).toBeNull();
+  });
+  it('numbers every candidate as in the table, hollow when it belongs to another template', () => {
+    const fig = buildCorrelationFigure(curve, [cand(0.1, 'sf'), cand(0.2, 'qso'), cand(0.3, 'sf')], 0.1, 0);
+    const own = fig.data[1] as { text: string[]; customdata: number[]; marker: { symbol: string } };
+    const other = fig.data[2] as { text: string[]; customdata: number[]; marker: { symbol: string } };
+    expect(own.text).toEqual(['1', '3']);
+    expect(own.customdata).toEqual([0, 2]);
+    expect(other.text).toEqual(['2']);
+    expect(other.marker.symbol).toBe('circle-open');
+    expect(own.marker.symbol).toBe('circle');
+  });
+});
+
+describe('[N II] diagram', () => {
+  it('samples the Kauffmann et al. (2003) curve short of its asymptote at x = 0.05', () => {
+    const c = demarcationCurve(kauffmann03, 0.05);
+    expect(Math.max(...c.x)).toBeLessThan(0.05);
+    // Kauffmann et al. 2003 eq. 1 at log([N II]/Hα) = −0.5: 0.61/(−0.55) + 1.3 = 0.1909.
+    const i = c.x.findIndex((x) => Math.abs(x + 0.5) < 0.01);
+    expect(c.y[i]).toBeCloseTo(0.61 / (c.x[i] - 0.05) + 1.3, 12);
+    expect(kauffmann03(-0.5)).toBeCloseTo(0.1909, 4);
+  });
+  it('draws the object with its error bars only when both ratios are measured', () => {
+    const point = { log_nii_ha: -0.1, log_nii_ha_err: 0.05, log_oiii_hb: 1.0, log_oiii_hb_err: 0.1, log_sii_ha: null, log_sii_ha_err: null, log_oi_ha: null, log_oi_ha_err: null };
+    const with_ = buildBptFigure(point).data as { name: string; error_y?: { array: number[] } }[];
+    expect(with_.find((t) => t.name === 'this object')?.error_y?.array).toEqual([0.1]);
+    const without = buildBptFigure({ ...point, log_oiii_hb: null }).data as { name: string }[];
+    expect(without.some((t) => t.name === 'this object')).toBe(false);
+  });
+});
