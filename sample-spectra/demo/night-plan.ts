@@ -13,7 +13,7 @@ export const OVERHEAD_S = 300;
 
 export const NIGHT_PLAN: readonly Target[] = [
   {
-    number: 11, hostClass: 'star-forming', z: 0.04823, continuum: 4.0, hbetaFlux: 40, lines: 'solar',
+    number: 11, hostClass: 'star-forming', z: 0.06817, continuum: 4.0, hbetaFlux: 40, lines: 'solar',
     targetSn: 18, exptimeS: 900, decDeg: 21.482, hourAngleH: -0.6, layout: 'multispec',
     notes: 'star-forming host; all strong lines clear',
   },

@@ -43,7 +43,7 @@ const NII_RATIO = 3.05;
 const RATIOS: Record<NonNullable<Target['lines']>, { sigmaKmS: number; rel: Record<string, number> }> = {
   solar: {
     sigmaKmS: 60,
-    rel: { '[OII]3727': 1.1, '[OII]3730': 1.4, '[NeIII]3870': 0.15, Hdelta: 0.26, Hgamma: 0.47, Hbeta: 1, '[OIII]5008': 1.0, HeI5877: 0.1, '[OI]6302': 0.05, Halpha: 3.4, '[NII]6585': 1.3, '[SII]6718': 0.55, '[SII]6733': 0.4 },
+    rel: { '[OII]3727': 1.1, '[OII]3730': 1.4, '[NeIII]3870': 0.15, Hdelta: 0.26, Hgamma: 0.47, Hbeta: 1, '[OIII]5008': 0.5, HeI5877: 0.1, '[OI]6302': 0.05, Halpha: 3.4, '[NII]6585': 1.0, '[SII]6718': 0.55, '[SII]6733': 0.4 },
   },
   dwarf: {
     sigmaKmS: 40,

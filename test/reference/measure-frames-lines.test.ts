@@ -162,9 +162,11 @@ describe('zvet measure --lines', () => {
     }
   }, 60_000);
 
-  it('classifies the demo hosts: the dwarf star-forming, the Seyfert 2 agn/seyfert, the passive host insufficient', () => {
-    // Demo truth (sample-spectra/truth.csv): KRT-26-0019 low-metallicity star-forming dwarf,
-    // KRT-26-0014 Seyfert 2 above Kewley et al. (2001), KRT-26-0020 passive (no emission lines).
+  it('classifies the demo hosts: the star-forming ones star-forming, the Seyfert 2 agn/seyfert, the passive host insufficient', () => {
+    // Demo truth (sample-spectra/truth.csv): KRT-26-0011 star-forming host, KRT-26-0019
+    // low-metallicity star-forming dwarf, KRT-26-0014 Seyfert 2 above Kewley et al. (2001),
+    // KRT-26-0020 passive (no emission lines).
+    expect(byName('KRT-26-0011.fits')).toMatchObject({ bpt_class: 'star-forming', agn_type: null });
     expect(byName('KRT-26-0019.fits.gz')).toMatchObject({ bpt_class: 'star-forming', agn_type: null });
     expect(byName('KRT-26-0014.fits')).toMatchObject({ bpt_class: 'agn', agn_type: 'seyfert' });
     expect(byName('KRT-26-0020.fits').bpt_class).toBe('insufficient');
