@@ -272,6 +272,15 @@ describe('host handlers: export', () => {
     expect(readFileSync(out.path, 'utf8')).toContain('KRT-26-0011.fits');
   });
 
+  it('computes the derived columns with the cosmology chosen in the settings', async () => {
+    const h = handlers();
+    await h.putSettings({ cosmologyPreset: 'round70' });
+    await h.openWorklist({ path: folder });
+    const out = await h.exportCatalogue({ format: 'ecsv', path: join(tmp, 'round70.ecsv') });
+    expect(readFileSync(out.path, 'utf8')).toContain('"cosmolog": "round70: H0 = 70 km/s/Mpc');
+    await h.putSettings({ cosmologyPreset: 'planck18' });
+  });
+
   it('writes where the user typed, and refuses to overwrite a spectrum or the journal', async () => {
     const h = handlers();
     await h.openWorklist({ path: folder });

@@ -14,7 +14,7 @@ export function defaultServices(): HostServices {
       const r = await pool.measureFile(path, { ...options, includeSpectrum: true });
       return { hdu: r.hdu, error: r.error, measurement: r.measurement, spectrum: r.spectrum ?? null };
     },
-    writeCatalogue: async (worklist, format, path) => (await exportCatalogue(worklist, format, path)).rows,
+    writeCatalogue: async (worklist, format, path, options) => (await exportCatalogue(worklist, format, path, options)).rows,
     close: async () => {
       await pool?.close();
       pool = null;

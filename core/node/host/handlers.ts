@@ -335,7 +335,9 @@ class Handlers implements HostHandlers {
     const path = await resolveExportPath({ root: w.root, name: w.name, journalPath: w.journalPath, spectra: [...s.entries.values()].map((e) => e.absPath) }, req.format, req.path);
     if (s.queued.length > 0) await this.flushQueue(s);
     try {
-      return { path, rows: await this.services.writeCatalogue(w, req.format, path) };
+      // The same cosmology and fallback site as the window's derived panel.
+      const settings = await this.settings.get();
+      return { path, rows: await this.services.writeCatalogue(w, req.format, path, { cosmology: cosmologyOf(settings), site: settings.sites[0] }) };
     } catch (err) {
       throw new HostFailure(503, `export not written: ${describeFailure(err)}`);
     }
