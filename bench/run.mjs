@@ -12,6 +12,9 @@ const sdss = resolve(root, '../shared/spectra-open/sdss');
 const bin = join(root, 'bin/zvet.js');
 const survey = readdirSync(sdss).filter((f) => f.startsWith('spec-') && f.endsWith('.fits')).map((f) => join(sdss, f));
 const cores = availableParallelism();
+// `--long N` sets the length of the memory run (default 10,000 spectra).
+const longArg = process.argv.indexOf('--long');
+const long = longArg > 0 ? Number(process.argv[longArg + 1]) : 10000;
 
 function repeated(n) {
   return Array.from({ length: n }, (_, i) => survey[i % survey.length]);
@@ -55,6 +58,5 @@ for (const jobs of [1, cores]) {
   const r = await run(repeated(n), jobs);
   console.log(`--jobs ${jobs}: ${(n / r.seconds).toFixed(1)} spectra/s end to end (target ≥ ${jobs === 1 ? 600 : 1000}); ${stageLine(r.stages)}; peak RSS ${r.peakMb.toFixed(0)} MB`);
 }
-const long = 10000;
 const r = await run(repeated(long), cores);
 console.log(`${long} spectra, --jobs ${cores}: ${(long / r.seconds).toFixed(1)} spectra/s; peak RSS ${r.peakMb.toFixed(0)} MB (target < 300 MB)`);

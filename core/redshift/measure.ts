@@ -4,6 +4,7 @@
  * The result is a suggestion until a person vets it.
  */
 import type { Spectrum } from '../spectrum/spectrum.js';
+import { absorptionFeatures, lineChi2Gain } from './absorption-evidence.js';
 import { suggestConfidence } from './confidence.js';
 import { correlate, type CorrelationCurveData } from './correlate.js';
 import { detectLines, DETECTION_SNR, linesInRange } from './line-detection.js';
@@ -90,13 +91,14 @@ function finish(p: PreparedSpectrum, distinct: Scored[], curves: CorrelationCurv
     notes.push('no correlation peak: nothing in the spectrum matches a template');
     return { candidates, best: null, refinement: { method: 'none', chi2Red: null, nLinesFitted: 0 }, confidence: 'none', nLines: 0, ...(correlations ? { correlations } : {}), notes };
   }
-  const { order, residual } = rankByLineEvidence(p, distinct);
+  const { order, residuals } = rankByLineEvidence(p, distinct);
   const top = distinct[order];
   if (order !== 0) {
     candidates.unshift(...candidates.splice(order, 1));
     distinct.unshift(...distinct.splice(order, 1));
   }
-  const nr = residual ?? nativeResidual(p, top.template, top.peak.z);
+  const residualOf = (s: Scored) => residuals.get(s) ?? nativeResidual(p, s.template, s.peak.z);
+  const nr = residualOf(top);
   let best: Candidate = { ...candidates[0] };
   let refinement: Refinement = { method: 'none', chi2Red: null, nLinesFitted: 0 };
   const fit = top.template.absorptionOnly
@@ -111,7 +113,13 @@ function finish(p: PreparedSpectrum, distinct: Scored[], curves: CorrelationCurv
   const detections = detectLines(nr, top.template, best.z);
   const nLines = detections.filter((d) => d.snr >= DETECTION_SNR).length;
   const lead = distinct.length > 1 ? top.peak.score / Math.max(distinct[1].peak.score, 1e-300) : Infinity;
-  const confidence = suggestConfidence({ r: top.peak.r, overlap: top.peak.overlap, nLines, lead });
+  const absorption = top.template.absorptionOnly && top.template.lines.length
+    ? {
+        features: absorptionFeatures(top.template, detections),
+        chi2Lead: lineChi2Gain(nr, top.template, best.z) - (distinct.length > 1 ? lineChi2Gain(residualOf(distinct[1]), distinct[1].template, distinct[1].peak.z) : 0),
+      }
+    : undefined;
+  const confidence = suggestConfidence({ r: top.peak.r, overlap: top.peak.overlap, nLines, lead, absorption });
   if (confidence === 'none') notes.push('no credible redshift: weak correlation or no lines detected');
   return { candidates, best, refinement, confidence, nLines, ...(correlations ? { correlations } : {}), notes };
 }
@@ -126,21 +134,21 @@ const EVIDENCE_SNR_CAP = 10;
  * spectrum: Σ min(S/N, cap)² over lines seen with the right sign. One strong line matched by the
  * wrong line of another template (broad Hα taken for Lyα) explains less than the full pattern.
  */
-function rankByLineEvidence(p: PreparedSpectrum, distinct: Scored[]): { order: number; residual: NativeResidual | null } {
+function rankByLineEvidence(p: PreparedSpectrum, distinct: Scored[]): { order: number; residuals: Map<Scored, NativeResidual> } {
   let order = 0, bestEvidence = -Infinity;
-  let residual: NativeResidual | null = null;
+  const residuals = new Map<Scored, NativeResidual>();
   distinct.slice(0, EVIDENCE_CANDIDATES).forEach((s, i) => {
     if (s.template.lines.length === 0) return;
     const nr = nativeResidual(p, s.template, s.peak.z);
+    residuals.set(s, nr);
     const ev = detectLines(nr, s.template, s.peak.z).reduce((acc, d) => acc + (d.snr >= DETECTION_SNR ? Math.min(d.snr, EVIDENCE_SNR_CAP) ** 2 : 0), 0);
     if (ev > bestEvidence) {
       bestEvidence = ev;
       order = i;
-      residual = nr;
     }
   });
-  // The chosen candidate's residual, kept for its refinement (null when no candidate has lines).
-  return { order, residual };
+  // The residuals are kept for the refinement and the confidence evidence.
+  return { order, residuals };
 }
 
 function downsampleCurve(c: CorrelationCurveData): CorrelationCurve {

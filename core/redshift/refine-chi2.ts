@@ -7,7 +7,7 @@
  * Numerical Recipes, §15.6), scaled by √χ²_red when that exceeds 1.
  */
 import { pixelsNearLines, type NativeResidual } from './native-residual.js';
-import { nonNegativeFit, templateBasis } from './template-basis.js';
+import { templateChi2 } from './template-basis.js';
 import type { Template } from './templates.js';
 
 /** Grid points either side of the start z. */
@@ -27,23 +27,16 @@ export function fitTemplateChi2(nr: NativeResidual, template: Template, z0: numb
   const y = Float64Array.from(idx, (i) => nr.resid[i]);
   const w = Float64Array.from(idx, (i) => 1 / (nr.sigma[i] * nr.sigma[i]));
   const rest = new Float64Array(wave.length);
-  const model = new Float64Array(wave.length);
   const dz = halfRangeZ / HALF_STEPS;
   const zs: number[] = [];
   const chi: number[] = [];
   let nFree = 1;
   for (let s = -HALF_STEPS; s <= HALF_STEPS; s++) {
     const z = z0 + s * dz;
-    for (let k = 0; k < wave.length; k++) rest[k] = wave[k] / (1 + z);
-    const { basis } = templateBasis(template, rest, nr.pixelKmS);
-    const amplitude = nonNegativeFit(basis, y, w, basis.map((_, g) => g));
-    model.fill(0);
-    for (let g = 0; g < basis.length; g++) if (amplitude[g] > 0) for (let k = 0; k < model.length; k++) model[k] += amplitude[g] * basis[g][k];
-    let c = 0;
-    for (let k = 0; k < y.length; k++) c += w[k] * (y[k] - model[k]) ** 2;
+    const fit = templateChi2(template, z, wave, y, w, nr.pixelKmS, rest);
     zs.push(z);
-    chi.push(c);
-    nFree = 1 + basis.length;
+    chi.push(fit.chi2);
+    nFree = fit.nFree;
   }
   let kMin = 0;
   for (let k = 1; k < chi.length; k++) if (chi[k] < chi[kMin]) kMin = k;

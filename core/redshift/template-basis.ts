@@ -72,3 +72,20 @@ export function nonNegativeFit(basis: Float64Array[], y: Float64Array, w: Float6
   }
   return a;
 }
+
+/**
+ * χ² of the template at z against y (weights w) at the observed wavelengths, each profile's
+ * amplitude fitted with the template's sign. `rest` is scratch of the same length.
+ */
+export function templateChi2(template: Template, z: number, wave: Float64Array, y: Float64Array, w: Float64Array, instSigmaKmS: number, rest: Float64Array): { chi2: number; nFree: number } {
+  for (let k = 0; k < wave.length; k++) rest[k] = wave[k] / (1 + z);
+  const { basis } = templateBasis(template, rest, instSigmaKmS);
+  const amplitude = nonNegativeFit(basis, y, w, basis.map((_, g) => g));
+  let chi2 = 0;
+  for (let k = 0; k < y.length; k++) {
+    let m = 0;
+    for (let g = 0; g < basis.length; g++) m += amplitude[g] * basis[g][k];
+    chi2 += w[k] * (y[k] - m) ** 2;
+  }
+  return { chi2, nFree: 1 + basis.length };
+}

@@ -32,4 +32,15 @@ describe('demo worklist redshifts', () => {
     }
     expect(misses).toEqual([]);
   }, 60_000);
+
+  it('calls the passive hosts with clear absorption features secure', async () => {
+    // KRT-26-0012 (S/N 14) and KRT-26-0020 (S/N 35): truth.csv says passive, all features in range.
+    for (const file of ['KRT-26-0012.fits', 'KRT-26-0020.fits']) {
+      const t = truth.find((x) => x.file === file)!;
+      const m = measureRedshift(await readSpectrumFile(join(DEMO_WORKLIST, file)));
+      expect(t.cls).toBe('passive');
+      expect(Math.abs(m.best!.z - t.z!) / m.best!.zErr).toBeLessThanOrEqual(3);
+      expect(m.confidence).toBe('secure');
+    }
+  });
 });

@@ -118,6 +118,15 @@ describe('redshifts of the open survey spectra', () => {
     expect(m.confidence).not.toBe('secure');
   });
 
+  it('calls the high-S/N passive galaxies secure (4000 Å break, Ca II H&K, G band, Mg b, Na D)', async () => {
+    // spec-2515-54180-0377 (S/N 50) and spec-0266-51602-0001 (S/N 38): SDSS pipeline ZWARNING = 0.
+    for (const name of ['spec-2515-54180-0377', 'spec-0266-51602-0001']) {
+      const m = await measureRow(rows.find((r) => r.file.includes(name))!);
+      expect(m.best?.templateClass).toBe('passive');
+      expect(m.confidence).toBe('secure');
+    }
+  });
+
   it('prints the 3D-HST grism results against their published posteriors', async () => {
     expect(grism.length).toBe(2);
     for (const r of grism) {

@@ -7,6 +7,7 @@ import { rebinFluxConserving, pixelEdges, type LogGrid } from '../../core/redshi
 import { describePeak } from '../../core/redshift/peaks.js';
 import type { CorrelationCurveData } from '../../core/redshift/correlate.js';
 import { measureRedshift } from '../../core/redshift/measure.js';
+import { suggestConfidence } from '../../core/redshift/confidence.js';
 import { builtInTemplates, fromUserSpectrum, type Template } from '../../core/redshift/templates.js';
 import { templateModelFlux } from '../../core/redshift/template-model.js';
 import type { UserSpectrumTemplate } from '../../core/redshift/types.js';
@@ -214,5 +215,34 @@ describe('median by quickselect', () => {
       expect(median(v)).toBe(expected);
     }
     expect(median([])).toBeNaN();
+  });
+});
+
+describe('confidence of absorption redshifts', () => {
+  const passive = builtInTemplates().find((t) => t.name === 'passive')!;
+
+  it('calls a clear passive spectrum (Ca II K at S/N ≈ 13, Mg b lines ≈ 4 each) secure at the right z', () => {
+    const zTrue = 0.0832;
+    for (let seed = 21; seed <= 24; seed++) {
+      const m = measureRedshift(synthetic(zTrue, 1, seed, 60, passive));
+      expect(Math.abs(m.best!.z - zTrue) / m.best!.zErr).toBeLessThan(4);
+      expect(m.confidence).toBe('secure');
+    }
+  });
+
+  it('says none on pure noise measured with the absorption templates only', () => {
+    for (let seed = 200; seed < 212; seed++) {
+      expect(measureRedshift(synthetic(null, 1, seed), { templates: ['passive', 'star'] }).confidence).toBe('none');
+    }
+  });
+
+  it('lets many features with a large χ² lead lift a modest r, and nothing less', () => {
+    const base = { r: 3.8, overlap: 0.9, nLines: 14, lead: 1.2 };
+    expect(suggestConfidence({ ...base, absorption: { features: 11, chi2Lead: 5000 } })).toBe('secure');
+    expect(suggestConfidence({ ...base, absorption: { features: 3, chi2Lead: 60 } })).toBe('likely');
+    // The noise maximum seen: one feature, Δχ² ≈ 25.
+    expect(suggestConfidence({ ...base, absorption: { features: 1, chi2Lead: 25 } })).toBe('tentative');
+    expect(suggestConfidence({ ...base, r: 2.5, absorption: { features: 11, chi2Lead: 5000 } })).toBe('tentative');
+    expect(suggestConfidence({ ...base, nLines: 1, absorption: { features: 11, chi2Lead: 5000 } })).toBe('none');
   });
 });
