@@ -123,9 +123,10 @@ export class Controller {
   async show(id: string, timed = false): Promise<void> {
     this.s.currentId = id;
     this.s.message = null;
-    this.s.loading = true;
     this.s.identifying = false;
-    this.view.panels(this.s);
+    // From the prefetch the spectrum draws at once; otherwise say it is on its way.
+    this.s.loading = !this.cache.ready(id);
+    if (this.s.loading) this.view.panels(this.s);
     let view: SpectrumView;
     try {
       view = await this.cache.get(id);

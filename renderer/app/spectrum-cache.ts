@@ -6,6 +6,7 @@ import type { SpectrumView } from '../../core/api/host-api.js';
 
 export class SpectrumCache {
   private readonly entries = new Map<string, Promise<SpectrumView>>();
+  private readonly arrived = new WeakSet<Promise<SpectrumView>>();
 
   constructor(
     private readonly load: (id: string) => Promise<SpectrumView>,
@@ -20,11 +21,18 @@ export class SpectrumCache {
       return hit;
     }
     const p = this.load(id);
+    p.then(() => this.arrived.add(p), () => undefined);
     // A failed fetch is not kept: the next look tries again.
     p.catch(() => this.entries.get(id) === p && this.entries.delete(id));
     this.entries.set(id, p);
     while (this.entries.size > this.capacity) this.entries.delete(this.entries.keys().next().value as string);
     return p;
+  }
+
+  /** True when the spectrum is here already (showing it needs no "loading" state). */
+  ready(id: string): boolean {
+    const p = this.entries.get(id);
+    return p !== undefined && this.arrived.has(p);
   }
 
   prefetch(id: string | null): void {

@@ -11,6 +11,7 @@ import { MARKER_STYLE, markersInRange, type LineMarker } from './markers.js';
 import { maskedRuns, TELLURIC_BANDS } from './regions.js';
 import { smooth, smoothError, type SmoothingSetting } from './smoothing.js';
 import { robustRange, scaleToSpectrum } from './scaling.js';
+import { envelopeIndices, pick } from './decimate.js';
 
 export interface SpectrumFigureInput {
   arrays: SpectrumArrays;
@@ -86,25 +87,30 @@ export function buildSpectrumFigure(input: SpectrumFigureInput): SpectrumFigure 
   const wave = arrays.waveAngstrom;
   const fullRange = fullWaveRange(wave);
   const [lo, hi] = input.xRange ?? fullRange;
-  const flux = smooth(arrays.flux, arrays.mask, input.smoothing);
+  const smoothed = smooth(arrays.flux, arrays.mask, input.smoothing);
   const err = smoothError(arrays.error, arrays.mask, input.smoothing);
-  const lower = flux.map((f, i) => (f === null || err[i] === null ? null : f - (err[i] as number)));
-  const upper = flux.map((f, i) => (f === null || err[i] === null ? null : f + (err[i] as number)));
+  const margin = { l: 72, r: input.showSky && arrays.sky ? 64 : 20, t: 56, b: 48 };
+  const shown = envelopeIndices(wave, smoothed, lo, hi, input.widthPx - margin.l - margin.r);
+  const x = pick(wave, shown);
+  const flux = pick(smoothed, shown);
+  const sigma = pick(err, shown);
+  const lower = flux.map((f, i) => (f === null || sigma[i] === null ? null : f - (sigma[i] as number)));
+  const upper = flux.map((f, i) => (f === null || sigma[i] === null ? null : f + (sigma[i] as number)));
   const hover = 'skip' as const;
   const data: Data[] = [
-    { type: 'scatter', mode: 'lines', x: wave, y: lower, line: { width: 0 }, hoverinfo: hover, showlegend: false, name: 'flux − 1σ' },
-    { type: 'scatter', mode: 'lines', x: wave, y: upper, line: { width: 0 }, fill: 'tonexty', fillcolor: THEME.errorBand, hoverinfo: hover, name: '1σ error', showlegend: true },
+    { type: 'scatter', mode: 'lines', x, y: lower, line: { width: 0 }, hoverinfo: hover, showlegend: false, name: 'flux − 1σ' },
+    { type: 'scatter', mode: 'lines', x, y: upper, line: { width: 0 }, fill: 'tonexty', fillcolor: THEME.errorBand, hoverinfo: hover, name: '1σ error', showlegend: true },
     {
-      type: 'scatter', mode: 'lines', x: wave, y: flux, name: input.smoothing.widthPx > 1 ? `flux (${input.smoothing.kernel} ${input.smoothing.widthPx} px)` : 'flux',
+      type: 'scatter', mode: 'lines', x, y: flux, name: input.smoothing.widthPx > 1 ? `flux (${input.smoothing.kernel} ${input.smoothing.widthPx} px)` : 'flux',
       line: { color: THEME.flux, width: 1.2 }, hovertemplate: '%{x:.1f} Å<br>%{y:.4g}<extra></extra>',
     },
   ];
   if (input.showSky && arrays.sky) {
-    data.push({ type: 'scatter', mode: 'lines', x: wave, y: arrays.sky, yaxis: 'y3', name: 'sky (right axis)', line: { color: THEME.sky, width: 1, dash: 'dot' }, hoverinfo: hover });
+    data.push({ type: 'scatter', mode: 'lines', x, y: pick(arrays.sky, shown), yaxis: 'y3', name: 'sky (right axis)', line: { color: THEME.sky, width: 1, dash: 'dot' }, hoverinfo: hover });
   }
   if (input.templateFlux) {
     const scaled = scaleToSpectrum(arrays.flux, input.templateFlux, arrays.mask);
-    data.push({ type: 'scatter', mode: 'lines', x: wave, y: scaled, name: `template ${input.templateName ?? ''}`.trim(), line: { color: THEME.template, width: 1.4 }, opacity: 0.85, hoverinfo: hover });
+    data.push({ type: 'scatter', mode: 'lines', x, y: pick(scaled, shown), name: `template ${input.templateName ?? ''}`.trim(), line: { color: THEME.template, width: 1.4 }, opacity: 0.85, hoverinfo: hover });
   }
   // An invisible trace on the top axis, so plotly draws it.
   data.push({ type: 'scatter', mode: 'lines', x: [lo, hi].map((w) => w / (1 + (z ?? 0))), y: [null, null], xaxis: 'x2', hoverinfo: hover, showlegend: false });
@@ -120,13 +126,13 @@ export function buildSpectrumFigure(input: SpectrumFigureInput): SpectrumFigure 
     shapes.push({ type: 'rect', xref: 'x', yref: 'paper', x0: run.loAngstrom, x1: run.hiAngstrom, y0: 0, y1: 1, fillcolor: THEME.masked, line: { width: 0 }, layer: 'below' });
   }
   data.push(...markerTraces(markers));
-  const yRange = robustRange(flux, wave, lo, hi);
+  const yRange = robustRange(smoothed, wave, lo, hi);
   const axisCommon = { gridcolor: THEME.grid, linecolor: THEME.axis, zerolinecolor: THEME.axis, tickfont: { size: 13, color: THEME.muted }, title: { font: { size: 13, color: THEME.text } } };
   const layout: Partial<Layout> = {
     paper_bgcolor: THEME.ground,
     plot_bgcolor: THEME.ground,
     font: { family: THEME.font, size: 13, color: THEME.text },
-    margin: { l: 72, r: input.showSky && arrays.sky ? 64 : 20, t: 56, b: 48 },
+    margin,
     showlegend: true,
     legend: { orientation: 'h', x: 0, y: -0.13, yanchor: 'top', font: { size: 13, color: THEME.muted }, bgcolor: 'rgba(0,0,0,0)' },
     hovermode: 'x',

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { kernelWeights, smooth, smoothError, stepSmoothing } from '../../renderer/plot/smoothing.js';
 import { maskedRuns } from '../../renderer/plot/regions.js';
 import { robustRange, scaleToSpectrum } from '../../renderer/plot/scaling.js';
+import { envelopeIndices, pick } from '../../renderer/plot/decimate.js';
 
 describe('display smoothing', () => {
   it('a 3-px boxcar is the mean of three neighbours', () => {
@@ -59,5 +60,26 @@ describe('shaded regions and scaling', () => {
   it('scales a template onto the flux by least squares', () => {
     expect(scaleToSpectrum([2, 4, 6], [1, 2, 3], [0, 0, 0])).toEqual([2, 4, 6]);
     expect(scaleToSpectrum([2, 4, 600], [1, 2, 3], [0, 0, 1])).toEqual([2, 4, 6]);
+  });
+});
+
+describe('min–max envelope for the screen', () => {
+  const n = 5000;
+  const wave = Array.from({ length: n }, (_, i) => 4000 + i);
+  const flux: (number | null)[] = wave.map((w) => Math.sin(w / 7));
+  flux[1234] = 50; // a narrow emission spike
+  flux[3000] = null; // a masked pixel
+  it('draws every pixel when there are few per screen column', () => {
+    expect(envelopeIndices(wave, flux, 4000, 9000, 2000)).toBeNull();
+  });
+  it('keeps at most two pixels (plus a gap) per column, the spike and the gap included', () => {
+    const idx = envelopeIndices(wave, flux, 4000, 9000, 500)!;
+    expect(idx.length).toBeLessThanOrEqual(2 * 500 + 2);
+    expect(idx).toContain(1234);
+    expect(idx).toContain(3000);
+    expect([...idx].sort((a, b) => a - b)).toEqual(idx);
+    const kept = pick(flux, idx).filter((v): v is number => v !== null);
+    expect(Math.max(...kept)).toBe(50);
+    expect(Math.min(...kept)).toBeCloseTo(Math.min(...(flux.filter((v) => v !== null) as number[])), 12);
   });
 });
