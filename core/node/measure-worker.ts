@@ -12,10 +12,18 @@ import { SpectrumReadError, type Spectrum } from '../spectrum/spectrum.js';
 import { readSpectrumFile } from './read-spectrum-file.js';
 import type { MeasureFileResult, WorkerRequest, WorkerReply } from './measure-pool.js';
 
+if (!parentPort) throw new Error('measure-worker must run in a worker thread');
 const port = parentPort;
-if (!port) throw new Error('measure-worker must run in a worker thread');
 
-port.on('message', async (req: WorkerRequest) => {
+// One job at a time, in arrival order. The pool keeps two jobs in flight so the worker never
+// waits; run concurrently, the second job's read would wait out the first one's measurement at
+// its first await and be timed as reading.
+let previous: Promise<void> = Promise.resolve();
+port.on('message', (req: WorkerRequest) => {
+  previous = previous.then(() => handle(req));
+});
+
+async function handle(req: WorkerRequest): Promise<void> {
   const times: StageTimes & { readMs: number } = { readMs: 0, preprocessMs: 0, correlateMs: 0, refineMs: 0 };
   const t0 = performance.now();
   let spectrum: Spectrum | undefined;
@@ -44,7 +52,7 @@ port.on('message', async (req: WorkerRequest) => {
     delete result.spectrum;
     port.postMessage(reply);
   }
-});
+}
 
 function hostLinesAt(spectrum: Spectrum, z: number | undefined, options: NonNullable<WorkerRequest['hostLines']>): Pick<MeasureFileResult, 'lines' | 'linesNote'> {
   if (z === undefined) return { lines: null, linesNote: 'no redshift to measure the lines at' };

@@ -8,6 +8,7 @@ import { describePeak } from '../../core/redshift/peaks.js';
 import type { CorrelationCurveData } from '../../core/redshift/correlate.js';
 import { measureRedshift } from '../../core/redshift/measure.js';
 import { suggestConfidence } from '../../core/redshift/confidence.js';
+import { resolveTemplates } from '../../core/redshift/template-set.js';
 import { builtInTemplates, fromUserSpectrum, type Template } from '../../core/redshift/templates.js';
 import { templateModelFlux } from '../../core/redshift/template-model.js';
 import type { UserSpectrumTemplate } from '../../core/redshift/types.js';
@@ -244,5 +245,21 @@ describe('confidence of absorption redshifts', () => {
     expect(suggestConfidence({ ...base, absorption: { features: 1, chi2Lead: 25 } })).toBe('tentative');
     expect(suggestConfidence({ ...base, r: 2.5, absorption: { features: 11, chi2Lead: 5000 } })).toBe('tentative');
     expect(suggestConfidence({ ...base, nLines: 1, absorption: { features: 11, chi2Lead: 5000 } })).toBe('none');
+  });
+});
+
+describe('--zmin/--zmax and the star template', () => {
+  const star = (o: { zmin?: number; zmax?: number }) => resolveTemplates(o).find((u) => u.template.name === 'star') ?? null;
+  it('keeps the whole ±0.005 window when the range includes 0 through its galaxy bounds', () => {
+    expect(star({})).toMatchObject({ zMin: -0.005, zMax: 0.005 });
+    expect(star({ zmin: 0, zmax: 0.3 })).toMatchObject({ zMin: -0.005, zMax: 0.005 });
+  });
+  it('drops the star when the range excludes z = 0, and narrows it by bounds inside the window', () => {
+    expect(star({ zmin: 0.1, zmax: 0.5 })).toBeNull();
+    expect(star({ zmin: 0.003 })).toBeNull();
+    expect(star({ zmin: -0.001, zmax: 0.001 })).toMatchObject({ zMin: -0.001, zMax: 0.001 });
+    expect(star({ zmax: 0.002 })).toMatchObject({ zMin: -0.005, zMax: 0.002 });
+    // Galaxy templates take the range as given.
+    expect(resolveTemplates({ zmin: 0.1, zmax: 0.5 }).find((u) => u.template.name === 'passive')).toMatchObject({ zMin: 0.1, zMax: 0.5 });
   });
 });
