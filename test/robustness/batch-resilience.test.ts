@@ -10,13 +10,13 @@ import { chmodSync, copyFileSync, mkdirSync, mkdtempSync, readdirSync, readFileS
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { ALL_DAMAGE, FITS_DAMAGE, type Damage } from '../support/damaged-spectra';
+import { ALL_DAMAGE, CONTROL_CHARACTERS as CONTROL, FITS_DAMAGE, type Damage } from '../support/damaged-spectra';
 import { DEMO_WORKLIST, OPEN_SPECTRA, ZVET_BIN } from '../support/paths';
+import { prng } from '../support/prng';
 import { astropyJson } from '../support/tools';
 
 const TOTAL = 1000;
 const DAMAGED = 50;
-const CONTROL = /[\u0000-\u001f\u007f]/;
 
 interface Input {
   path: string;
@@ -24,17 +24,6 @@ interface Input {
   source?: string;
   /** Damaged file: what was done to it. */
   damage?: Damage;
-}
-
-/** Seeded PRNG (mulberry32) so a failing layout can be replayed. */
-function prng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 /** The ending zvet's folder walk keys on, kept on the copy. */

@@ -7,15 +7,14 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { readSpectrum } from '../../core/spectrum/read';
 import { SpectrumReadError } from '../../core/spectrum/spectrum';
-import { FITS_DAMAGE, TEXT_DAMAGE } from '../support/damaged-spectra';
+import { CONTROL_CHARACTERS as CONTROL, FITS_DAMAGE, TEXT_DAMAGE } from '../support/damaged-spectra';
 import { DEMO_WORKLIST } from '../support/paths';
+import { prng } from '../support/prng';
 
 /** The demo's 1-D FITS images (the table, text and truncated files are not images). */
 const IMAGES = ['KRT-26-0011.fits', 'KRT-26-0012.fits', 'KRT-26-0013.fits', 'KRT-26-0014.fits', 'KRT-26-0015_1d.fits', 'KRT-26-0016.fits', 'KRT-26-0019.fits.gz', 'KRT-26-0020.fits', 'KRT-26-0021.fits', 'KRT-26-0022.fits'];
 /** Random draws (cut points, junk bytes) per image and damage. */
 const SEEDS = 8;
-/** C0 controls and DEL: nothing a one-line reason may carry. */
-const CONTROL = /[\u0000-\u001f\u007f]/;
 
 function reasonFor(bytes: Buffer, name: string): string {
   try {
@@ -25,17 +24,6 @@ function reasonFor(bytes: Buffer, name: string): string {
     return (err as SpectrumReadError).reason;
   }
   throw new Error(`${name} was read although it is damaged`);
-}
-
-/** Seeded PRNG (mulberry32) so a failure can be replayed. */
-function prng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 describe('damaged spectra: the reason', () => {

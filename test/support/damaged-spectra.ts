@@ -14,6 +14,9 @@ export interface Damage {
   demoSource?: string;
 }
 
+/** C0 controls and DEL: nothing a one-line reason may carry (a terminal or a CSV cell shows it as is). */
+export const CONTROL_CHARACTERS = /[\u0000-\u001f\u007f]/;
+
 const FITS_BLOCK = 2880;
 const BINARY = /^not a spectrum: binary data that is neither FITS nor gzip$/;
 
