@@ -7,7 +7,7 @@
 import { pixelsNearLines, type NativeResidual } from './native-residual.js';
 import type { LineDetection } from './line-detection.js';
 import { DETECTION_SNR } from './line-detection.js';
-import { templateChi2 } from './template-basis.js';
+import { chi2Scratch, templateChi2 } from './template-basis.js';
 import type { Template } from './templates.js';
 
 /** Lines closer than this in the rest frame are one feature (the Mg b triplet, Na D, Ca II H + Hε; common practice, no source). */
@@ -35,5 +35,5 @@ export function lineChi2Gain(nr: NativeResidual, template: Template, z: number):
   const w = Float64Array.from(idx, (i) => 1 / (nr.sigma[i] * nr.sigma[i]));
   let syy = 0;
   for (let k = 0; k < y.length; k++) syy += w[k] * y[k] * y[k];
-  return syy - templateChi2(template, z, wave, y, w, nr.pixelKmS, new Float64Array(wave.length)).chi2;
+  return syy - templateChi2(template, z, wave, y, w, nr.pixelKmS, chi2Scratch(wave.length)).chi2;
 }

@@ -10,7 +10,9 @@
  * falls in the window and makes false peaks at the ends of the lag range.
  *
  * Lag L (whole grid pixels) means z = exp(L·step) − 1. Templates are transformed once per grid
- * and cached; the spectrum is transformed once per FFT size.
+ * and cached; the spectrum is transformed once per FFT size. A template's coverage m_t is one
+ * interval of rest wavelengths, so the sums over it are differences of running sums, not
+ * transforms.
  */
 import { complexFft, forwardRealPair, nextPowerOfTwo, type ComplexFft } from './fft.js';
 import type { PreparedSpectrum } from './preprocess.js';
@@ -48,7 +50,9 @@ interface BankEntry {
   fft: ComplexFft;
   t: Float64Array;
   t2: Float64Array;
-  m: Float64Array;
+  /** Template buffer positions [coverLo, coverHi] inside the template's rest range. */
+  coverLo: number;
+  coverHi: number;
 }
 
 const bank = new Map<string, BankEntry>();
@@ -88,25 +92,25 @@ function bankEntry(t: Template, step: number, lay: Layout): BankEntry {
   for (let i = 0; i < n; i++) wave[i] = Math.exp((lay.templateOrigin + i) * step);
   const prof = new Float64Array(n);
   t.evaluate(wave, C_KMS * step, prof, CORRELATION_STRENGTH_POWER);
-  const cover = new Float64Array(n);
   const [lo, hi] = t.restRangeAngstrom;
-  for (let i = 0; i < n; i++) cover[i] = wave[i] >= lo && wave[i] <= hi ? 1 : 0;
   const sq = new Float64Array(n);
   for (let i = 0; i < n; i++) sq[i] = prof[i] * prof[i];
-  const entry: BankEntry = { fft, t: fft.buffer(), t2: fft.buffer(), m: fft.buffer() };
-  const scratch = fft.buffer();
-  forwardRealPair(fft, prof, sq, entry.t, entry.t2, scratch);
-  forwardRealPair(fft, cover, new Float64Array(0), entry.m, fft.buffer(), scratch);
+  const entry: BankEntry = { fft, t: fft.buffer(), t2: fft.buffer(), coverLo: 0, coverHi: n - 1 };
+  while (entry.coverLo < n && !(wave[entry.coverLo] >= lo)) entry.coverLo++;
+  while (entry.coverHi >= 0 && !(wave[entry.coverHi] <= hi)) entry.coverHi--;
+  forwardRealPair(fft, prof, sq, entry.t, entry.t2, fft.buffer());
   bank.set(key, entry);
   if (bank.size > BANK_SIZE) bank.delete(bank.keys().next().value as string);
   return entry;
 }
 
 interface SpectrumTransforms {
-  /** conj(FT(w·s)), conj(FT(w)), and P = conj(FT(w·s²)) + i·conj(FT(good)). */
+  /** conj(FT(w·s)) and conj(FT(w)). */
   sw: Float64Array;
   w: Float64Array;
-  p: Float64Array;
+  /** Running sums over the spectrum buffer: s2Sum[j] = Σ_{i<j} w·s², goodSum[j] = Σ_{i<j} good. */
+  s2Sum: Float64Array;
+  goodSum: Float64Array;
   nGood: number;
 }
 
@@ -114,8 +118,8 @@ interface SpectrumTransforms {
 interface Scratch {
   a: Float64Array;
   b: Float64Array;
-  c: Float64Array;
-  d: Float64Array;
+  s2Sum: Float64Array;
+  goodSum: Float64Array;
   /** Interleaved complex buffers. */
   z: Float64Array[];
 }
@@ -126,7 +130,7 @@ function scratchFor(fft: ComplexFft): Scratch {
   let s = scratchBySize.get(fft.size);
   if (!s) {
     const n = fft.size;
-    s = { a: new Float64Array(n), b: new Float64Array(n), c: new Float64Array(n), d: new Float64Array(n), z: Array.from({ length: 7 }, () => fft.buffer()) };
+    s = { a: new Float64Array(n), b: new Float64Array(n), s2Sum: new Float64Array(n + 1), goodSum: new Float64Array(n + 1), z: Array.from({ length: 6 }, () => fft.buffer()) };
     scratchBySize.set(n, s);
   }
   return s;
@@ -136,32 +140,31 @@ function spectrumTransforms(p: PreparedSpectrum, lay: Layout): SpectrumTransform
   const fft = complexFft(lay.size);
   const n = lay.size;
   const off = p.grid.start - lay.specOrigin;
-  const { a, b, c, d, z } = scratchFor(fft);
+  const { a, b, z, s2Sum, goodSum } = scratchFor(fft);
   a.fill(0);
   b.fill(0);
-  c.fill(0);
-  d.fill(0);
+  s2Sum.fill(0);
+  goodSum.fill(0);
   let nGood = 0;
   for (let i = 0; i < p.grid.length; i++) {
     const w = p.weight[i];
     a[off + i] = w * p.resid[i];
     b[off + i] = w;
-    c[off + i] = w * p.resid[i] * p.resid[i];
-    d[off + i] = w > 0 ? 1 : 0;
-    nGood += d[off + i];
   }
-  // z[4…6] hold the transforms kept while this spectrum's templates run; z[0…3] are scratch.
-  const [s2, g, scratch, , sw, ww, pp] = z;
+  for (let j = 0; j < n; j++) {
+    const i = j - off, w = i >= 0 && i < p.grid.length ? p.weight[i] : 0;
+    s2Sum[j + 1] = s2Sum[j] + (w > 0 ? w * p.resid[i] * p.resid[i] : 0);
+    goodSum[j + 1] = goodSum[j] + (w > 0 ? 1 : 0);
+    if (w > 0) nGood++;
+  }
+  // z[4…5] hold the transforms kept while this spectrum's templates run; z[0…3] are scratch.
+  const [, , scratch, , sw, ww] = z;
   forwardRealPair(fft, a, b, sw, ww, scratch);
-  forwardRealPair(fft, c, d, s2, g, scratch);
   for (let k = 0; k < n; k++) {
     sw[2 * k + 1] = -sw[2 * k + 1];
     ww[2 * k + 1] = -ww[2 * k + 1];
-    // conj(S2) + i·conj(G)
-    pp[2 * k] = s2[2 * k] + g[2 * k + 1];
-    pp[2 * k + 1] = -s2[2 * k + 1] + g[2 * k];
   }
-  return { sw, w: ww, p: pp, nGood };
+  return { sw, w: ww, s2Sum, goodSum, nGood };
 }
 
 /** Correlates the spectrum with each template over its z range. */
@@ -182,7 +185,7 @@ function correlateOne(p: PreparedSpectrum, template: Template, lay: Layout, st: 
   const e = bankEntry(template, p.grid.step, lay);
   const { fft } = e;
   const n = lay.size;
-  const [x, y, cx, cy] = scratchFor(fft).z;
+  const [x, cx] = scratchFor(fft).z;
   for (let k = 0; k < n; k++) {
     const re = 2 * k, im = re + 1;
     // conj(SW)·T + i·conj(W)·T2
@@ -192,12 +195,8 @@ function correlateOne(p: PreparedSpectrum, template: Template, lay: Layout, st: 
     const bi = st.w[re] * e.t2[im] + st.w[im] * e.t2[re];
     x[re] = ar - bi;
     x[im] = ai + br;
-    // P·M
-    y[re] = st.p[re] * e.m[re] - st.p[im] * e.m[im];
-    y[im] = st.p[re] * e.m[im] + st.p[im] * e.m[re];
   }
   fft.inverse(cx, x);
-  fft.inverse(cy, y);
   const nLag = lay.lagMax - lay.lagMin + 1;
   let t2Max = 0;
   for (let i = 0; i < nLag; i++) t2Max = Math.max(t2Max, cx[2 * (lay.lagMax - lay.lagMin - i) + 1]);
@@ -206,7 +205,11 @@ function correlateOne(p: PreparedSpectrum, template: Template, lay: Layout, st: 
   // Buffer position m pairs spectrum origin with template origin + m, i.e. lag L = lagMax − m.
   for (let i = 0; i < nLag; i++) {
     const m = lay.lagMax - (lay.lagMin + i);
-    const c = cx[2 * m], t2 = cx[2 * m + 1], s2 = cy[2 * m], g = cy[2 * m + 1];
+    const c = cx[2 * m], t2 = cx[2 * m + 1];
+    // Spectrum buffer positions j with template position j + m inside the coverage.
+    const jLo = Math.max(0, e.coverLo - m), jHi = Math.min(n - 1, e.coverHi - m);
+    const s2 = jHi >= jLo ? st.s2Sum[jHi + 1] - st.s2Sum[jLo] : 0;
+    const g = jHi >= jLo ? st.goodSum[jHi + 1] - st.goodSum[jLo] : 0;
     const ov = st.nGood > 0 ? g / st.nGood : 0;
     overlap[i] = Math.min(1, Math.max(0, ov));
     if (ov < MIN_OVERLAP || !(t2 > t2Floor) || !(s2 > 0)) {

@@ -5,7 +5,7 @@
  */
 import { robustContinuum } from './continuum.js';
 import { continuumBlockPixels, type PreparedSpectrum } from './preprocess.js';
-import type { Template } from './templates.js';
+import { lowerBound, type Template } from './templates.js';
 
 const C_KMS = 299792.458;
 /** Half-width of the mask around each line, in line σ (common practice, no source). */
@@ -56,7 +56,8 @@ export function pixelsNearLines(nr: NativeResidual, template: Template, z: numbe
   for (const l of template.lines) {
     const centre = l.waveRestAngstrom * (1 + z);
     const half = (halfSigmas * centre * Math.hypot(l.sigmaKmS, nr.pixelKmS)) / C_KMS;
-    for (let i = 0; i < n; i++) if (Math.abs(nr.waveAngstrom[i] - centre) <= half) keep[i] = 1;
+    // The wavelengths ascend (Spectrum), so the pixels near the line are one run.
+    for (let i = lowerBound(nr.waveAngstrom, centre - half); i < n && nr.waveAngstrom[i] <= centre + half; i++) keep[i] = 1;
   }
   const out: number[] = [];
   for (let i = 0; i < n; i++) if (keep[i] && nr.good[i] && Number.isFinite(nr.resid[i])) out.push(i);

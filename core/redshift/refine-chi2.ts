@@ -7,7 +7,7 @@
  * Numerical Recipes, §15.6), scaled by √χ²_red when that exceeds 1.
  */
 import { pixelsNearLines, type NativeResidual } from './native-residual.js';
-import { templateChi2 } from './template-basis.js';
+import { chi2Scratch, templateChi2 } from './template-basis.js';
 import type { Template } from './templates.js';
 
 /** Grid points either side of the start z. */
@@ -26,14 +26,14 @@ export function fitTemplateChi2(nr: NativeResidual, template: Template, z0: numb
   const wave = Float64Array.from(idx, (i) => nr.waveAngstrom[i]);
   const y = Float64Array.from(idx, (i) => nr.resid[i]);
   const w = Float64Array.from(idx, (i) => 1 / (nr.sigma[i] * nr.sigma[i]));
-  const rest = new Float64Array(wave.length);
+  const scratch = chi2Scratch(wave.length);
   const dz = halfRangeZ / HALF_STEPS;
   const zs: number[] = [];
   const chi: number[] = [];
   let nFree = 1;
   for (let s = -HALF_STEPS; s <= HALF_STEPS; s++) {
     const z = z0 + s * dz;
-    const fit = templateChi2(template, z, wave, y, w, nr.pixelKmS, rest);
+    const fit = templateChi2(template, z, wave, y, w, nr.pixelKmS, scratch);
     zs.push(z);
     chi.push(fit.chi2);
     nFree = fit.nFree;

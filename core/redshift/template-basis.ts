@@ -9,16 +9,18 @@ import { addLineProfile, type Template } from './templates.js';
 
 /**
  * One profile per free amplitude, each signed as the template has it (amplitudes are then ≥ 0),
- * and the template's own |strength| of each.
+ * and the template's own |strength| of each. Arrays in `reuse` (of rest's length) are zeroed
+ * and filled instead of new ones.
  */
-export function templateBasis(t: Template, rest: Float64Array, instSigmaKmS: number): { basis: Float64Array[]; strength: number[] } {
+export function templateBasis(t: Template, rest: Float64Array, instSigmaKmS: number, reuse: Float64Array[] = []): { basis: Float64Array[]; strength: number[] } {
+  const buffer = (g: number) => (reuse[g] ? reuse[g].fill(0) : (reuse[g] = new Float64Array(rest.length)));
   if (t.lines.length === 0) {
-    const b = new Float64Array(rest.length);
+    const b = buffer(0);
     t.evaluate(rest, instSigmaKmS, b);
     return { basis: [b], strength: [1] };
   }
   const { members, nGroups } = lineGroups(t.lines);
-  const basis = Array.from({ length: nGroups }, () => new Float64Array(rest.length));
+  const basis = Array.from({ length: nGroups }, (_, g) => buffer(g));
   const strength = new Array<number>(nGroups).fill(0);
   t.lines.forEach((l, k) => {
     const { group, ratio } = members[k];
@@ -73,13 +75,24 @@ export function nonNegativeFit(basis: Float64Array[], y: Float64Array, w: Float6
   return a;
 }
 
+/** Work arrays of templateChi2 for one set of wavelengths, reused from one z to the next. */
+export interface Chi2Scratch {
+  rest: Float64Array;
+  basis: Float64Array[];
+}
+
+export function chi2Scratch(length: number): Chi2Scratch {
+  return { rest: new Float64Array(length), basis: [] };
+}
+
 /**
  * χ² of the template at z against y (weights w) at the observed wavelengths, each profile's
- * amplitude fitted with the template's sign. `rest` is scratch of the same length.
+ * amplitude fitted with the template's sign.
  */
-export function templateChi2(template: Template, z: number, wave: Float64Array, y: Float64Array, w: Float64Array, instSigmaKmS: number, rest: Float64Array): { chi2: number; nFree: number } {
+export function templateChi2(template: Template, z: number, wave: Float64Array, y: Float64Array, w: Float64Array, instSigmaKmS: number, scratch: Chi2Scratch): { chi2: number; nFree: number } {
+  const { rest } = scratch;
   for (let k = 0; k < wave.length; k++) rest[k] = wave[k] / (1 + z);
-  const { basis } = templateBasis(template, rest, instSigmaKmS);
+  const { basis } = templateBasis(template, rest, instSigmaKmS, scratch.basis);
   const amplitude = nonNegativeFit(basis, y, w, basis.map((_, g) => g));
   let chi2 = 0;
   for (let k = 0; k < y.length; k++) {
