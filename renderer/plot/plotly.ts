@@ -13,7 +13,10 @@ export function loadPlotly(): Promise<PlotlyApi> {
   loading ??= new Promise((done, fail) => {
     const script = document.createElement('script');
     script.src = 'plotly.min.js';
-    script.onload = () => done(plotly());
+    script.onload = () => {
+      performance.mark('zvet:plotly-ready');
+      done(plotly());
+    };
     script.onerror = () => fail(new Error('plotly.min.js could not be loaded'));
     document.head.append(script);
   });

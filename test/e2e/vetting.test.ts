@@ -32,14 +32,16 @@ async function press(key: string): Promise<void> {
   await page.keyboard.press(key);
 }
 
-/** Moves with the "next" key until the spectrum is in view. */
+/** Moves with the "next" key until the spectrum is in view (and its panels drawn). */
 async function nextUntil(id: string): Promise<void> {
-  for (let i = 0; i < 20; i++) {
-    if ((await page.locator('#spectrum-plot').getAttribute('data-spectrum')) === id) return;
+  const shownId = () => page.locator('#spectrum-plot').getAttribute('data-spectrum');
+  for (let i = 0; i < 20 && (await shownId()) !== id; i++) {
+    const before = await shownId();
     await press('n');
-    await page.waitForFunction(() => !document.querySelector('.spectrum-title')?.textContent?.includes('loading…'));
+    await page.waitForFunction((b) => document.getElementById('spectrum-plot')?.dataset.spectrum !== b, before);
   }
   await waitDrawn(page, id);
+  await page.waitForFunction((want) => document.querySelector('#worklist-items [aria-current="true"]')?.getAttribute('data-id') === want, id);
 }
 
 /** Waits until the host has confirmed the journal write for the spectrum in view. */
