@@ -74,7 +74,7 @@ export function medianInPlace(a: Float64Array, n: number): number {
 }
 
 /** The k-th smallest of a[0…n−1]; afterwards a[0…k−1] ≤ a[k] ≤ a[k+1…n−1]. */
-function selectInPlace(a: Float64Array, n: number, k: number): number {
+export function selectInPlace(a: Float64Array, n: number, k: number): number {
   let left = 0, right = n - 1;
   while (right > left) {
     const mid = (left + right) >> 1;

@@ -3,6 +3,7 @@
  * same step share one absolute pixel numbering and a redshift is a whole-pixel shift:
  * z = exp(lag·step) − 1 (Tonry & Davis 1979, AJ 84, 1511).
  */
+import { selectInPlace } from './continuum.js';
 
 /** SDSS's native step, Δlog10 λ = 1e-4 (69 km/s per pixel). */
 export const SDSS_LN_STEP = Math.LN10 * 1e-4;
@@ -23,8 +24,7 @@ export function gridStepFor(waveAngstrom: Float64Array): number {
   const n = waveAngstrom.length;
   const d = new Float64Array(n - 1);
   for (let i = 1; i < n; i++) d[i - 1] = Math.log(waveAngstrom[i] / waveAngstrom[i - 1]);
-  d.sort();
-  const median = d[(d.length - 1) >> 1];
+  const median = selectInPlace(d, d.length, (d.length - 1) >> 1);
   const k = Math.round(4 * Math.log2(median / SDSS_LN_STEP));
   return SDSS_LN_STEP * Math.pow(2, k / 4);
 }
