@@ -10,6 +10,7 @@ import { join } from 'node:path';
 import { build } from 'esbuild';
 import { VerdictJournal } from '../../core/node/journal.js';
 import { ROOT } from '../support/paths.js';
+import { prng } from '../support/prng.js';
 
 const TRIALS = 100;
 const VERDICTS_PER_CHILD = 400;
@@ -22,17 +23,6 @@ beforeAll(async () => {
   await build({ entryPoints: [join(ROOT, 'test/support/journal-child.ts')], bundle: true, platform: 'node', format: 'esm', outfile: childScript, logLevel: 'error' });
 });
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
-
-/** Seeded PRNG (mulberry32) so a failing trial can be replayed. */
-function prng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /**
  * Runs one child and kills it `delayMs` after its `killAfterAcks`-th acknowledgement, so that

@@ -1,10 +1,13 @@
-/** Seeded PRNG (mulberry32, public domain) giving numbers in [0, 1), so a failing case can be replayed. */
+// Seeded random numbers for tests, so a failing case can be replayed: the same generator the
+// demo worklist uses (sample-spectra/demo/random.ts: mulberry32 + Box–Muller).
+import { seededRandom } from '../../sample-spectra/demo/random.js';
+
+/** Uniform deviates in [0, 1). */
 export function prng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  return seededRandom(seed).uniform;
+}
+
+/** Standard normal deviates (mean 0, σ 1). */
+export function normalDeviates(seed: number): () => number {
+  return seededRandom(seed).normal;
 }

@@ -1,18 +1,8 @@
 // Synthetic spectra with Gaussian emission lines injected at known fluxes, for the host tests.
 import type { Spectrum } from '../../core/spectrum/spectrum.js';
+import { normalDeviates } from '../support/prng.js';
 
-/** Deterministic normal deviates (mulberry32 + Box–Muller). */
-export function normalDeviates(seed: number): () => number {
-  let a = seed >>> 0;
-  const uniform = () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-  return () => Math.sqrt(-2 * Math.log(1 - uniform())) * Math.cos(2 * Math.PI * uniform());
-}
+export { normalDeviates };
 
 export interface InjectedLine {
   restWaveAngstrom: number;
