@@ -10,6 +10,7 @@ import { renderDerived, type LiveResult } from './panels/derived-panel.js';
 import { renderHost } from './panels/host-panel.js';
 import { renderHelp, renderLinePick } from './panels/overlays.js';
 import { renderPlotControls } from './panels/plot-controls.js';
+import { renderRemeasure } from './panels/remeasure-overlay.js';
 import { renderSpectrumTitle } from './panels/spectrum-title.js';
 import { renderExport, renderSaveState } from './panels/status-panels.js';
 import { renderWorklist } from './panels/worklist-panel.js';
@@ -69,10 +70,19 @@ function renderTab(state: AppState): void {
   else renderHost(body, live(controller.host, state));
 }
 
+let overlayShown: AppState['modal'] = 'none';
+
 function renderOverlay(state: AppState): void {
   const box = byId('overlay');
   box.hidden = state.modal === 'none';
+  // The form keeps what is typed in it: drawn once when it opens.
+  if (state.modal === 'remeasure' && overlayShown === 'remeasure') return;
+  overlayShown = state.modal;
   if (state.modal === 'help') renderHelp(box);
+  else if (state.modal === 'remeasure') {
+    const templates = (state.view?.measurement?.correlations ?? []).map((c) => c.template);
+    renderRemeasure(box, templates, (o) => void controller.remeasure(o), () => controller.closeModal());
+  }
   else if (state.modal === 'line-pick' && state.linePick) renderLinePick(box, state.linePick.waveAngstrom, state.linePick.choices, (i) => controller.chooseLine(i));
   else fill(box);
 }

@@ -2,7 +2,7 @@
  * The window's behaviour: what each key, button and click does to the state, which host calls
  * it makes, and what is redrawn. Panels only draw; this is the one place that decides.
  */
-import type { ExportFormat, HostApi, SpectrumView, VerdictInput } from '../../core/api/host-api.js';
+import type { ExportFormat, HostApi, RemeasureOptions, SpectrumView, VerdictInput } from '../../core/api/host-api.js';
 import type { Confidence, ObjectClass, Verdict } from '../../core/catalogue/verdict.js';
 import type { FrameResult } from '../../core/astro/frames.js';
 import type { HostAnalysis } from '../../core/hosts/analyse.js';
@@ -300,6 +300,22 @@ export class Controller {
     }
   }
 
+  /** Measures the spectrum in view again with other options; the host keeps them for it. */
+  async remeasure(options: RemeasureOptions): Promise<void> {
+    const id = this.s.currentId;
+    if (!id) return;
+    this.closeModal();
+    this.say(`measuring ${id} again…`);
+    try {
+      await this.api.remeasure({ id, options });
+      this.cache.drop(id);
+      await this.show(id);
+      this.say(`${id} measured again`);
+    } catch (err) {
+      this.say(`not measured again: ${(err as Error).message}`);
+    }
+  }
+
   retrySaves(): void {
     void this.queue.retry();
   }
@@ -388,7 +404,7 @@ export class Controller {
   act(action: ActionId): void {
     const s = this.s;
     const items = s.worklist?.items ?? [];
-    if (s.modal === 'help' && action !== 'help' && action !== 'escape') return;
+    if ((s.modal === 'help' && action !== 'help' && action !== 'escape') || (s.modal === 'remeasure' && action !== 'escape')) return;
     switch (action) {
       case 'accept-best': return this.decide({ kind: 'accept-best' });
       case 'candidate-1': case 'candidate-2': case 'candidate-3': case 'candidate-4': case 'candidate-5':
@@ -429,6 +445,10 @@ export class Controller {
       case 'toggle-sky': return this.setSky(!s.showSky);
       case 'cycle-filter': return this.setFilter(nextFilter(s.filter));
       case 'cycle-correlation': return this.cycleCorrelation();
+      case 'remeasure':
+        if (!s.view?.arrays) return this.say('this file cannot be read, so it cannot be measured');
+        s.modal = 'remeasure';
+        return this.view.panels(s);
       case 'tab-derived': return this.setTab('derived');
       case 'tab-host': return this.setTab('host');
       case 'export': return void this.exportAll();

@@ -28,7 +28,7 @@ export interface AppState {
   /** Why the host could not give the template overlay, when it could not. */
   overlayProblem: string | null;
   tab: 'derived' | 'host';
-  modal: 'none' | 'help' | 'line-pick';
+  modal: 'none' | 'help' | 'line-pick' | 'remeasure';
   identifying: boolean;
   linePick: { waveAngstrom: number; choices: LineChoice[] } | null;
   saves: readonly QueuedSave[];

@@ -38,5 +38,6 @@ export const PLOT_CONFIG: Partial<PlotlyModule.Config> = {
   responsive: true,
   scrollZoom: true,
   doubleClick: 'reset',
+  showTips: false,
   modeBarButtonsToRemove: ['toImage', 'lasso2d', 'select2d', 'autoScale2d'],
 };

@@ -47,6 +47,7 @@ export const ACTION_IDS = [
   'tab-host',
   'export',
   'cycle-correlation',
+  'remeasure',
   'help',
   'escape',
 ] as const;
@@ -103,6 +104,7 @@ export const KEYMAP: readonly Binding[] = [
   { action: 'tab-host', keys: ['h'], group: 'Panels', label: 'Show host galaxy lines and diagram' },
   { action: 'export', keys: ['Shift+E'], group: 'Panels', label: 'Export the catalogue (CSV, ECSV, FITS)' },
   { action: 'cycle-correlation', keys: ['c'], group: 'View', label: 'Correlation curve: next template' },
+  { action: 'remeasure', keys: ['Shift+M'], group: 'View', label: 'Measure again: z range, templates, masks' },
   { action: 'help', keys: ['?'], group: 'Panels', label: 'This list of keys' },
   { action: 'escape', keys: ['Escape'], group: 'Panels', label: 'Close a panel, cancel identifying a line' },
 ];

@@ -16,7 +16,10 @@ import { openWindow, waitDrawn, type WindowSession } from './browser';
 
 const ARTIFACTS = join(ROOT, 'test-artifacts');
 const O3_REST = 5008.24; // [O III] vacuum, DESIGN.md check value
-const AGN_TRUE_Z = 0.08762; // sample-spectra/truth.csv, KRT-26-0014
+/** True z of the demo AGN host, from the demo's own record (sample-spectra/truth.csv). */
+const AGN_TRUE_Z = Number(
+  readFileSync(join(ROOT, 'sample-spectra/truth.csv'), 'utf8').split('\n').find((l) => l.startsWith('KRT-26-0014.fits,'))!.split(',')[3],
+);
 
 let tmp: string;
 let server: ServeProcess;
@@ -133,6 +136,22 @@ describe('vetting in the window', () => {
     const { z } = await savedAs('accepted');
     expect(z).toBeCloseTo(best, 4);
     vetted['KRT-26-0011.fits'] = { status: 'accepted', z };
+  });
+
+  it('measures a spectrum again within a narrower z range', async () => {
+    await press('Shift+M');
+    await page.waitForSelector('#remeasure-card');
+    await page.fill('#remeasure-zmin', '0');
+    await page.fill('#remeasure-zmax', '0.3');
+    await shot('remeasure');
+    await page.press('#remeasure-zmax', 'Enter');
+    await page.waitForSelector('#remeasure-card', { state: 'detached' });
+    await expect.poll(async () => {
+      const zs = await Promise.all([0, 1, 2].map((i) => candidateZ(i).catch(() => NaN)));
+      return zs.filter((z) => Number.isFinite(z)).every((z) => z <= 0.3 + 1e-9) && Number.isFinite(zs[0]);
+    }, { timeout: 30_000 }).toBe(true);
+    // The verdict already saved stays what it was.
+    expect(await page.locator('#verdict-now').textContent()).toContain('accepted');
   });
 
   it('takes another candidate: its number, then Enter', async () => {
