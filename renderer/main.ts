@@ -3,7 +3,6 @@ import { connectHost } from './api/client.js';
 import { Controller, keyOf, type LiveSlot, type View } from './app/controller.js';
 import { Plots } from './app/plots.js';
 import type { AppState } from './app/state.js';
-import { COSMOLOGY_PRESETS } from '../core/astro/cosmology.js';
 import { renderCandidates } from './panels/candidates-panel.js';
 import { DecisionPanel } from './panels/decision-panel.js';
 import { renderDerived, type LiveResult } from './panels/derived-panel.js';
@@ -22,7 +21,6 @@ import { actionFor } from './ui/keymap.js';
 void loadPlotly();
 const api = connectHost();
 let controller: Controller;
-let cosmologyName = COSMOLOGY_PRESETS.planck18?.name ?? 'planck18';
 
 const decision = new DecisionPanel(byId('decision'), {
   acceptBest: () => controller.decide({ kind: 'accept-best' }),
@@ -44,11 +42,12 @@ const plots = new Plots(byId<PlotElement>('spectrum-plot'), byId<PlotElement>('c
 });
 
 function live<T>(slot: LiveSlot<T> | null, state: AppState): LiveResult<T> | null {
-  if (!slot || !state.currentId || state.trial.z === null) return null;
+  if (!state.currentId || state.trial.z === null) return null;
+  if (!slot) return { result: null, error: null, stale: true };
   return { result: slot.result, error: slot.error, stale: slot.key !== keyOf(state.currentId, state.trial.z) };
 }
 
-let lastTab: { tab: string; slot: unknown; stale: boolean } | null = null;
+let lastTab: { tab: string; slot: unknown; stale: boolean; settings: unknown } | null = null;
 
 function renderTab(state: AppState): void {
   // The host panel's table and diagram want room: the side column widens while it is shown.
@@ -61,12 +60,12 @@ function renderTab(state: AppState): void {
   byId('tab-host').setAttribute('aria-selected', String(state.tab === 'host'));
   const slot = state.tab === 'derived' ? controller.derived : controller.host;
   const lv = state.tab === 'derived' ? live(controller.derived, state) : live(controller.host, state);
-  const now = { tab: state.tab, slot, stale: lv?.stale ?? true };
-  if (lastTab && lastTab.tab === now.tab && lastTab.slot === now.slot && lastTab.stale === now.stale) return;
+  const now = { tab: state.tab, slot, stale: lv?.stale ?? true, settings: state.settings };
+  if (lastTab && lastTab.tab === now.tab && lastTab.slot === now.slot && lastTab.stale === now.stale && lastTab.settings === now.settings) return;
   lastTab = now;
   const body = byId('tab-body');
   if (state.view?.error && !state.view.arrays) fill(body, el('p', { class: 'muted' }, 'nothing to derive: the file could not be read'));
-  else if (state.tab === 'derived') renderDerived(body, live(controller.derived, state), cosmologyName);
+  else if (state.tab === 'derived') renderDerived(body, live(controller.derived, state), state.settings?.cosmologyPreset ?? 'planck18', (p) => void controller.setCosmology(p));
   else renderHost(body, live(controller.host, state));
 }
 
@@ -91,7 +90,7 @@ function renderProblem(state: AppState): void {
   const box = byId('spectrum-problem');
   const text = state.problem ?? (state.view && !state.view.arrays ? state.view.error : null) ?? (state.loading ? null : null);
   box.hidden = !text;
-  if (text) fill(box, el('strong', {}, state.problem ? 'The host did not answer: ' : 'This file cannot be read: '), el('span', { id: 'problem-text' }, text),
+  if (text) fill(box, el('strong', {}, state.problem ? 'The host says: ' : 'This file cannot be read: '), el('span', { id: 'problem-text' }, text),
     state.problem ? null : el('p', { class: 'muted' }, 'It stays in the worklist; you can mark it "no redshift" (x) or move on (n).'));
 }
 
@@ -100,6 +99,7 @@ const view: View = {
     renderWorklist(state, { filters: byId('filters'), items: byId('worklist-items'), progress: byId('progress'), name: byId('worklist-name'), warnings: byId('worklist-warnings') }, {
       filter: (f) => controller.setFilter(f),
       pick: (id) => void controller.show(id),
+      open: (path) => void controller.openWorklist(path),
     });
     renderSpectrumTitle(state, byId('spectrum-title'));
     renderProblem(state);
@@ -166,7 +166,4 @@ byId('overlay').addEventListener('click', (e) => {
   if (e.target === e.currentTarget) controller.closeModal();
 });
 
-void api.getSettings({}).then((s) => {
-  cosmologyName = s.cosmologyPreset === 'custom' && s.customCosmology ? `H0 = ${s.customCosmology.h0} km/s/Mpc, Ωm = ${s.customCosmology.omegaM}, ΩΛ = ${s.customCosmology.omegaL}` : (COSMOLOGY_PRESETS[s.cosmologyPreset]?.name ?? s.cosmologyPreset);
-}).catch(() => undefined);
 void controller.start();

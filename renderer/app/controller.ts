@@ -76,6 +76,10 @@ export class Controller {
   // ---- start and worklist ------------------------------------------------------------------
 
   async start(): Promise<void> {
+    this.api.getSettings({}).then((settings) => {
+      this.s.settings = settings;
+      this.view.panels(this.s);
+    }, () => undefined);
     try {
       this.s.worklist = await this.api.listSpectra({});
       performance.mark('zvet:worklist');
@@ -84,6 +88,25 @@ export class Controller {
       this.view.panels(this.s);
       return;
     }
+    await this.openFirst();
+  }
+
+  /** Opens a worklist folder chosen in the window (when the host started without one, or another). */
+  async openWorklist(path: string): Promise<void> {
+    try {
+      this.s.worklist = await this.api.openWorklist({ path: path.trim() });
+      this.s.problem = null;
+      this.s.view = null;
+      this.s.currentId = null;
+    } catch (err) {
+      return this.say(`not opened: ${(err as Error).message}`);
+    }
+    this.s.settings = await this.api.getSettings({}).catch(() => this.s.settings);
+    await this.openFirst();
+  }
+
+  private async openFirst(): Promise<void> {
+    if (!this.s.worklist) return;
     const items = this.s.worklist.items;
     const first = nextPending(items, null) ?? items[0]?.id ?? null;
     this.s.filter = 'all';
@@ -377,6 +400,19 @@ export class Controller {
     this.s.showSky = on;
     void this.view.spectrum(this.s);
     this.view.panels(this.s);
+  }
+
+  /** Distances in another cosmology preset: saved in the settings, then the panel follows. */
+  async setCosmology(preset: string): Promise<void> {
+    try {
+      this.s.settings = await this.api.putSettings({ cosmologyPreset: preset });
+    } catch (err) {
+      return this.say(`cosmology not changed: ${(err as Error).message}`);
+    }
+    const { currentId: id, trial } = this.s;
+    this.derived = null;
+    this.view.panels(this.s);
+    if (id && trial.z !== null) this.derivedCall.request({ id, z: trial.z, zErr: trial.zErr });
   }
 
   setTab(tab: AppState['tab']): void {

@@ -1,5 +1,5 @@
 /** Everything the window shows, in one place; panels read it, the controller changes it. */
-import type { SpectrumView, WorklistState } from '../../core/api/host-api.js';
+import type { Settings, SpectrumView, WorklistState } from '../../core/api/host-api.js';
 import type { Grade, Trial } from '../state/decision.js';
 import type { WorklistFilter } from '../state/worklist-view.js';
 import type { SmoothingSetting } from '../plot/smoothing.js';
@@ -34,6 +34,8 @@ export interface AppState {
   saves: readonly QueuedSave[];
   lastSaved: { id: string; time: string } | null;
   exportResult: { ok: boolean; text: string } | null;
+  /** The host's settings (cosmology preset, recent worklists), once read. */
+  settings: Settings | null;
   message: string | null;
 }
 
@@ -63,6 +65,7 @@ export function initialState(): AppState {
     saves: [],
     lastSaved: null,
     exportResult: null,
+    settings: null,
     message: null,
   };
 }

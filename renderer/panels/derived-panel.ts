@@ -4,6 +4,7 @@
  */
 import type { FrameResult } from '../../core/astro/frames.js';
 import { SPEED_OF_LIGHT_KMS } from '../../core/astro/constants.js';
+import { COSMOLOGY_PRESETS } from '../../core/astro/cosmology.js';
 import { el, fill } from '../ui/dom.js';
 import { fmtNum, fmtZ } from '../ui/format.js';
 
@@ -22,12 +23,23 @@ function dl(rows: [string, string][]): HTMLElement {
 export function usableResult<T>(box: HTMLElement, live: LiveResult<T> | null, what: string): T | null {
   if (!live) fill(box, el('p', { class: 'muted' }, 'no trial z yet'));
   else if (live.error) fill(box, el('p', { class: 'caveat' }, `${what} not available: ${live.error}`));
+  else if (!live.result) fill(box, el('p', { class: 'muted' }, `${what}: updating…`));
   return live?.error ? null : (live?.result ?? null);
 }
 
-export function renderDerived(box: HTMLElement, live: LiveResult<FrameResult> | null, cosmologyName: string): void {
+/** The preset picker, with the source of the one in use. */
+function cosmologyPicker(current: string, onChange: (preset: string) => void): HTMLElement {
+  const known = Object.values(COSMOLOGY_PRESETS);
+  const select = el('select', { id: 'cosmology', 'aria-label': 'cosmology', onchange: (e) => onChange((e.target as HTMLSelectElement).value) },
+    ...known.map((m) => el('option', { value: m.name, selected: m.name === current }, `${m.name}: H0 = ${m.h0} km/s/Mpc, Ωm = ${m.omegaM}, ΩΛ = ${m.omegaL.toFixed(4).replace(/0+$/, '')}`)),
+    current === 'custom' ? el('option', { value: 'custom', selected: true }, 'custom (from the settings)') : null);
+  return el('div', {}, select, el('p', { class: 'why' }, COSMOLOGY_PRESETS[current]?.source ?? 'user values from the settings'));
+}
+
+export function renderDerived(box: HTMLElement, live: LiveResult<FrameResult> | null, cosmology: string, onCosmology: (preset: string) => void): void {
   const f = usableResult(box, live, 'derived quantities');
   if (!f || !live) return;
+  const cosmologyName = cosmology;
   const frameZ = f.zBary ?? f.zHelio ?? f.zObs;
   const d = f.distances;
   fill(box,
@@ -45,6 +57,7 @@ export function renderDerived(box: HTMLElement, live: LiveResult<FrameResult> | 
     ]),
     el('p', { class: 'why', id: 'frame-reason' }, `Correction applied: ${f.correction}. ${f.reason}`),
     el('h2', {}, `Distances (${cosmologyName}${f.distancesFrom ? `, from the ${f.distancesFrom} z` : ''})`),
+    cosmologyPicker(cosmology, onCosmology),
     d ? dl([
       ['comoving', fmtNum(d.comovingMpc, 1, 'Mpc')],
       ['transverse comoving', fmtNum(d.transverseMpc, 1, 'Mpc')],

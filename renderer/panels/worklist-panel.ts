@@ -36,7 +36,21 @@ function row(item: SpectrumListItem, current: boolean, saving: Map<string, strin
   el('span', { class: 'sub' }, ...(Array.isArray(sub) ? sub : [sub]), saving.has(item.id) ? el('span', { class: saving.get(item.id) === 'failed' ? 'problem' : 'muted' }, saving.get(item.id) === 'failed' ? 'NOT SAVED' : 'saving…') : null));
 }
 
-export function renderWorklist(state: AppState, parts: { filters: HTMLElement; items: HTMLElement; progress: HTMLElement; name: HTMLElement; warnings: HTMLElement }, on: { filter(f: WorklistFilter): void; pick(id: string): void }): void {
+/** With no worklist open: a folder to type, or one of the recent ones. Drawn once, so typing survives redraws. */
+function openForm(state: AppState, items: HTMLElement, onOpen: (path: string) => void): void {
+  if (items.querySelector('#open-path')) return;
+  const input = el('input', { id: 'open-path', type: 'text', placeholder: 'folder of spectra (absolute path)', 'aria-label': 'worklist folder' });
+  input.addEventListener('keydown', (e) => {
+    if (e.key === 'Enter') onOpen(input.value);
+    e.stopPropagation();
+  });
+  fill(items, el('li', { class: 'empty' },
+    el('p', {}, 'Open a worklist: the folder of one night\'s spectra.'), input,
+    el('p', {}, el('button', { type: 'button', onclick: () => onOpen(input.value) }, 'Open')),
+    ...(state.settings?.recentWorklists ?? []).map((p) => el('p', {}, el('button', { type: 'button', class: 'ghost', title: p, onclick: () => onOpen(p) }, `recent: ${p}`)))));
+}
+
+export function renderWorklist(state: AppState, parts: { filters: HTMLElement; items: HTMLElement; progress: HTMLElement; name: HTMLElement; warnings: HTMLElement }, on: { filter(f: WorklistFilter): void; pick(id: string): void; open(path: string): void }): void {
   const wl = state.worklist;
   fill(parts.name, wl ? `· ${wl.name}` : '');
   const counts = new Map<WorklistFilter, number>(FILTERS.map((f) => [f, wl ? wl.items.filter((it) => passesFilter(it, f)).length : 0]));
@@ -44,8 +58,9 @@ export function renderWorklist(state: AppState, parts: { filters: HTMLElement; i
   const { vetted, total } = progress(wl?.items ?? []);
   fill(parts.progress, el('span', { class: 'bar', 'aria-hidden': 'true' }, el('span', { style: `width:${total ? (100 * vetted) / total : 0}%` })), `${vetted} of ${total} vetted`);
   const saving = new Map(state.saves.map((q) => [q.input.id, q.state]));
-  const shown = (wl?.items ?? []).filter((it) => passesFilter(it, state.filter));
-  fill(parts.items, ...(shown.length ? shown.map((it) => row(it, it.id === state.currentId, saving, on.pick)) : [el('li', { class: 'empty' }, wl ? `no spectra are ${state.filter}` : 'no worklist open')]));
+  if (!wl) return openForm(state, parts.items, on.open);
+  const shown = wl.items.filter((it) => passesFilter(it, state.filter));
+  fill(parts.items, ...(shown.length ? shown.map((it) => row(it, it.id === state.currentId, saving, on.pick)) : [el('li', { class: 'empty' }, `no spectra are ${state.filter}`)]));
   parts.items.querySelector('[aria-current="true"]')?.scrollIntoView({ block: 'nearest' });
-  fill(parts.warnings, ...(wl?.warnings ?? []).map((w) => el('p', {}, `⚠ ${w}`)));
+  fill(parts.warnings, ...wl.warnings.map((w) => el('p', {}, `⚠ ${w}`)));
 }

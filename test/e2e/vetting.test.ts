@@ -95,6 +95,20 @@ describe('vetting in the window', () => {
     await shot('main-view');
   });
 
+  it('follows a change of cosmology preset in the derived panel', async () => {
+    const luminosity = () => page.locator('#tab-body dt:text-is("luminosity") + dd').textContent();
+    await expect.poll(luminosity).toMatch(/Mpc$/);
+    const before = Number.parseFloat((await luminosity()) ?? '');
+    await page.selectOption('#cosmology', 'round70');
+    await expect.poll(() => page.locator('#tab-body h2').nth(1).textContent()).toContain('round70');
+    // H0 = 70 instead of 67.66 km/s/Mpc: distances shrink by about 67.66/70 at low z.
+    const after = Number.parseFloat((await luminosity()) ?? '');
+    expect(after / before).toBeGreaterThan(0.94);
+    expect(after / before).toBeLessThan(0.99);
+    await page.selectOption('#cosmology', 'planck18');
+    await expect.poll(() => page.locator('#tab-body h2').nth(1).textContent()).toContain('planck18');
+  });
+
   it('zooms, pans and smooths by key, with the rest-frame axis following at λ/(1+z)', async () => {
     const axes = () => page.evaluate(() => {
       const gd = document.getElementById('spectrum-plot') as HTMLElement & { _fullLayout: any; data: any[] };

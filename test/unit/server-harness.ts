@@ -16,9 +16,10 @@ export interface ServeProcess {
   stop(signal?: NodeJS.Signals): Promise<number | null>;
 }
 
-export async function startServe(folder: string, configDir: string): Promise<ServeProcess> {
+/** Starts `zvet serve FOLDER`, or with `folder` null `zvet serve` with no worklist open. */
+export async function startServe(folder: string | null, configDir: string): Promise<ServeProcess> {
   if (!existsSync(resolve(ROOT, 'dist/cli.js'))) throw new Error('dist/cli.js is missing: run npm run build first');
-  const child = spawn(process.execPath, [ZVET_BIN, 'serve', folder, '--port', '0', '--no-open'], {
+  const child = spawn(process.execPath, [ZVET_BIN, 'serve', ...(folder === null ? [] : [folder]), '--port', '0', '--no-open'], {
     env: { ...process.env, ZVET_CONFIG_DIR: configDir },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
