@@ -83,6 +83,8 @@ async function benchWorklist(label, source, only) {
     for (let i = 0; i < n - 1 && latencies.length < 24; i++) await step('n');
     for (let i = 0; i < n - 1 && latencies.length < 24; i++) await step('p');
   }
+  await page.reload();
+  const reloadMs = await firstPlot(page);
   const pixels = await page.evaluate(() => document.getElementById('spectrum-plot').data?.[2]?.x?.length ?? 0);
   await win.close();
   await cold.stop();
@@ -92,6 +94,7 @@ async function benchWorklist(label, source, only) {
   console.log(`    of which waiting for the spectrum from the host or the prefetch: median ${fmt(median(fetches))}, p95 ${fmt(p95(fetches))}`);
   console.log(`  cold start, zvet serve spawned → first plot: ${fmt(coldWallMs)} (navigation → first plot ${fmt(coldPageMs.plot)}; ${steps(coldPageMs)})`);
   console.log(`  warm host, navigation → first plot: ${fmt(warmPageMs.plot)} (${steps(warmPageMs)})`);
+  console.log(`  reload in the same browser profile → first plot: ${fmt(reloadMs.plot)} (${steps(reloadMs)})`);
 }
 
 console.log(`load average at start: ${(await import('node:os')).loadavg().map((l) => l.toFixed(1)).join(' ')} on ${(await import('node:os')).cpus().length} cores`);

@@ -1,5 +1,5 @@
 // Browser mode started without a folder: the window offers to open one, and then shows it.
-import { cpSync, mkdtempSync, rmSync } from 'node:fs';
+import { cpSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, expect, it } from 'vitest';
@@ -34,5 +34,6 @@ it('opens a worklist typed into the window', async () => {
   await page.press('#open-path', 'Enter');
   await waitDrawn(page, 'KRT-26-0011.fits');
   expect(await page.locator('#worklist-items li[data-id]').count()).toBe(13);
+  mkdirSync(join(ROOT, 'test-artifacts'), { recursive: true });
   await page.screenshot({ path: join(ROOT, 'test-artifacts', 'opened-from-window.png') });
 });
