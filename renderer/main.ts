@@ -101,7 +101,7 @@ const view: View = {
       pick: (id) => void controller.show(id),
       open: (path) => void controller.openWorklist(path),
     });
-    renderSpectrumTitle(state, byId('spectrum-title'));
+    renderSpectrumTitle(state, byId('spectrum-title'), (a) => controller.act(a));
     renderProblem(state);
     renderPlotControls(state, byId('plot-controls'), {
       kernel: (k) => controller.setSmoothing(k, state.smoothing.widthPx),
@@ -109,7 +109,7 @@ const view: View = {
       template: (on) => controller.setTemplate(on),
       sky: (on) => controller.setSky(on),
     });
-    renderCandidates(state, byId('candidates'), (i) => controller.tryCandidate(i));
+    renderCandidates(state, byId('candidates'), (i) => controller.tryCandidate(i), () => controller.act('remeasure'));
     decision.render(state);
     renderSaveState(state, byId('save-state'), byId('save-failure'), () => controller.retrySaves());
     renderExport(state, byId('export'), (f) => void controller.exportAs(f));
@@ -127,9 +127,9 @@ const view: View = {
   async correlation(state) {
     const template = await plots.drawCorrelation(state);
     const curves = state.view?.measurement?.correlations ?? [];
-    fill(byId('correlation-head'), el('h2', {}, 'Correlation'),
-      template ? el('span', {}, `template ${template}${curves.length > 1 ? ` (${curves.length} templates)` : ''}`) : el('span', {}, 'no correlation for this spectrum'),
-      curves.length > 1 ? el('kbd', {}, 'c') : null, el('span', {}, 'click a numbered candidate to try it'));
+    fill(byId('correlation-head'), el('h2', { title: 'click a numbered candidate to try its z' }, 'Correlation'),
+      el('span', { class: 'nowrap' }, template ?? 'none for this spectrum'),
+      curves.length > 1 ? el('button', { type: 'button', class: 'ghost', title: `next of ${curves.length} templates (c)`, onclick: () => controller.act('cycle-correlation') }, 'other template', el('kbd', {}, 'c')) : null);
     return template;
   },
   fullRange: (state) => plots.fullRange(state),

@@ -5,7 +5,7 @@ import { el, fill } from '../ui/dom.js';
 import { fmtZErr } from '../ui/format.js';
 import { confidenceBadge } from './worklist-panel.js';
 
-export function renderCandidates(state: AppState, box: HTMLElement, onTry: (index: number) => void): void {
+export function renderCandidates(state: AppState, box: HTMLElement, onTry: (index: number) => void, onRemeasure: () => void): void {
   const list = candidates(state.view);
   const m = state.view?.measurement;
   if (!m || list.length === 0) {
@@ -22,7 +22,8 @@ export function renderCandidates(state: AppState, box: HTMLElement, onTry: (inde
       el('td', { class: 'num' }, `${Math.round(100 * c.overlap)} %`),
       el('td', { class: 'muted' }, i === 0 ? 'best' : '')));
   fill(box,
-    el('div', { class: 'panel-head' }, el('h2', {}, 'Candidates'), el('span', {}, 'suggested: '), m.confidence === 'none' ? el('span', {}, 'none credible') : confidenceBadge(m.confidence), el('span', {}, `· ${m.nLines} lines detected`)),
+    el('div', { class: 'panel-head' }, el('h2', {}, 'Candidates'), el('span', { class: 'nowrap' }, 'suggested:'), m.confidence === 'none' ? el('span', {}, 'none credible') : confidenceBadge(m.confidence), el('span', { class: 'nowrap' }, `· ${m.nLines} lines`),
+      el('button', { type: 'button', class: 'ghost nowrap', onclick: onRemeasure, title: 'Shift+M' }, 'measure again…')),
     el('table', {}, el('thead', {}, head), el('tbody', {}, ...rows)),
     m.notes.length ? el('p', { class: 'muted' }, m.notes.join(' · ')) : null);
 }
