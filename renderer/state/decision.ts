@@ -107,6 +107,8 @@ export function verdictFor(view: SpectrumView, decision: Decision, trial: Trial,
     }
     case 'trial':
       if (trial.z === null) return { refused: 'there is no trial z to save' };
+      // Enter on a verdict as it was saved keeps its status (only the grade may have changed).
+      if (trial.source === 'saved' && view.verdict) return verdictFor(view, { kind: 'regrade', verdict: view.verdict }, trial, grade);
       if (trial.source === 'candidate' && trial.candidateIndex !== null) return verdictFor(view, { kind: 'candidate', index: trial.candidateIndex }, trial, grade);
       return { ...base, status: 'revised', z: trial.z, zErr: trial.source === 'saved' ? trial.zErr : null, confidence, template: trial.template };
     case 'no-redshift':

@@ -43,6 +43,10 @@ describe('decisions', () => {
     expect(t.z).toBeCloseTo(nudgeZ(nudgeZ(0.1, 100), -10), 15);
     expect(t.detail).toBe('+90 km/s from candidate 1, sf');
   });
+  it('saving the trial z of a reopened verdict keeps its status', () => {
+    const v = view(savedVerdict({ status: 'accepted', z: 0.1001, template: 'sf' }));
+    expect(verdictFor(v, { kind: 'trial' }, openingTrial(v), { ...openingGrade(v), confidence: 'likely' })).toMatchObject({ status: 'accepted', z: 0.1001, confidence: 'likely' });
+  });
   it('no-redshift carries no z and no confidence; a missing candidate is refused', () => {
     const g = openingGrade(view());
     expect(verdictFor(view(), { kind: 'no-redshift' }, openingTrial(view()), g)).toMatchObject({ status: 'no-redshift', z: null, confidence: null });
