@@ -47,7 +47,7 @@ function live<T>(slot: LiveSlot<T> | null, state: AppState): LiveResult<T> | nul
   return { result: slot.result, error: slot.error, stale: slot.key !== keyOf(state.currentId, state.trial.z) };
 }
 
-let lastTab: { tab: string; slot: unknown; stale: boolean; settings: unknown } | null = null;
+let lastTab: { tab: string; slot: unknown; stale: boolean; settings: unknown; view: unknown } | null = null;
 
 function renderTab(state: AppState): void {
   // The host panel's table and diagram want room: the side column widens while it is shown.
@@ -60,8 +60,8 @@ function renderTab(state: AppState): void {
   byId('tab-host').setAttribute('aria-selected', String(state.tab === 'host'));
   const slot = state.tab === 'derived' ? controller.derived : controller.host;
   const lv = state.tab === 'derived' ? live(controller.derived, state) : live(controller.host, state);
-  const now = { tab: state.tab, slot, stale: lv?.stale ?? true, settings: state.settings };
-  if (lastTab && lastTab.tab === now.tab && lastTab.slot === now.slot && lastTab.stale === now.stale && lastTab.settings === now.settings) return;
+  const now = { tab: state.tab, slot, stale: lv?.stale ?? true, settings: state.settings, view: state.view };
+  if (lastTab && (Object.keys(now) as (keyof typeof now)[]).every((k) => lastTab![k] === now[k])) return;
   lastTab = now;
   const body = byId('tab-body');
   if (state.view?.error && !state.view.arrays) fill(body, el('p', { class: 'muted' }, 'nothing to derive: the file could not be read'));

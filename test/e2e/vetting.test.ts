@@ -271,6 +271,7 @@ describe('vetting in the window', () => {
     await nextUntil('KRT-26-0023_truncated.fits');
     await page.waitForSelector('#spectrum-problem:not([hidden])');
     expect(await page.locator('#problem-text').textContent()).toMatch(/truncated|ends|bytes/i);
+    expect(await page.locator('#tab-body').textContent()).toContain('the file could not be read');
     await shot('unreadable-file');
   });
 
