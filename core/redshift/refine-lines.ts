@@ -3,10 +3,11 @@
  * the error spectrum (Levenberg–Marquardt on the analytic Jacobian, lm-fit.ts). Parameters: velocity
  * offset v (km/s), one σ for narrow and one for broad lines (km/s), and one amplitude per line
  * or tied doublet. The covariance is (Jᵀ W J)⁻¹ at the solution (e.g. Press et al., Numerical
- * Recipes, §15.5), scaled by χ²_red when that exceeds 1.
+ * Recipes, §15.5), scaled by √χ²_red when that exceeds 1; when χ²_red is large the spread of the
+ * lines' own velocities is a floor (centroidScatterKmS).
  */
 import { lineGroups } from './line-groups.js';
-import { lmFit } from './lm-fit.js';
+import { lmFit, type LmProblem } from './lm-fit.js';
 import { invert, normalMatrix } from './linalg.js';
 import { pixelsNearLines, type NativeResidual } from './native-residual.js';
 import { lowerBound, type ProfileLine, type Template } from './templates.js';
@@ -53,9 +54,44 @@ export function fitEmissionLines(nr: NativeResidual, template: Template, z0: num
 
   const nP = 3 + nGroups;
   const xs = Float64Array.from(x), ys = Float64Array.from(y), ws = Float64Array.from(w);
-  // Parameters: [v, σ_narrow, σ_broad, A_0 … A_(g−1)]. Each line touches only the points within
-  // PROFILE_REACH of its centre, found by bisection in the sorted wavelengths.
-  const evaluate = (p: Float64Array, model: Float64Array, jac: Float64Array | null): void => {
+  const evaluate = lineModel(comps, z0, inst, xs, nP);
+  const gaussian = (xi: number, comp: Component): number => {
+    const c = comp.line.waveRestAngstrom * (1 + z0);
+    const sA = (c * Math.hypot(comp.broad ? broad0 : narrow0, inst)) / C_KMS;
+    const u = (xi - c) / sA;
+    return (comp.ratio * Math.exp(-0.5 * u * u)) / (sA * SQRT_2PI);
+  };
+  const start = Float64Array.from([0, narrow0, broad0, ...initialAmplitudes(x, y, w, comps, nGroups, gaussian)]);
+  const fixedBroad = broadLines.length === 0;
+  const fixedNarrow = inRange.every((l) => l.sigmaKmS > BROAD_KMS);
+  const lower = Float64Array.from([-MAX_SHIFT_KMS * 2, fixedNarrow ? narrow0 : 5, fixedBroad ? broad0 : 300, ...new Array<number>(nGroups).fill(-Infinity)]);
+  const upper = Float64Array.from([MAX_SHIFT_KMS * 2, fixedNarrow ? narrow0 : BROAD_KMS, fixedBroad ? broad0 : 6000, ...new Array<number>(nGroups).fill(Infinity)]);
+  const fit = lmFit({ y: ys, w: ws, lower, upper, evaluate }, start);
+  const p = fit.p;
+  if (!p.every(Number.isFinite) || Math.abs(p[0]) > MAX_SHIFT_KMS) return null;
+  const nF = fit.free.length;
+  const cov = invert(Array.from({ length: nF }, (_, i) => Array.from(fit.normal.subarray(i * nF, (i + 1) * nF))));
+  if (!cov || fit.free[0] !== 0 || !(cov[0][0] > 0)) return null;
+  const dof = Math.max(1, x.length - nF);
+  const chi2Red = fit.chi2 / dof;
+  const covarianceKmS = Math.sqrt(cov[0][0]) * Math.sqrt(Math.max(1, chi2Red));
+  const ampErr = (g: number) => {
+    const f = fit.free.indexOf(3 + g);
+    return f >= 0 && cov[f][f] > 0 ? Math.sqrt(cov[f][f] * Math.max(1, chi2Red)) : Infinity;
+  };
+  const scatterKmS = chi2Red > SCATTER_FLOOR_CHI2RED ? centroidScatterKmS({ comps, nGroups, z0, inst, xs, ys, ws, lower, upper }, p, ampErr) : 0;
+  const sigmaV = Math.max(covarianceKmS, scatterKmS);
+  const z = (1 + z0) * (1 + p[0] / C_KMS) - 1;
+  return { z, zErr: ((1 + z0) * sigmaV) / C_KMS, chi2Red, nLinesFitted: inRange.length };
+}
+
+/**
+ * The model of the lines in `comps` at the pixels xs, for lmFit. Parameters: [v, σ_narrow,
+ * σ_broad, A_0 … A_(g−1)]. Each line touches only the points within PROFILE_REACH of its centre,
+ * found by bisection in the sorted wavelengths.
+ */
+function lineModel(comps: Component[], z0: number, inst: number, xs: Float64Array, nP: number): LmProblem['evaluate'] {
+  return (p, model, jac) => {
     model.fill(0);
     const zf = (1 + z0) * (1 + p[0] / C_KMS);
     for (const comp of comps) {
@@ -82,28 +118,71 @@ export function fitEmissionLines(nr: NativeResidual, template: Template, z0: num
       }
     }
   };
-  const gaussian = (xi: number, comp: Component): number => {
-    const c = comp.line.waveRestAngstrom * (1 + z0);
-    const sA = (c * Math.hypot(comp.broad ? broad0 : narrow0, inst)) / C_KMS;
-    const u = (xi - c) / sA;
-    return (comp.ratio * Math.exp(-0.5 * u * u)) / (sA * SQRT_2PI);
-  };
-  const start = Float64Array.from([0, narrow0, broad0, ...initialAmplitudes(x, y, w, comps, nGroups, gaussian)]);
-  const fixedBroad = broadLines.length === 0;
-  const fixedNarrow = inRange.every((l) => l.sigmaKmS > BROAD_KMS);
-  const lower = Float64Array.from([-MAX_SHIFT_KMS * 2, fixedNarrow ? narrow0 : 5, fixedBroad ? broad0 : 300, ...new Array<number>(nGroups).fill(-Infinity)]);
-  const upper = Float64Array.from([MAX_SHIFT_KMS * 2, fixedNarrow ? narrow0 : BROAD_KMS, fixedBroad ? broad0 : 6000, ...new Array<number>(nGroups).fill(Infinity)]);
-  const fit = lmFit({ y: ys, w: ws, lower, upper, evaluate }, start);
-  const p = fit.p;
-  if (!p.every(Number.isFinite) || Math.abs(p[0]) > MAX_SHIFT_KMS) return null;
-  const nF = fit.free.length;
-  const cov = invert(Array.from({ length: nF }, (_, i) => Array.from(fit.normal.subarray(i * nF, (i + 1) * nF))));
-  if (!cov || fit.free[0] !== 0 || !(cov[0][0] > 0)) return null;
-  const dof = Math.max(1, x.length - nF);
-  const chi2Red = fit.chi2 / dof;
-  const sigmaV = Math.sqrt(cov[0][0]) * Math.sqrt(Math.max(1, chi2Red));
-  const z = (1 + z0) * (1 + p[0] / C_KMS) - 1;
-  return { z, zErr: ((1 + z0) * sigmaV) / C_KMS, chi2Red, nLinesFitted: inRange.length };
+}
+
+/** Above this χ²_red the covariance error is in doubt and the scatter between lines is a floor. */
+const SCATTER_FLOOR_CHI2RED = 2;
+/** Lines (or tied doublets) count for the scatter from this amplitude S/N up. */
+const SCATTER_MIN_SNR = 5;
+const SCATTER_MIN_LINES = 3;
+
+interface JointFit {
+  comps: Component[];
+  nGroups: number;
+  z0: number;
+  inst: number;
+  xs: Float64Array;
+  ys: Float64Array;
+  ws: Float64Array;
+  lower: Float64Array;
+  upper: Float64Array;
+}
+
+/**
+ * Error of the common velocity from the spread of the lines' own velocities: each strong line
+ * (or doublet) refitted alone for its offset, widths and the other lines held at the joint fit;
+ * the standard error of the mean, s/√N. The lines share one z, so their spread is an honest
+ * empirical error when the profiles are not the Gaussians the covariance assumes (outflows,
+ * blends, asymmetric wings). Common practice, no single source. 0 when fewer than
+ * SCATTER_MIN_LINES lines are strong enough.
+ */
+function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) => number): number {
+  const nP = 3 + j.nGroups;
+  const full = new Float64Array(j.xs.length);
+  lineModel(j.comps, j.z0, j.inst, j.xs, nP)(p, full, null);
+  const velocities: number[] = [];
+  for (let g = 0; g < j.nGroups; g++) {
+    if (!(Math.abs(p[3 + g]) >= SCATTER_MIN_SNR * ampErr(g))) continue;
+    const own = j.comps.filter((c) => c.group === g);
+    const near = new Uint8Array(j.xs.length);
+    for (const c of own) {
+      const centre = c.line.waveRestAngstrom * (1 + j.z0) * (1 + p[0] / C_KMS);
+      const half = (3 * centre * Math.hypot(c.broad ? p[2] : p[1], j.inst)) / C_KMS;
+      for (let k = lowerBound(j.xs, centre - half); k < j.xs.length && j.xs[k] <= centre + half; k++) near[k] = 1;
+    }
+    const idx: number[] = [];
+    near.forEach((v, k) => v && idx.push(k));
+    if (idx.length < 4) continue;
+    const xs = Float64Array.from(idx, (k) => j.xs[k]);
+    const mine = new Float64Array(xs.length);
+    const evaluate = lineModel(own, j.z0, j.inst, xs, nP);
+    evaluate(p, mine, null);
+    // The other lines' share of the joint model stays subtracted.
+    const ys = Float64Array.from(idx, (k, i) => j.ys[k] - (full[k] - mine[i]));
+    const ws = Float64Array.from(idx, (k) => j.ws[k]);
+    const lower = Float64Array.from(p), upper = Float64Array.from(p);
+    lower[0] = j.lower[0];
+    upper[0] = j.upper[0];
+    lower[3 + g] = -Infinity;
+    upper[3 + g] = Infinity;
+    const v = lmFit({ y: ys, w: ws, lower, upper, evaluate }, p).p[0];
+    if (Math.abs(v) <= MAX_SHIFT_KMS) velocities.push(v);
+  }
+  const n = velocities.length;
+  if (n < SCATTER_MIN_LINES) return 0;
+  const mean = velocities.reduce((a, v) => a + v, 0) / n;
+  const s = Math.sqrt(velocities.reduce((a, v) => a + (v - mean) ** 2, 0) / (n - 1));
+  return s / Math.sqrt(n);
 }
 
 /** Linear least-squares amplitudes at the start point (the model is linear in them). */
