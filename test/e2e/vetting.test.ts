@@ -126,6 +126,7 @@ describe('vetting in the window', () => {
     await press('k');
     await expect.poll(async () => (await axes()).flux).toBe('flux (gaussian 3 px)');
     await press('[');
+    await press('k');
     await press('0');
     await expect.poll(async () => (await axes()).x).toEqual(full.x);
     expect((await axes()).flux).toBe('flux');
