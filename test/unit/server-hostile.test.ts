@@ -80,6 +80,19 @@ describe('zvet serve: the token', () => {
     expect(JSON.parse(api.body).items.length).toBeGreaterThan(0);
   });
 
+  it('lets the browser revalidate its copy of a static file (ETag, 304) but still needs the token for it', async () => {
+    const first = await request(server.port, 'GET', '/plotly.min.js', { token: server.token });
+    expect(first.status).toBe(200);
+    const etag = first.headers.etag;
+    expect(etag).toMatch(/^"[0-9a-z]+-[0-9a-z]+"$/);
+    const again = await request(server.port, 'GET', '/plotly.min.js', { token: server.token, headers: { 'If-None-Match': etag } });
+    expect(again.status).toBe(304);
+    expect(again.body).toBe('');
+    const stale = await request(server.port, 'GET', '/plotly.min.js', { token: server.token, headers: { 'If-None-Match': '"other"' } });
+    expect(stale.status).toBe(200);
+    expect((await request(server.port, 'GET', '/plotly.min.js', { token: null, headers: { 'If-None-Match': etag } })).status).toBe(403);
+  });
+
   it('sends the strict security headers', async () => {
     const page = await request(server.port, 'GET', `/?token=${server.token}`);
     const csp = page.headers['content-security-policy'];

@@ -107,12 +107,17 @@ export async function startHostServer(options: HostServerOptions): Promise<Runni
       send(res, found.status, missingWindow ? 'the window is not built: run npm run build\n' : `${found.reason}\n`);
       return;
     }
-    const body = await readFile(found.file);
-    const headers: Record<string, string> = { ...SECURITY_HEADERS, 'Content-Type': found.contentType, 'Cache-Control': 'no-cache' };
+    const headers: Record<string, string> = { ...SECURITY_HEADERS, 'Content-Type': found.contentType, 'Cache-Control': 'no-cache', ETag: found.etag };
     if (setCookie) {
       headers['Set-Cookie'] = `${cookieName}=${token}; HttpOnly; SameSite=Strict; Path=/`;
       headers['Cache-Control'] = 'no-store';
+      delete headers.ETag;
+    } else if (req.headers['if-none-match'] === found.etag) {
+      res.writeHead(304, headers);
+      res.end();
+      return;
     }
+    const body = await readFile(found.file);
     res.writeHead(200, headers);
     res.end(req.method === 'HEAD' ? undefined : body);
   }
