@@ -28,20 +28,24 @@ export function fitTemplateChi2(nr: NativeResidual, template: Template, z0: numb
   const w = Float64Array.from(idx, (i) => 1 / (nr.sigma[i] * nr.sigma[i]));
   const scratch = chi2Scratch(wave.length);
   const dz = halfRangeZ / HALF_STEPS;
-  const zs: number[] = [];
-  const chi: number[] = [];
+  const nGrid = 2 * HALF_STEPS + 1;
+  const zs = Array.from({ length: nGrid }, (_, k) => z0 + (k - HALF_STEPS) * dz);
+  const chi = new Float64Array(nGrid).fill(NaN);
   let nFree = 1;
-  for (let s = -HALF_STEPS; s <= HALF_STEPS; s++) {
-    const z = z0 + s * dz;
-    const fit = templateChi2(template, z, wave, y, w, nr.pixelKmS, scratch);
-    zs.push(z);
-    chi.push(fit.chi2);
+  const chiAt = (k: number): number => {
+    if (chi[k] === chi[k]) return chi[k];
+    const fit = templateChi2(template, zs[k], wave, y, w, nr.pixelKmS, scratch);
     nFree = fit.nFree;
-  }
-  let kMin = 0;
-  for (let k = 1; k < chi.length; k++) if (chi[k] < chi[kMin]) kMin = k;
-  if (kMin < 2 || kMin > chi.length - 3) return null;
-  const [a, b, c] = parabola(zs.slice(kMin - 2, kMin + 3), chi.slice(kMin - 2, kMin + 3));
+    return (chi[k] = fit.chi2);
+  };
+  // Downhill from the correlation z to the grid minimum: near its minimum χ²(z) is one smooth
+  // valley, so only the points on the way and the five the parabola needs are computed.
+  let kMin = HALF_STEPS;
+  const dir = chiAt(kMin - 1) < chiAt(kMin) ? -1 : 1;
+  while (kMin + dir >= 0 && kMin + dir < nGrid && chiAt(kMin + dir) < chiAt(kMin)) kMin += dir;
+  if (kMin < 2 || kMin > nGrid - 3) return null;
+  for (let k = kMin - 2; k <= kMin + 2; k++) chiAt(k);
+  const [a, b, c] = parabola(zs.slice(kMin - 2, kMin + 3), Array.from(chi.subarray(kMin - 2, kMin + 3)));
   if (!(a > 0)) return null;
   const z = -b / (2 * a);
   const chiMin = c - (b * b) / (4 * a);
