@@ -9,7 +9,10 @@ export function robustContinuum(flux: Float64Array, good: Uint8Array, blockPixel
   const n = flux.length;
   const use = Uint8Array.from(good);
   const scratch = new Float64Array(n);
-  let cont = blockMedianContinuum(flux, use, blockPixels, scratch);
+  const blocks = new BlockMedians(n, blockPixels);
+  blocks.update(flux, use, scratch, null);
+  let cont = blocks.interpolate();
+  const touched = new Uint8Array(blocks.count);
   for (let it = 0; it < iterations; it++) {
     let k = 0;
     for (let i = 0; i < n; i++) if (use[i]) scratch[k++] = Math.abs(flux[i] - cont[i]);
@@ -17,44 +20,84 @@ export function robustContinuum(flux: Float64Array, good: Uint8Array, blockPixel
     const sigma = 1.4826 * medianInPlace(scratch, k);
     if (!(sigma > 0)) break;
     let changed = false;
+    touched.fill(0);
     for (let i = 0; i < n; i++) {
       if (use[i] && Math.abs(flux[i] - cont[i]) > clipSigma * sigma) {
         use[i] = 0;
+        touched[blocks.blockOf(i)] = 1;
         changed = true;
       }
     }
     if (!changed) break;
-    cont = blockMedianContinuum(flux, use, blockPixels, scratch);
+    // Only the blocks that lost pixels get a new median.
+    blocks.update(flux, use, scratch, touched);
+    cont = blocks.interpolate();
   }
   return cont;
 }
 
-function blockMedianContinuum(flux: Float64Array, use: Uint8Array, blockPixels: number, scratch: Float64Array): Float64Array {
-  const n = flux.length;
-  const nBlocks = Math.max(1, Math.round(n / blockPixels));
-  const xs: number[] = [];
-  const ys: number[] = [];
-  for (let b = 0; b < nBlocks; b++) {
-    const lo = Math.floor((b * n) / nBlocks), hi = Math.floor(((b + 1) * n) / nBlocks);
-    let k = 0, xsum = 0;
-    for (let i = lo; i < hi; i++) if (use[i]) { scratch[k++] = flux[i]; xsum += i; }
-    if (k < Math.max(3, 0.2 * (hi - lo))) continue;
-    ys.push(medianInPlace(scratch, k));
-    xs.push(xsum / k);
+/** Medians of equal blocks of pixels, kept per block so a clipping pass redoes only the blocks it changed. */
+class BlockMedians {
+  readonly count: number;
+  private readonly n: number;
+  private readonly x: Float64Array;
+  private readonly y: Float64Array;
+  /** 1 where the block has enough pixels to count. */
+  private readonly valid: Uint8Array;
+
+  constructor(n: number, blockPixels: number) {
+    this.n = n;
+    this.count = Math.max(1, Math.round(n / blockPixels));
+    this.x = new Float64Array(this.count);
+    this.y = new Float64Array(this.count);
+    this.valid = new Uint8Array(this.count);
   }
-  const cont = new Float64Array(n);
-  if (ys.length === 0) return cont.fill(NaN);
-  let s = 0;
-  for (let i = 0; i < n; i++) {
-    while (s < xs.length - 2 && i > xs[s + 1]) s++;
-    if (ys.length === 1 || i <= xs[0]) cont[i] = ys[0];
-    else if (i >= xs[xs.length - 1]) cont[i] = ys[ys.length - 1];
-    else {
-      const t = (i - xs[s]) / (xs[s + 1] - xs[s]);
-      cont[i] = ys[s] + t * (ys[s + 1] - ys[s]);
+
+  private lo(b: number): number {
+    return Math.floor((b * this.n) / this.count);
+  }
+
+  blockOf(i: number): number {
+    let b = Math.min(this.count - 1, Math.floor((i * this.count) / this.n));
+    while (b > 0 && this.lo(b) > i) b--;
+    while (b < this.count - 1 && this.lo(b + 1) <= i) b++;
+    return b;
+  }
+
+  /** Recomputes the blocks flagged in `which` (all when null). */
+  update(flux: Float64Array, use: Uint8Array, scratch: Float64Array, which: Uint8Array | null): void {
+    for (let b = 0; b < this.count; b++) {
+      if (which && !which[b]) continue;
+      const lo = this.lo(b), hi = this.lo(b + 1);
+      let k = 0, xsum = 0;
+      for (let i = lo; i < hi; i++) if (use[i]) { scratch[k++] = flux[i]; xsum += i; }
+      this.valid[b] = k >= Math.max(3, 0.2 * (hi - lo)) ? 1 : 0;
+      if (!this.valid[b]) continue;
+      this.y[b] = medianInPlace(scratch, k);
+      this.x[b] = xsum / k;
     }
   }
-  return cont;
+
+  /** The block medians joined by straight lines, flat beyond the outer ones. */
+  interpolate(): Float64Array {
+    const xs: number[] = [];
+    const ys: number[] = [];
+    for (let b = 0; b < this.count; b++) if (this.valid[b]) { xs.push(this.x[b]); ys.push(this.y[b]); }
+    const n = this.n;
+    const cont = new Float64Array(n);
+    if (ys.length === 0) return cont.fill(NaN);
+    let s = 0;
+    for (let i = 0; i < n; i++) {
+      while (s < xs.length - 2 && i > xs[s + 1]) s++;
+      if (ys.length === 1 || i <= xs[0]) cont[i] = ys[0];
+      else if (i >= xs[xs.length - 1]) cont[i] = ys[ys.length - 1];
+      else {
+        const t = (i - xs[s]) / (xs[s + 1] - xs[s]);
+        cont[i] = ys[s] + t * (ys[s + 1] - ys[s]);
+      }
+    }
+    return cont;
+  }
 }
 
 export function median(values: ArrayLike<number>): number {
