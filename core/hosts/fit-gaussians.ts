@@ -9,7 +9,7 @@
  * about 60 iterations (≈ 90 ms per spectrum) where this converges in a handful.
  */
 import { evaluate, jacobian, type GaussianModel } from './gaussian-model.js';
-import { invert, linearLeastSquares, normalMatrix } from './linear-algebra.js';
+import { invert, linearLeastSquares, normalMatrix } from '../math/linear-algebra.js';
 
 export interface FitData {
   waveAngstrom: number[];

@@ -8,7 +8,7 @@
  */
 import { lineGroups } from './line-groups.js';
 import { lmFit, type LmProblem } from './lm-fit.js';
-import { invert, normalMatrix } from './linalg.js';
+import { invert, normalMatrix } from '../math/linear-algebra.js';
 import { pixelsNearLines, type NativeResidual } from './native-residual.js';
 import { lowerBound, type ProfileLine, type Template } from './templates.js';
 

@@ -3,7 +3,7 @@
  * spectrum template is one profile), and their weighted least-squares amplitudes with the
  * template's signs. Used to draw a template on a spectrum and to refine absorption redshifts.
  */
-import { invert } from './linalg.js';
+import { invert } from '../math/linear-algebra.js';
 import { lineGroups } from './line-groups.js';
 import { addLineProfile, type Template } from './templates.js';
 

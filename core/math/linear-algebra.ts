@@ -1,6 +1,6 @@
 /**
- * Small dense linear algebra for line fits (a handful of parameters): inverse of a symmetric
- * positive-definite matrix and weighted linear least squares.
+ * Small dense linear algebra for the line and template fits (a handful of parameters): inverse of a
+ * square matrix and weighted linear least squares.
  */
 
 /** Inverse of a square matrix by Gauss–Jordan elimination with partial pivoting; null when singular. */
