@@ -4,6 +4,7 @@
  * logical cells that are neither T nor F, read as NaN. Variable-length arrays (P, Q) are read
  * from the heap, which starts THEAP bytes after the main table (default NAXIS1 × NAXIS2).
  */
+import { concatArrays } from '../util/concat-arrays.js';
 import { checkElementCount, hduError, type FitsHdu } from './parse.js';
 import { columnFinder, type FitsTable, type TableColumn } from './table.js';
 
@@ -86,13 +87,7 @@ export function openBinTable(hdu: FitsHdu): FitsTable {
           checkElementCount(hdu, total, `column ${col.name}`);
           parts.push(part);
         }
-        const out = new Float64Array(total);
-        let at = 0;
-        for (const p of parts) {
-          out.set(p, at);
-          at += p.length;
-        }
-        return out;
+        return concatArrays((n) => new Float64Array(n), parts);
       }
       checkElementCount(hdu, rows * col.repeat, `column ${col.name}`);
       const out = new Float64Array(rows * col.repeat);

@@ -3,6 +3,7 @@
  * a file that would inflate past MAX_INFLATED_BYTES (a "gzip bomb") is refused early.
  */
 import { Gunzip } from 'fflate';
+import { concatArrays } from '../util/concat-arrays.js';
 import { SpectrumReadError } from './spectrum.js';
 
 /** Largest inflated size accepted: room for 50 million 4-byte pixels plus headers. */
@@ -50,11 +51,5 @@ export function gunzip(bytes: Uint8Array, fileName: string, maxBytes = MAX_INFLA
   const n = bytes.length;
   const isize = n >= 18 ? (bytes[n - 4] | (bytes[n - 3] << 8) | (bytes[n - 2] << 16) | (bytes[n - 1] << 24)) >>> 0 : -1;
   if (!done || isize !== total % 2 ** 32) throw new SpectrumReadError(fileName, 'truncated or corrupt gzip data (its size does not match the gzip trailer)');
-  const out = new Uint8Array(total);
-  let at = 0;
-  for (const p of parts) {
-    out.set(p, at);
-    at += p.length;
-  }
-  return out;
+  return concatArrays((n) => new Uint8Array(n), parts);
 }

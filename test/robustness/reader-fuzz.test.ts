@@ -12,7 +12,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { readSpectrum } from '../../core/spectrum/read.js';
 import { SpectrumReadError } from '../../core/spectrum/spectrum.js';
-import { card, concatBytes, headerBytes } from '../support/fits-cards.js';
+import { card, concat as concatBytes, fitsBytes } from '../unit/fits-fixtures.js';
 import { DEMO_WORKLIST, OPEN_SPECTRA } from '../support/paths.js';
 
 const CASES = Number(process.env.ZVET_FUZZ_CASES ?? 10_000);
@@ -27,6 +27,13 @@ const SEEDS = [
   join(OPEN_SPECTRA, 'sdss/sample_sdss.fits'),
   join(OPEN_SPECTRA, 'other/cosmos-01-G141_20062.1D.fits'),
 ].map((p) => new Uint8Array(readFileSync(p)));
+
+/** Header blocks from cards: END appended (or left out, to test a missing one), padded to 2880 bytes. */
+function headerBytes(cards: string[], withEnd = true): Uint8Array {
+  if (withEnd) return fitsBytes([{ cards }]);
+  const text = cards.join('');
+  return new TextEncoder().encode(text.padEnd(Math.ceil(text.length / 2880) * 2880));
+}
 
 /** Messages that mean a reader bug escaped into the catch-all, not a refused file. */
 const BUG_SIGNS = /Cannot read prop|is not a function|is not iterable|undefined|Maximum call stack|Invalid array length|allocation failed/i;

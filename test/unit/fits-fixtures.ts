@@ -1,6 +1,8 @@
 // Hand-built FITS files for the unit tests (FITS Standard 4.0 layout: 80-character cards,
 // 2880-byte blocks, big-endian data).
 
+import { concatArrays } from '../../core/util/concat-arrays.js';
+
 const BLOCK = 2880;
 
 /** One card image; strings are quoted, booleans T/F, numbers as written. */
@@ -29,14 +31,7 @@ export function fitsBytes(hdus: HduSpec[], opts: { unpaddedLast?: boolean } = {}
       parts.push(last && opts.unpaddedLast ? h.data : pad(h.data, 0));
     }
   });
-  const total = parts.reduce((a, p) => a + p.length, 0);
-  const out = new Uint8Array(total);
-  let at = 0;
-  for (const p of parts) {
-    out.set(p, at);
-    at += p.length;
-  }
-  return out;
+  return concatArrays((n) => new Uint8Array(n), parts);
 }
 
 function pad(bytes: Uint8Array, fill: number): Uint8Array {
@@ -65,13 +60,7 @@ export function beBytes(kind: Kind, values: number[]): Uint8Array {
 }
 
 export function concat(...parts: Uint8Array[]): Uint8Array {
-  const out = new Uint8Array(parts.reduce((a, p) => a + p.length, 0));
-  let at = 0;
-  for (const p of parts) {
-    out.set(p, at);
-    at += p.length;
-  }
-  return out;
+  return concatArrays((n) => new Uint8Array(n), parts);
 }
 
 /** Primary header cards for an image of the given axes. */
