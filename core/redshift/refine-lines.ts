@@ -18,6 +18,8 @@ const SQRT_2PI = Math.sqrt(2 * Math.PI);
 const BROAD_KMS = 600;
 /** A fit that wanders further than this from the correlation z is rejected, km/s. */
 const MAX_SHIFT_KMS = 1500;
+/** A line enters the fit only with at least this many good pixels within 4σ (common practice, no source). */
+const MIN_LINE_PIXELS = 3;
 /** A line's profile is evaluated out to this many σ (e^(−32) beyond: nothing left). */
 const PROFILE_REACH = 8;
 
@@ -37,7 +39,11 @@ interface Component {
 
 export function fitEmissionLines(nr: NativeResidual, template: Template, z0: number): LineFit | null {
   const lo = nr.waveAngstrom[0], hi = nr.waveAngstrom[nr.waveAngstrom.length - 1];
-  const inRange = template.lines.filter((l) => l.strength > 0 && l.waveRestAngstrom * (1 + z0) > lo && l.waveRestAngstrom * (1 + z0) < hi);
+  // A line with no good pixels (inside a masked telluric band, say) has no amplitude to fit and
+  // would make the normal matrix singular: it is left out.
+  const inRange = template.lines.filter(
+    (l) => l.strength > 0 && l.waveRestAngstrom * (1 + z0) > lo && l.waveRestAngstrom * (1 + z0) < hi && pixelsNearLines(nr, { ...template, lines: [l] }, z0, 4).length >= MIN_LINE_PIXELS,
+  );
   const { members, nGroups } = lineGroups(inRange);
   const comps: Component[] = inRange.map((line, k) => ({ line, ...members[k], broad: line.sigmaKmS > BROAD_KMS }));
   if (nGroups === 0) return null;
