@@ -3,6 +3,7 @@
  * and anything else that shows a spectrum's provenance (snake_case keys, null when unknown).
  */
 import type { Spectrum } from './spectrum.js';
+import { toJsonNumbers } from '../util/json-numbers.js';
 
 export interface SiteSummary {
   name: string | null;
@@ -95,6 +96,5 @@ export function summariseSpectrum(s: Spectrum): SpectrumSummary {
 
 /** Every pixel; non-finite numbers become null (JSON has no NaN). */
 export function pixelTable(s: Spectrum): PixelTable {
-  const finite = (a: Float64Array) => Array.from(a, (v) => (Number.isFinite(v) ? v : null));
-  return { wave: finite(s.waveAngstrom), flux: finite(s.flux), error: finite(s.error), mask: Array.from(s.mask) };
+  return { wave: toJsonNumbers(s.waveAngstrom), flux: toJsonNumbers(s.flux), error: toJsonNumbers(s.error), mask: Array.from(s.mask) };
 }

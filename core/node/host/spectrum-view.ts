@@ -1,12 +1,9 @@
 /** Puts a Spectrum into the JSON-safe shapes of the host API (NaN and ±Infinity become null). */
 import type { SpectrumArrays, SpectrumMetaView } from '../../api/host-api.js';
 import type { Spectrum } from '../../spectrum/spectrum.js';
+import { toJsonNumbers } from '../../util/json-numbers.js';
 
-export function toJsonNumbers(values: ArrayLike<number>): (number | null)[] {
-  const out = new Array<number | null>(values.length);
-  for (let i = 0; i < values.length; i++) out[i] = Number.isFinite(values[i]) ? values[i] : null;
-  return out;
-}
+export { toJsonNumbers };
 
 export function spectrumArrays(s: Spectrum): SpectrumArrays {
   return {
