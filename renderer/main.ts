@@ -82,7 +82,7 @@ function renderOverlay(state: AppState): void {
     const templates = (state.view?.measurement?.correlations ?? []).map((c) => c.template);
     renderRemeasure(box, templates, (o) => void controller.remeasure(o), () => controller.closeModal());
   }
-  else if (state.modal === 'line-pick' && state.linePick) renderLinePick(box, state.linePick.waveAngstrom, state.linePick.choices, (i) => controller.chooseLine(i));
+  else if (state.modal === 'line-pick' && state.linePick) renderLinePick(box, state.linePick, state.linePick.choices, (i) => controller.chooseLine(i));
   else fill(box);
 }
 

@@ -12,6 +12,7 @@ import { LatestOnly } from './debounce.js';
 import { SaveQueue } from '../state/save-queue.js';
 import { candidates, candidateTrial, lineTrial, nudgedTrial, openingGrade, openingTrial, typedTrial, verdictFor, type Decision } from '../state/decision.js';
 import { neighbour, nextFilter, nextPending, type WorklistFilter } from '../state/worklist-view.js';
+import { featureCentre } from '../science/feature-centre.js';
 import { likelyLines } from '../science/line-pick.js';
 import { stepSmoothing, type SmoothingKernel } from '../plot/smoothing.js';
 import type { ActionId } from '../ui/keymap.js';
@@ -233,10 +234,12 @@ export class Controller {
     this.trialChanged();
   }
 
-  featureClicked(waveAngstrom: number): void {
+  featureClicked(clickAngstrom: number): void {
     const s = this.s;
     if (!s.view?.arrays) return;
-    s.linePick = { waveAngstrom, choices: likelyLines(waveAngstrom, s.trial.z, candidates(s.view).map((c) => c.z)) };
+    const centre = featureCentre(s.view.arrays.waveAngstrom, s.view.arrays.flux, clickAngstrom);
+    const waveAngstrom = centre?.waveAngstrom ?? clickAngstrom;
+    s.linePick = { waveAngstrom, clickAngstrom, choices: likelyLines(waveAngstrom, s.trial.z, candidates(s.view).map((c) => c.z)) };
     s.modal = 'line-pick';
     s.identifying = false;
     this.view.panels(s);

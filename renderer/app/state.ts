@@ -30,7 +30,8 @@ export interface AppState {
   tab: 'derived' | 'host';
   modal: 'none' | 'help' | 'line-pick' | 'remeasure';
   identifying: boolean;
-  linePick: { waveAngstrom: number; choices: LineChoice[] } | null;
+  /** The feature's centre (snapped from the click) and the click itself, vacuum Å. */
+  linePick: { waveAngstrom: number; clickAngstrom: number; choices: LineChoice[] } | null;
   saves: readonly QueuedSave[];
   lastSaved: { id: string; time: string } | null;
   exportResult: { ok: boolean; text: string } | null;

@@ -18,14 +18,14 @@ export function renderHelp(box: HTMLElement): void {
       'Grey bands: masked pixels; labelled bands: telluric O₂. Mouse: drag to zoom, wheel to zoom, double-click to reset, click a feature to identify it.')));
 }
 
-export function renderLinePick(box: HTMLElement, waveAngstrom: number, choices: readonly LineChoice[], onChoose: (i: number) => void): void {
+export function renderLinePick(box: HTMLElement, at: { waveAngstrom: number; clickAngstrom: number }, choices: readonly LineChoice[], onChoose: (i: number) => void): void {
   const items = choices.map((c, i) => el('li', { tabindex: '0', 'data-index': String(i), onclick: () => onChoose(i) },
     el('kbd', {}, String(i + 1)),
     el('span', {}, `${c.line.label} ${c.line.waveVacuumAngstrom.toFixed(2)} Å`),
     el('span', { class: 'hint' }, c.hint),
     el('span', { class: 'num' }, `z = ${c.z.toFixed(5)}`)));
   fill(box, el('div', { class: 'card', role: 'dialog', 'aria-label': 'Which line is this?', id: 'line-pick' },
-    el('h2', {}, `Feature at ${waveAngstrom.toFixed(1)} Å (observed, vacuum): which rest line is it?`),
-    el('p', { class: 'muted' }, 'z = λ_click / λ_rest − 1. Press its number or click it; Esc cancels. The choice becomes the trial z: check the markers, nudge, then Enter saves.'),
+    el('h2', {}, `Feature at ${at.waveAngstrom.toFixed(2)} Å (observed, vacuum): which rest line is it?`),
+    el('p', { class: 'muted' }, `Centre of the feature nearest the click (${at.clickAngstrom.toFixed(1)} Å); z = λ_feature / λ_rest − 1. Press its number or click it; Esc cancels. The choice becomes the trial z: check the markers, nudge, then Enter saves.`),
     choices.length ? el('ol', { class: 'pick-list' }, ...items) : el('p', {}, 'No line in the list gives a redshift between 0 and 7 here.')));
 }
