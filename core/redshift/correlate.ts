@@ -16,6 +16,7 @@
  */
 import { complexFft, forwardRealPair, nextPowerOfTwo, type ComplexFft } from './fft.js';
 import type { PreparedSpectrum } from './preprocess.js';
+import { TD_MIN_WINDOW_LAGS, TD_WINDOW_WIDTHS } from './peaks.js';
 import type { Template } from './templates.js';
 
 const C_KMS = 299792.458;
@@ -38,6 +39,9 @@ export interface CorrelationCurveData {
   step: number;
   /** Lag of index 0. */
   lagMin: number;
+  /** Indices [searchLo, searchHi] of the searched z range; the lags outside serve σ_a only. */
+  searchLo: number;
+  searchHi: number;
   /** Correlation coefficient over the overlap (NaN where not searched). */
   rho: Float64Array;
   /** √Δχ² of the best-scaled template at each lag, Σ w·s·t / √Σ w·t² (ranks across templates). */
@@ -68,10 +72,24 @@ interface Layout {
   size: number;
 }
 
-export function layoutFor(p: PreparedSpectrum, zMin: number, zMax: number): Layout {
+/**
+ * Lags correlated beyond each end of the searched range, for the Tonry–Davis σ_a only: the
+ * antisymmetric part about a peak near an end needs the curve on both sides over the window
+ * tonryDavisR uses (ten peak widths, at least 100 lags), or σ_a measures only the peak's own core
+ * and r comes out far too high. The width is that of the template's widest line correlated with
+ * itself: FWHM = 2√(2 ln 2)·√2·σ, σ the line's width with the pixel's in quadrature.
+ */
+export function sigmaAMarginLags(template: Template, step: number): number {
+  const pixelKmS = C_KMS * step;
+  const widest = template.lines.reduce((m, l) => Math.max(m, l.sigmaKmS), 0);
+  const fwhmLags = (2 * Math.sqrt(2 * Math.LN2) * Math.SQRT2 * Math.hypot(widest, pixelKmS)) / pixelKmS;
+  return Math.max(TD_MIN_WINDOW_LAGS, Math.ceil(TD_WINDOW_WIDTHS * fwhmLags));
+}
+
+function layoutFor(p: PreparedSpectrum, zMin: number, zMax: number, margin: number): Layout {
   const { step, start, length } = p.grid;
-  const lagMin = Math.floor(Math.log1p(zMin) / step) - 1;
-  const lagMax = Math.ceil(Math.log1p(zMax) / step) + 1;
+  const lagMin = Math.floor(Math.log1p(zMin) / step) - 1 - margin;
+  const lagMax = Math.ceil(Math.log1p(zMax) / step) + 1 + margin;
   const a = Math.floor(start / RANGE_QUANTUM) * RANGE_QUANTUM;
   const b = Math.ceil((start + length) / RANGE_QUANTUM) * RANGE_QUANTUM;
   const templateLength = b - a + lagMax - lagMin;
@@ -172,16 +190,17 @@ export function correlate(p: PreparedSpectrum, templates: { template: Template; 
   const out: CorrelationCurveData[] = [];
   const specCache = new Map<string, SpectrumTransforms>();
   for (const { template, zMin, zMax } of templates) {
-    const lay = layoutFor(p, zMin, zMax);
+    const margin = sigmaAMarginLags(template, p.grid.step);
+    const lay = layoutFor(p, zMin, zMax, margin);
     const skey = `${lay.specOrigin}|${lay.size}`;
     let st = specCache.get(skey);
     if (!st) specCache.set(skey, (st = spectrumTransforms(p, lay)));
-    out.push(correlateOne(p, template, lay, st));
+    out.push(correlateOne(p, template, lay, st, margin));
   }
   return out;
 }
 
-function correlateOne(p: PreparedSpectrum, template: Template, lay: Layout, st: SpectrumTransforms): CorrelationCurveData {
+function correlateOne(p: PreparedSpectrum, template: Template, lay: Layout, st: SpectrumTransforms, margin: number): CorrelationCurveData {
   const e = bankEntry(template, p.grid.step, lay);
   const { fft } = e;
   const n = lay.size;
@@ -221,5 +240,5 @@ function correlateOne(p: PreparedSpectrum, template: Template, lay: Layout, st: 
     score[i] = sc;
     rho[i] = sc / Math.sqrt(s2);
   }
-  return { template, step: p.grid.step, lagMin: lay.lagMin, rho, score, overlap };
+  return { template, step: p.grid.step, lagMin: lay.lagMin, searchLo: margin, searchHi: nLag - 1 - margin, rho, score, overlap };
 }

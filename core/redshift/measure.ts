@@ -152,11 +152,11 @@ function rankByLineEvidence(p: PreparedSpectrum, distinct: Scored[]): { order: n
 }
 
 function downsampleCurve(c: CorrelationCurveData): CorrelationCurve {
-  const n = c.rho.length;
-  const every = Math.max(1, Math.ceil(n / MAX_CURVE_POINTS));
+  const n = c.searchHi + 1;
+  const every = Math.max(1, Math.ceil((n - c.searchLo) / MAX_CURVE_POINTS));
   const z: number[] = [];
   const value: number[] = [];
-  for (let i = 0; i < n; i += every) {
+  for (let i = c.searchLo; i < n; i += every) {
     // Keep the largest value in each stride so peaks survive the thinning.
     let k = i;
     for (let j = i; j < Math.min(n, i + every); j++) if (c.rho[j] > c.rho[k] || !(c.rho[k] === c.rho[k])) k = j;

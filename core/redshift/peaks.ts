@@ -5,6 +5,10 @@
  */
 import type { CorrelationCurveData } from './correlate.js';
 
+/** σ_a window of tonryDavisR: this many peak widths either side, at least TD_MIN_WINDOW_LAGS (common practice, no source). */
+export const TD_WINDOW_WIDTHS = 10;
+export const TD_MIN_WINDOW_LAGS = 100;
+
 export interface Peak {
   /** Sub-lag position (absolute lag). */
   lag: number;
@@ -20,19 +24,25 @@ export interface Peak {
   overlap: number;
 }
 
-/** Local maxima of ρ with ρ > 0, away from the ends, best `maxPeaks` by score. */
+/** Local maxima of ρ with ρ > 0, away from the ends of the searched range and with a Tonry–Davis r, best `maxPeaks` by score. */
 export function findPeaks(curve: CorrelationCurveData, maxPeaks: number): Peak[] {
-  const { rho, score } = curve;
+  const { rho, score, searchLo, searchHi } = curve;
   const n = rho.length;
   const idx: number[] = [];
-  for (let i = 2; i < n - 2; i++) {
+  for (let i = searchLo + 2; i <= searchHi - 2; i++) {
     const v = rho[i];
     if (!(v > 0) || !(v >= rho[i - 1]) || !(v > rho[i + 1])) continue;
     if (!(rho[i - 1] === rho[i - 1]) || !(rho[i + 1] === rho[i + 1])) continue;
     idx.push(i);
   }
   idx.sort((a, b) => score[b] - score[a]);
-  return idx.slice(0, maxPeaks).map((i) => describePeak(curve, i));
+  const out: Peak[] = [];
+  for (const i of idx) {
+    if (out.length >= maxPeaks) break;
+    const peak = describePeak(curve, i);
+    if (peak.r > 0) out.push(peak);
+  }
+  return out;
 }
 
 export function describePeak(curve: CorrelationCurveData, i: number): Peak {
@@ -66,11 +76,14 @@ export function fwhm(rho: Float64Array, i: number, h: number): number {
 
 /**
  * Tonry–Davis r: σ_a from the antisymmetric part a(k) = (ρ(i+k) − ρ(i−k))/2 over k up to
- * ten peak widths (at least 100 lags) either side, as far as both sides exist.
+ * ten peak widths (at least 100 lags) either side, as far as both sides exist. A peak with fewer
+ * such pairs than its FWHM (at the end of the searched range, or where the template barely
+ * overlaps) gets r = 0: a(k) would then sample only the peak's own symmetric core, σ_a → 0 and
+ * r → ∞ without evidence (z ≈ 4.9 QSO peaks reached r ≈ 58 on SDSS galaxies). Our rule, no source.
  */
 export function tonryDavisR(rho: Float64Array, i: number, h: number, widthLags: number): number {
   const n = rho.length;
-  const kMax = Math.min(i, n - 1 - i, Math.max(100, Math.ceil(10 * widthLags)));
+  const kMax = Math.min(i, n - 1 - i, Math.max(TD_MIN_WINDOW_LAGS, Math.ceil(TD_WINDOW_WIDTHS * widthLags)));
   let ss = 0, m = 0;
   for (let k = 1; k <= kMax; k++) {
     const a = rho[i + k], b = rho[i - k];
@@ -79,7 +92,7 @@ export function tonryDavisR(rho: Float64Array, i: number, h: number, widthLags: 
     ss += d * d;
     m++;
   }
-  if (m === 0) return 0;
+  if (m === 0 || m < widthLags) return 0;
   const sigmaA = Math.sqrt(ss / m);
   return sigmaA > 0 ? h / (Math.SQRT2 * sigmaA) : 0;
 }
