@@ -1,7 +1,7 @@
 /**
- * The spectrum on its own pixels with the continuum removed, for refinement and overlays. At a
- * known redshift the continuum is re-estimated with the template's lines masked, so that broad
- * lines do not pull it up.
+ * The spectrum on its own pixels with the continuum removed, for refinement and overlays. At
+ * known redshifts the continuum is re-estimated with the templates' lines masked, so that broad
+ * lines do not pull it up; one estimate can mask the lines of several candidates at once.
  */
 import { robustContinuum } from './continuum.js';
 import { continuumBlockPixels, type PreparedSpectrum } from './preprocess.js';
@@ -19,12 +19,20 @@ export interface NativeResidual {
   good: Uint8Array;
   /** Width of one native pixel, km/s (taken as the instrument's σ). */
   pixelKmS: number;
+  /** false when too few pixels were left between the lines and the unmasked continuum was used. */
+  linesMasked: boolean;
 }
 
-export function nativeResidual(p: PreparedSpectrum, template: Template | null, z: number): NativeResidual {
+/** Lines of a template at a redshift, masked from the continuum fit. */
+export interface LineMask {
+  template: Template;
+  z: number;
+}
+
+export function nativeResidual(p: PreparedSpectrum, masks: readonly LineMask[]): NativeResidual {
   const { grid } = p;
   const use = Uint8Array.from(p.good);
-  if (template) {
+  for (const { template, z } of masks) {
     for (const l of template.lines) {
       const c = Math.log(l.waveRestAngstrom * (1 + z)) / grid.step - grid.start;
       const half = (LINE_MASK_SIGMAS * Math.hypot(l.sigmaKmS, C_KMS * grid.step)) / (C_KMS * grid.step);
@@ -33,7 +41,8 @@ export function nativeResidual(p: PreparedSpectrum, template: Template | null, z
   }
   let kept = 0;
   for (let i = 0; i < use.length; i++) kept += use[i];
-  const gridCont = template && kept > 0.3 * p.nGood ? robustContinuum(p.flux, use, continuumBlockPixels(grid.step, grid.length)) : p.continuum;
+  const linesMasked = masks.length > 0 && kept > 0.3 * p.nGood;
+  const gridCont = linesMasked ? robustContinuum(p.flux, use, continuumBlockPixels(grid.step, grid.length)) : p.continuum;
   const { waveAngstrom, flux, sigma, good } = p.native;
   const n = waveAngstrom.length;
   const continuum = new Float64Array(n);
@@ -46,7 +55,7 @@ export function nativeResidual(p: PreparedSpectrum, template: Template | null, z
     resid[i] = flux[i] - continuum[i];
   }
   const pixelKmS = C_KMS * grid.step;
-  return { waveAngstrom, resid, continuum, sigma, good, pixelKmS };
+  return { waveAngstrom, resid, continuum, sigma, good, pixelKmS, linesMasked };
 }
 
 /** Indices of good pixels within `halfSigmas` line σ of any template line at z. */

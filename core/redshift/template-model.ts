@@ -30,7 +30,7 @@ export function templateModelFlux(template: string, z: number, spectrum: Spectru
   if (!(z > -1) || !Number.isFinite(z)) throw new RangeError(`z ${z} is not a redshift (a number above −1)`);
   const masks = { maskTelluric: options.maskTelluric ?? true, maskSky: options.maskSky ?? true };
   const p = preprocess(spectrum, masks);
-  const nr = nativeResidual(p, t, z);
+  const nr = nativeResidual(p, [{ template: t, z }]);
   const readable = nativePixels(spectrum, { maskTelluric: false, maskSky: false }).native.good;
   const n = nr.waveAngstrom.length;
   const rest = Float64Array.from(nr.waveAngstrom, (w) => w / (1 + z));
