@@ -3,7 +3,7 @@
  * template width, continuum removed) by weighted least squares; seen when its S/N ≥ 3 with the
  * template's sign (common practice, no source).
  */
-import { pixelsNearLines, type NativeResidual } from './native-residual.js';
+import { lineRun, usable, type NativeResidual } from './native-residual.js';
 import type { Template } from './templates.js';
 
 const C_KMS = 299792.458;
@@ -17,20 +17,20 @@ export interface LineDetection {
 export function detectLines(nr: NativeResidual, template: Template, z: number): LineDetection[] {
   const out: LineDetection[] = [];
   for (const l of template.lines) {
-    const single = { ...template, lines: [l] };
-    const idx = pixelsNearLines(nr, single, z, 2.5);
-    if (idx.length < 3) continue;
+    const [from, to] = lineRun(nr, l, z, 2.5);
     const centre = l.waveRestAngstrom * (1 + z);
     const sigmaA = (centre * Math.hypot(l.sigmaKmS, nr.pixelKmS)) / C_KMS;
-    let sty = 0, stt = 0;
-    for (const i of idx) {
+    let sty = 0, stt = 0, used = 0;
+    for (let i = from; i < to; i++) {
+      if (!usable(nr, i)) continue;
+      used++;
       const u = (nr.waveAngstrom[i] - centre) / sigmaA;
       const t = Math.exp(-0.5 * u * u);
       const w = 1 / (nr.sigma[i] * nr.sigma[i]);
       sty += w * t * nr.resid[i];
       stt += w * t * t;
     }
-    if (!(stt > 0)) continue;
+    if (used < 3 || !(stt > 0)) continue;
     const snr = (Math.sign(l.strength) * sty) / Math.sqrt(stt);
     out.push({ id: l.id, snr });
   }

@@ -5,7 +5,7 @@
  */
 import { robustContinuum } from './continuum.js';
 import { continuumBlockPixels, type PreparedSpectrum } from './preprocess.js';
-import { lowerBound, type Template } from './templates.js';
+import { lowerBound, type ProfileLine, type Template } from './templates.js';
 
 const C_KMS = 299792.458;
 /** Half-width of the mask around each line, in line σ (common practice, no source). */
@@ -58,17 +58,33 @@ export function nativeResidual(p: PreparedSpectrum, masks: readonly LineMask[]):
   return { waveAngstrom, resid, continuum, sigma, good, pixelKmS, linesMasked };
 }
 
-/** Indices of good pixels within `halfSigmas` line σ of any template line at z. */
+/**
+ * The run of pixels [from, to) within `halfSigmas` line σ of one line at z (the wavelengths
+ * ascend, so it is one run), good or not.
+ */
+export function lineRun(nr: NativeResidual, line: ProfileLine, z: number, halfSigmas: number): [number, number] {
+  const wave = nr.waveAngstrom;
+  const centre = line.waveRestAngstrom * (1 + z);
+  const half = (halfSigmas * centre * Math.hypot(line.sigmaKmS, nr.pixelKmS)) / C_KMS;
+  const from = lowerBound(wave, centre - half);
+  let to = from;
+  while (to < wave.length && wave[to] <= centre + half) to++;
+  return [from, to];
+}
+
+/** Whether pixel i can enter a fit: flagged good with a finite residual. */
+export function usable(nr: NativeResidual, i: number): boolean {
+  return nr.good[i] !== 0 && Number.isFinite(nr.resid[i]);
+}
+
+/** Indices (ascending, each once) of good pixels within `halfSigmas` line σ of any template line at z. */
 export function pixelsNearLines(nr: NativeResidual, template: Template, z: number, halfSigmas: number): number[] {
-  const n = nr.waveAngstrom.length;
-  const keep = new Uint8Array(n);
-  for (const l of template.lines) {
-    const centre = l.waveRestAngstrom * (1 + z);
-    const half = (halfSigmas * centre * Math.hypot(l.sigmaKmS, nr.pixelKmS)) / C_KMS;
-    // The wavelengths ascend (Spectrum), so the pixels near the line are one run.
-    for (let i = lowerBound(nr.waveAngstrom, centre - half); i < n && nr.waveAngstrom[i] <= centre + half; i++) keep[i] = 1;
-  }
+  const runs = template.lines.map((l) => lineRun(nr, l, z, halfSigmas)).sort((a, b) => a[0] - b[0]);
   const out: number[] = [];
-  for (let i = 0; i < n; i++) if (keep[i] && nr.good[i] && Number.isFinite(nr.resid[i])) out.push(i);
+  let next = 0;
+  for (const [from, to] of runs) {
+    for (let i = Math.max(from, next); i < to; i++) if (usable(nr, i)) out.push(i);
+    next = Math.max(next, to);
+  }
   return out;
 }

@@ -7,9 +7,9 @@
  * lines' own velocities is a floor (centroidScatterKmS).
  */
 import { lineGroups } from './line-groups.js';
-import { lmFit, type LmProblem } from './lm-fit.js';
-import { invert, normalMatrix } from '../math/linear-algebra.js';
-import { pixelsNearLines, type NativeResidual } from './native-residual.js';
+import { choleskySolve, lmFit, type LmProblem } from './lm-fit.js';
+import { invert } from '../math/linear-algebra.js';
+import { lineRun, pixelsNearLines, usable, type NativeResidual } from './native-residual.js';
 import { lowerBound, type ProfileLine, type Template } from './templates.js';
 
 const C_KMS = 299792.458;
@@ -42,7 +42,7 @@ export function fitEmissionLines(nr: NativeResidual, template: Template, z0: num
   // A line with no good pixels (inside a masked telluric band, say) has no amplitude to fit and
   // would make the normal matrix singular: it is left out.
   const inRange = template.lines.filter(
-    (l) => l.strength > 0 && l.waveRestAngstrom * (1 + z0) > lo && l.waveRestAngstrom * (1 + z0) < hi && pixelsNearLines(nr, { ...template, lines: [l] }, z0, 4).length >= MIN_LINE_PIXELS,
+    (l) => l.strength > 0 && l.waveRestAngstrom * (1 + z0) > lo && l.waveRestAngstrom * (1 + z0) < hi && usablePixels(nr, l, z0) >= MIN_LINE_PIXELS,
   );
   const { members, nGroups } = lineGroups(inRange);
   const comps: Component[] = inRange.map((line, k) => ({ line, ...members[k], broad: line.sigmaKmS > BROAD_KMS }));
@@ -50,24 +50,20 @@ export function fitEmissionLines(nr: NativeResidual, template: Template, z0: num
   const sub = { ...template, lines: inRange };
   const idx = pixelsNearLines(nr, sub, z0, 4);
   if (idx.length < nGroups + 4) return null;
-  const x = idx.map((i) => nr.waveAngstrom[i]);
-  const y = idx.map((i) => nr.resid[i]);
-  const w = idx.map((i) => 1 / (nr.sigma[i] * nr.sigma[i]));
   const narrow0 = Math.min(...inRange.map((l) => l.sigmaKmS));
   const broadLines = inRange.filter((l) => l.sigmaKmS > BROAD_KMS);
   const broad0 = broadLines.length ? Math.min(...broadLines.map((l) => l.sigmaKmS)) : 1000;
   const inst = nr.pixelKmS;
 
   const nP = 3 + nGroups;
-  const xs = Float64Array.from(x), ys = Float64Array.from(y), ws = Float64Array.from(w);
+  const xs = Float64Array.from(idx, (i) => nr.waveAngstrom[i]);
+  const ys = Float64Array.from(idx, (i) => nr.resid[i]);
+  const ws = Float64Array.from(idx, (i) => 1 / (nr.sigma[i] * nr.sigma[i]));
   const evaluate = lineModel(comps, z0, inst, xs, nP);
-  const gaussian = (xi: number, comp: Component): number => {
-    const c = comp.line.waveRestAngstrom * (1 + z0);
-    const sA = (c * Math.hypot(comp.broad ? broad0 : narrow0, inst)) / C_KMS;
-    const u = (xi - c) / sA;
-    return (comp.ratio * Math.exp(-0.5 * u * u)) / (sA * SQRT_2PI);
-  };
-  const start = Float64Array.from([0, narrow0, broad0, ...initialAmplitudes(x, y, w, comps, nGroups, gaussian)]);
+  const start = new Float64Array(nP);
+  start[1] = narrow0;
+  start[2] = broad0;
+  setInitialAmplitudes(evaluate, ys, ws, start);
   const fixedBroad = broadLines.length === 0;
   const fixedNarrow = inRange.every((l) => l.sigmaKmS > BROAD_KMS);
   const lower = Float64Array.from([-MAX_SHIFT_KMS * 2, fixedNarrow ? narrow0 : 5, fixedBroad ? broad0 : 300, ...new Array<number>(nGroups).fill(-Infinity)]);
@@ -78,7 +74,7 @@ export function fitEmissionLines(nr: NativeResidual, template: Template, z0: num
   const nF = fit.free.length;
   const cov = invert(Array.from({ length: nF }, (_, i) => Array.from(fit.normal.subarray(i * nF, (i + 1) * nF))));
   if (!cov || fit.free[0] !== 0 || !(cov[0][0] > 0)) return null;
-  const dof = Math.max(1, x.length - nF);
+  const dof = Math.max(1, xs.length - nF);
   const chi2Red = fit.chi2 / dof;
   const covarianceKmS = Math.sqrt(cov[0][0]) * Math.sqrt(Math.max(1, chi2Red));
   const ampErr = (g: number) => {
@@ -89,6 +85,13 @@ export function fitEmissionLines(nr: NativeResidual, template: Template, z0: num
   const sigmaV = Math.max(covarianceKmS, scatterKmS);
   const z = (1 + z0) * (1 + p[0] / C_KMS) - 1;
   return { z, zErr: ((1 + z0) * sigmaV) / C_KMS, chi2Red, nLinesFitted: inRange.length };
+}
+
+function usablePixels(nr: NativeResidual, line: ProfileLine, z: number): number {
+  const [from, to] = lineRun(nr, line, z, 4);
+  let k = 0;
+  for (let i = from; i < to; i++) if (usable(nr, i)) k++;
+  return k;
 }
 
 /**
@@ -191,18 +194,28 @@ function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) =>
   return s / Math.sqrt(n);
 }
 
-/** Linear least-squares amplitudes at the start point (the model is linear in them). */
-function initialAmplitudes(x: number[], y: number[], w: number[], comps: Component[], nGroups: number, g: (xi: number, c: Component) => number): number[] {
-  const rows = x.map((xi) => {
-    const r = new Array<number>(nGroups).fill(0);
-    for (const c of comps) r[c.group] += g(xi, c);
-    return r;
-  });
-  const a = normalMatrix(rows, w);
-  for (let i = 0; i < nGroups; i++) a[i][i] += 1e-12 * (a[i][i] || 1);
-  const inv = invert(a);
-  if (!inv) return new Array<number>(nGroups).fill(0);
-  const b = new Array<number>(nGroups).fill(0);
-  rows.forEach((r, k) => r.forEach((v, i) => (b[i] += w[k] * v * y[k])));
-  return inv.map((row) => row.reduce((s, v, j) => s + v * b[j], 0));
+/**
+ * Sets p[3…] to the linear least-squares amplitudes at p's velocity and widths (the model is
+ * linear in them: its Jacobian columns for the amplitudes are the unit-amplitude profiles);
+ * zero when the normal equations cannot be solved.
+ */
+function setInitialAmplitudes(evaluate: LmProblem['evaluate'], y: Float64Array, w: Float64Array, p: Float64Array): void {
+  const nP = p.length, nA = nP - 3, nY = y.length;
+  const model = new Float64Array(nY), jac = new Float64Array(nY * nP);
+  evaluate(p, model, jac);
+  const a = new Float64Array(nA * nA), b = new Float64Array(nA), amp = new Float64Array(nA);
+  for (let k = 0; k < nY; k++) {
+    const row = k * nP + 3;
+    for (let i = 0; i < nA; i++) {
+      const gi = jac[row + i];
+      if (gi === 0) continue;
+      b[i] += w[k] * gi * y[k];
+      for (let j = i; j < nA; j++) a[i * nA + j] += w[k] * gi * jac[row + j];
+    }
+  }
+  for (let i = 0; i < nA; i++) {
+    for (let j = 0; j < i; j++) a[i * nA + j] = a[j * nA + i];
+    a[i * nA + i] += 1e-12 * (a[i * nA + i] || 1);
+  }
+  if (choleskySolve(a, b, amp, nA)) p.set(amp, 3);
 }
