@@ -10,7 +10,9 @@
  * falls in the window and makes false peaks at the ends of the lag range.
  *
  * Lag L (whole grid pixels) means z = exp(L·step) − 1. Templates are transformed once per grid
- * and cached; the spectrum is transformed once per FFT size. A template's coverage m_t is one
+ * and cached; the spectrum is transformed once per FFT size. The FFT is only as long as the
+ * searched lags need without wrap-around given where the template profile is non-zero
+ * (templateFftSize), not as long as the whole template window. A template's coverage m_t is one
  * interval of rest wavelengths, so the sums over it are differences of running sums, not
  * transforms.
  */
@@ -69,7 +71,8 @@ interface Layout {
   /** Absolute rest index of template buffer position 0. */
   templateOrigin: number;
   templateLength: number;
-  size: number;
+  /** Spectrum buffer positions [0, specLength) may be non-zero. */
+  specLength: number;
 }
 
 /**
@@ -93,23 +96,37 @@ function layoutFor(p: PreparedSpectrum, zMin: number, zMax: number, margin: numb
   const a = Math.floor(start / RANGE_QUANTUM) * RANGE_QUANTUM;
   const b = Math.ceil((start + length) / RANGE_QUANTUM) * RANGE_QUANTUM;
   const templateLength = b - a + lagMax - lagMin;
-  return { lagMin, lagMax, specOrigin: a, templateOrigin: a - lagMax, templateLength, size: nextPowerOfTwo(templateLength) };
+  return { lagMin, lagMax, specOrigin: a, templateOrigin: a - lagMax, templateLength, specLength: b - a };
+}
+
+/**
+ * The smallest power-of-two size whose circular correlation equals the linear one at the searched
+ * buffer positions m ∈ [0, nLag): a spectrum term j ∈ [0, specLength) meets template position
+ * j + m, which must not wrap past N onto the template's support [supportLo, supportHi].
+ */
+function templateFftSize(lay: Layout, supportLo: number, supportHi: number): number {
+  const nLag = lay.lagMax - lay.lagMin + 1;
+  const noWrap = supportHi >= supportLo ? Math.max(supportHi + 1, lay.specLength + nLag - 1 - supportLo) : 0;
+  return nextPowerOfTwo(Math.max(noWrap, nLag, lay.specLength));
 }
 
 function bankEntry(t: Template, step: number, lay: Layout): BankEntry {
-  const key = `${t.name}|${step}|${lay.templateOrigin}|${lay.templateLength}|${lay.size}`;
+  const key = `${t.name}|${step}|${lay.templateOrigin}|${lay.templateLength}|${lay.specLength}`;
   const hit = bank.get(key);
   if (hit) {
     bank.delete(key);
     bank.set(key, hit);
     return hit;
   }
-  const fft = complexFft(lay.size);
   const n = lay.templateLength;
   const wave = new Float64Array(n);
   for (let i = 0; i < n; i++) wave[i] = Math.exp((lay.templateOrigin + i) * step);
   const prof = new Float64Array(n);
   t.evaluate(wave, C_KMS * step, prof, CORRELATION_STRENGTH_POWER);
+  let supportLo = 0, supportHi = n - 1;
+  while (supportLo < n && prof[supportLo] === 0) supportLo++;
+  while (supportHi >= 0 && prof[supportHi] === 0) supportHi--;
+  const fft = complexFft(templateFftSize(lay, supportLo, supportHi));
   const [lo, hi] = t.restRangeAngstrom;
   const sq = new Float64Array(n);
   for (let i = 0; i < n; i++) sq[i] = prof[i] * prof[i];
@@ -154,9 +171,8 @@ function scratchFor(fft: ComplexFft): Scratch {
   return s;
 }
 
-function spectrumTransforms(p: PreparedSpectrum, lay: Layout): SpectrumTransforms {
-  const fft = complexFft(lay.size);
-  const n = lay.size;
+function spectrumTransforms(p: PreparedSpectrum, lay: Layout, fft: ComplexFft): SpectrumTransforms {
+  const n = fft.size;
   const off = p.grid.start - lay.specOrigin;
   const { a, b, z, s2Sum, goodSum } = scratchFor(fft);
   a.fill(0);
@@ -192,18 +208,18 @@ export function correlate(p: PreparedSpectrum, templates: { template: Template; 
   for (const { template, zMin, zMax } of templates) {
     const margin = sigmaAMarginLags(template, p.grid.step);
     const lay = layoutFor(p, zMin, zMax, margin);
-    const skey = `${lay.specOrigin}|${lay.size}`;
+    const e = bankEntry(template, p.grid.step, lay);
+    const skey = `${lay.specOrigin}|${e.fft.size}`;
     let st = specCache.get(skey);
-    if (!st) specCache.set(skey, (st = spectrumTransforms(p, lay)));
-    out.push(correlateOne(p, template, lay, st, margin));
+    if (!st) specCache.set(skey, (st = spectrumTransforms(p, lay, e.fft)));
+    out.push(correlateOne(p, template, e, lay, st, margin));
   }
   return out;
 }
 
-function correlateOne(p: PreparedSpectrum, template: Template, lay: Layout, st: SpectrumTransforms, margin: number): CorrelationCurveData {
-  const e = bankEntry(template, p.grid.step, lay);
+function correlateOne(p: PreparedSpectrum, template: Template, e: BankEntry, lay: Layout, st: SpectrumTransforms, margin: number): CorrelationCurveData {
   const { fft } = e;
-  const n = lay.size;
+  const n = fft.size;
   const [x, cx] = scratchFor(fft).z;
   for (let k = 0; k < n; k++) {
     const re = 2 * k, im = re + 1;
