@@ -8,7 +8,7 @@ import { absorptionFeatures, lineChi2Gain } from './absorption-evidence.js';
 import { suggestConfidence } from './confidence.js';
 import { correlate, type CorrelationCurveData } from './correlate.js';
 import { detectLines, DETECTION_SNR, linesInRange } from './line-detection.js';
-import { nativeResidual } from './native-residual.js';
+import { nativeResidual, type NativeResidual } from './native-residual.js';
 import { findPeaks, type Peak } from './peaks.js';
 import { preprocess, type PreparedSpectrum } from './preprocess.js';
 import { fitTemplateChi2 } from './refine-chi2.js';
@@ -91,14 +91,14 @@ function finish(p: PreparedSpectrum, distinct: Scored[], curves: CorrelationCurv
     notes.push('no correlation peak: nothing in the spectrum matches a template');
     return { candidates, best: null, refinement: { method: 'none', chi2Red: null, nLinesFitted: 0 }, confidence: 'none', nLines: 0, ...(correlations ? { correlations } : {}), notes };
   }
-  const order = rankByLineEvidence(p, distinct);
+  const { order, own } = rankByLineEvidence(p, distinct);
   const top = distinct[order];
   if (order !== 0) {
     candidates.unshift(...candidates.splice(order, 1));
     distinct.unshift(...distinct.splice(order, 1));
   }
-  // The chosen candidate's continuum is refitted with only its own lines masked.
-  const residualOf = (s: Scored) => nativeResidual(p, [{ template: s.template, z: s.peak.z }]);
+  // The chosen candidate's continuum has only its own lines masked (refitted unless the ranking did).
+  const residualOf = (s: Scored) => own.get(s) ?? nativeResidual(p, [{ template: s.template, z: s.peak.z }]);
   const nr = residualOf(top);
   let best: Candidate = { ...candidates[0] };
   let refinement: Refinement = { method: 'none', chi2Red: null, nLinesFitted: 0 };
@@ -135,8 +135,9 @@ const EVIDENCE_SNR_CAP = 10;
  * spectrum: Σ min(S/N, cap)² over lines seen with the right sign. One strong line matched by the
  * wrong line of another template (broad Hα taken for Lyα) explains less than the full pattern.
  */
-function rankByLineEvidence(p: PreparedSpectrum, distinct: Scored[]): number {
+function rankByLineEvidence(p: PreparedSpectrum, distinct: Scored[]): { order: number; own: Map<Scored, NativeResidual> } {
   let order = 0, bestEvidence = -Infinity;
+  const own = new Map<Scored, NativeResidual>();
   const compared = distinct.slice(0, EVIDENCE_CANDIDATES);
   // One continuum with every compared candidate's lines masked serves them all, unless that
   // leaves too few pixels: then each gets its own.
@@ -144,14 +145,15 @@ function rankByLineEvidence(p: PreparedSpectrum, distinct: Scored[]): number {
   const shared = withLines.length > 1 ? nativeResidual(p, withLines.map((s) => ({ template: s.template, z: s.peak.z }))) : null;
   compared.forEach((s, i) => {
     if (s.template.lines.length === 0) return;
-    const nr = shared?.linesMasked ? shared : nativeResidual(p, [{ template: s.template, z: s.peak.z }]);
+    let nr = shared;
+    if (!nr?.linesMasked) own.set(s, (nr = nativeResidual(p, [{ template: s.template, z: s.peak.z }])));
     const ev = detectLines(nr, s.template, s.peak.z).reduce((acc, d) => acc + (d.snr >= DETECTION_SNR ? Math.min(d.snr, EVIDENCE_SNR_CAP) ** 2 : 0), 0);
     if (ev > bestEvidence) {
       bestEvidence = ev;
       order = i;
     }
   });
-  return order;
+  return { order, own };
 }
 
 function downsampleCurve(c: CorrelationCurveData): CorrelationCurve {
