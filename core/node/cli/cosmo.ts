@@ -18,23 +18,22 @@ interface CosmoOptions {
 
 const DEFAULT_PRESET = 'planck18';
 
-/** Help texts of the cosmology options, shared by every command that takes them. */
-export const COSMOLOGY_OPTION_HELP = {
-  preset: `model to start from: ${Object.keys(COSMOLOGY_PRESETS).join(', ')} (default ${DEFAULT_PRESET})`,
-  h0: 'Hubble constant H0, km/s/Mpc',
-  om: 'matter density Ωm',
-  ol: 'cosmological-constant density ΩΛ (default 1 − Ωm when --om is given: flat)',
-};
+/** Adds the cosmology options (read back with modelFromOptions) to any command that takes them. */
+export function withCosmologyOptions(command: Command): Command {
+  return command
+    .option('--preset <name>', `model to start from: ${Object.keys(COSMOLOGY_PRESETS).join(', ')} (default ${DEFAULT_PRESET})`)
+    .option('--h0 <km/s/Mpc>', 'Hubble constant H0, km/s/Mpc')
+    .option('--om <Ωm>', 'matter density Ωm')
+    .option('--ol <ΩΛ>', 'cosmological-constant density ΩΛ (default 1 − Ωm when --om is given: flat)');
+}
 
 export function registerCosmo(program: Command): void {
-  program
-    .command('cosmo')
-    .description('ΛCDM distances (Mpc), distance modulus (mag), lookback time and age (Gyr), kpc per arcsec at each redshift')
-    .argument('<z...>', 'one or more redshifts ≥ 0')
-    .option('--preset <name>', COSMOLOGY_OPTION_HELP.preset)
-    .option('--h0 <km/s/Mpc>', COSMOLOGY_OPTION_HELP.h0)
-    .option('--om <Ωm>', COSMOLOGY_OPTION_HELP.om)
-    .option('--ol <ΩΛ>', COSMOLOGY_OPTION_HELP.ol)
+  withCosmologyOptions(
+    program
+      .command('cosmo')
+      .description('ΛCDM distances (Mpc), distance modulus (mag), lookback time and age (Gyr), kpc per arcsec at each redshift')
+      .argument('<z...>', 'one or more redshifts ≥ 0'),
+  )
     .option('--json', 'print a JSON array, one object per redshift (units in the key names)')
     .action(runAction((zs: string[], opts: CosmoOptions) => {
       const model = modelFromOptions(opts);

@@ -9,7 +9,7 @@ import type { Command } from 'commander';
 import { CATALOGUE_FORMATS, formatFromFileName, type CatalogueFormat } from '../../catalogue/export.js';
 import { exportCatalogue } from '../export-catalogue.js';
 import { Worklist } from '../worklist.js';
-import { COSMOLOGY_OPTION_HELP, modelFromOptions } from './cosmo.js';
+import { modelFromOptions, withCosmologyOptions } from './cosmo.js';
 import { runAction } from './run-action.js';
 import { SITE_OPTION_HELP, siteOption } from './site-option.js';
 import { UsageError } from './usage-error.js';
@@ -32,17 +32,12 @@ function chooseFormat(opts: ExportOptions): CatalogueFormat {
 }
 
 export function registerExport(program: Command): void {
-  program
-    .command('export')
+  withCosmologyOptions(program.command('export'))
     .description('write the catalogue of a worklist (verdicts and file metadata, one row per spectrum)')
     .argument('<worklist>', 'worklist folder (its <name>.verdicts.jsonl holds the verdicts)')
     .option('--format <format>', `catalogue format: ${CATALOGUE_FORMATS.join(', ')} (default: from the --out file ending)`)
     .requiredOption('--out <file>', 'catalogue file to write (replaced atomically)')
     .option('--site <name>', SITE_OPTION_HELP)
-    .option('--preset <name>', COSMOLOGY_OPTION_HELP.preset)
-    .option('--h0 <km/s/Mpc>', COSMOLOGY_OPTION_HELP.h0)
-    .option('--om <Ωm>', COSMOLOGY_OPTION_HELP.om)
-    .option('--ol <ΩΛ>', COSMOLOGY_OPTION_HELP.ol)
     .action(runAction(async (worklistPath: string, opts: ExportOptions) => {
       const format = chooseFormat(opts);
       const cosmology = modelFromOptions(opts);

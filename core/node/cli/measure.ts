@@ -21,7 +21,7 @@ import { LineListError, parseUserLineList } from '../../redshift/user-line-list.
 import { MeasurePool, type MeasureFileResult } from '../measure-pool.js';
 import { readSpectrumFile } from '../read-spectrum-file.js';
 import { listSpectrumFiles } from '../spectrum-files.js';
-import { COSMOLOGY_OPTION_HELP, modelFromOptions } from './cosmo.js';
+import { modelFromOptions, withCosmologyOptions } from './cosmo.js';
 import { SITE_OPTION_HELP, siteOption } from './site-option.js';
 import { EXIT_OK, EXIT_SOME_FAILED, runAction } from './run-action.js';
 import { UsageError } from './usage-error.js';
@@ -48,8 +48,7 @@ interface MeasureCliOptions {
 const AHEAD_PER_JOB = 8;
 
 export function registerMeasure(program: Command, columns: MeasureColumn[] = MEASURE_COLUMNS): void {
-  program
-    .command('measure')
+  withCosmologyOptions(program.command('measure'))
     .description('automatic redshift candidates for spectrum files and folders (suggestions until vetted)')
     .argument('<paths...>', 'spectrum files or folders (searched recursively)')
     .option('--out <file>', 'write the table here ("-" = standard output)', '-')
@@ -61,10 +60,6 @@ export function registerMeasure(program: Command, columns: MeasureColumn[] = MEA
     .option('--line-list <file>', 'extra template from a JSON line list (rest-frame vacuum Å)')
     .option('--template-spectrum <file...>', 'extra templates from rest-frame spectra (any file zvet reads)')
     .option('--site <name>', SITE_OPTION_HELP)
-    .option('--preset <name>', COSMOLOGY_OPTION_HELP.preset)
-    .option('--h0 <km/s/Mpc>', COSMOLOGY_OPTION_HELP.h0)
-    .option('--om <Ωm>', COSMOLOGY_OPTION_HELP.om)
-    .option('--ol <ΩΛ>', COSMOLOGY_OPTION_HELP.ol)
     .option('--lines', 'also measure the host lines at the best z: Hα, Hβ, [O III], [N II] fluxes, BPT class, E(B−V), SFR')
     .option('--stage-times', 'print the time spent per stage (read, preprocess, correlate, refine) to standard error')
     .action(runAction(async (paths: string[], opts: MeasureCliOptions) => measure(paths, opts, columns)));
