@@ -18,20 +18,15 @@ const LOOPBACK = /^(?:https?|wss?):\/\/(?:127\.0\.0\.1|localhost|\[::1\])(?::\d+
 
 /** Addresses in comments and licence texts of plotly.min.js (documentation, never loaded). */
 const PLOTLY_COMMENT_URLS = [
-  'http://feross.org', // licence header of the bundled buffer/ieee754 modules
-  'https://feross.org', // same
-  'https://feross.org/opensource', // same
   'http://getify.mit-license.org', // licence header of a bundled module
   'http://syntheti.cc', // author link in a bundled module's licence header
-  'https://github.com/jonschlinkert/pad-left', // licence header of pad-left
-  'https://github.com/jonschlinkert/repeat-string', // licence header of repeat-string
   'https://github.com/voidqk/polybooljs', // licence header of polybooljs
 ];
 
 /**
- * Addresses in plotly.min.js code, each with the reason the zvet page never loads it. The map and
- * geo ones are fetched only by map/geo traces, which zvet never draws (checked below); the content
- * security policy would block every one of them anyway (checked below too).
+ * Addresses in plotly.min.js (plotly's basic partial bundle) code, each with the reason the zvet
+ * page never loads it. The geo one is fetched only by geo traces, which zvet never draws (checked
+ * below); the content security policy would block every one of them anyway (checked below too).
  */
 const PLOTLY_CODE_URLS: Record<string, string> = {
   // XML namespace names: identifiers, not addresses to fetch (Namespaces in XML 1.0, §2.2; from memory).
@@ -40,45 +35,15 @@ const PLOTLY_CODE_URLS: Record<string, string> = {
   'http://www.w3.org/1999/xhtml': 'XML namespace name',
   'http://www.w3.org/2000/xmlns/': 'XML namespace name',
   'http://www.w3.org/XML/1998/namespace': 'XML namespace name',
-  // Map and geo traces (scattermap, choroplethmap, densitymap, scattergeo, choropleth): basemaps,
-  // tiles, glyphs, icons and country outlines.
-  'https://basemaps.cartocdn.com/gl/dark-matter-gl-style/style.json': 'map-trace basemap style',
-  'https://basemaps.cartocdn.com/gl/dark-matter-nolabels-gl-style/style.json': 'map-trace basemap style',
-  'https://basemaps.cartocdn.com/gl/positron-gl-style/style.json': 'map-trace basemap style',
-  'https://basemaps.cartocdn.com/gl/positron-nolabels-gl-style/style.json': 'map-trace basemap style',
-  'https://basemaps.cartocdn.com/gl/voyager-gl-style/style.json': 'map-trace basemap style',
-  'https://basemaps.cartocdn.com/gl/voyager-nolabels-gl-style/style.json': 'map-trace basemap style',
-  'https://tiles.basemaps.cartocdn.com/fonts/Open': 'map-trace glyphs',
-  'https://fonts.openmaptiles.org/Klokantech': 'map-trace glyphs',
-  'https://fonts.openmaptiles.org/Open': 'map-trace glyphs',
-  'https://fonts.openmaptiles.org/{fontstack}/{range}.pbf': 'map-trace glyphs',
-  'https://geoserveis.icgc.cat/contextmaps/basemap.json': 'map-trace basemap style',
-  'https://geoserveis.icgc.cat/contextmaps/glyphs/{fontstack}/{range}.pbf': 'map-trace glyphs',
-  'https://geoserveis.icgc.cat/contextmaps/sprites/sprite@1': 'map-trace sprites',
-  'https://geoserveis.icgc.cat/icc_mapesmultibase/noutm/wmts/orto/GRID3857/{z}/{x}/{y}.jpeg': 'map-trace tiles',
-  'https://tilemaps.icgc.cat/mapfactory/wmts/orto_8_12/CAT3857/{z}/{x}/{y}.png': 'map-trace tiles',
-  'https://server.arcgisonline.com/ArcGIS/rest/services/World_Imagery/MapServer/tile/{z}/{y}/{x}': 'map-trace tiles',
-  'https://tile.openstreetmap.org/{z}/{x}/{y}.png': 'map-trace tiles',
-  'https://cdn.jsdelivr.net/npm/@mapbox/maki@8.2.0/icons/${d}.svg': 'map-trace marker icons',
+  // Geo traces (scattergeo, choropleth): country outlines; not in the basic bundle's trace set.
   'https://cdn.plot.ly/un/': 'geo-trace country outlines (topojson)',
   // Chart Studio export: only with the showSendToCloud / showEditInChartStudio options (not set).
   'https://cloud.plotly.com/newchart': 'Chart Studio export, off unless configured',
   // Texts and links shown to a person, never fetched by the page.
   'https://plotly.com/': 'logo link of the mode bar, hidden (displaylogo: false)',
   'https://plotly.com/javascript/animations/': 'text of a console warning',
-  'http://get.webgl.org': 'link in the "WebGL missing" message',
-  'https://get.webgl.org': 'link in the "WebGL missing" message',
   'https://github.com/d3/d3-format/tree/v1.4.5#d3-format': 'text of a format error message',
   'https://github.com/d3/d3-time-format/tree/v2.2.3#locale_format': 'text of a format error message',
-  'https://github.com/mapbox/mapbox-gl-js/issues/2907': 'text of a map error message',
-  'https://github.com/maplibre/maplibre-gl-js/blob/v6.11.2/LICENSE.txt': 'licence note inside the map worker source string',
-  'https://github.com/mikolalysenko/glsl-read-float/blob/master/index.glsl': 'comment inside a shader source string',
-  'https://maplibre.org/': 'map attribution link',
-  'https://www.openstreetmap.org/copyright': 'map attribution link',
-  'https://wiki.openstreetmap.org/wiki/This_map_requires_WebGL': 'link in a map error message',
-  'http://www.esri.com': 'map attribution link',
-  // A base for parsing relative addresses; the .invalid domain never resolves (RFC 6761, §6.4).
-  'https://maplibre.invalid/': 'URL-parsing base on a domain that cannot resolve',
 };
 
 /** The plotly trace types that fetch remote map or geo data. */
