@@ -19,7 +19,7 @@
  *   422 the file cannot be read or measured, 503 the disk refused a write (the verdict stays
  *   queued in memory and is retried on the next save), 500 anything unexpected.
  */
-import type { Confidence, ObjectClass, Verdict, VerdictStatus } from '../catalogue/verdict.js';
+import type { Verdict } from '../catalogue/verdict.js';
 import type { Measurement } from '../redshift/types.js';
 import type { FrameResult } from '../astro/frames.js';
 import type { HostAnalysis } from '../hosts/analyse.js';
@@ -92,17 +92,11 @@ export interface SpectrumView {
   error: string | null;
 }
 
-/** What the window sends to save a decision; the host stamps time and user. */
-export interface VerdictInput {
-  id: string;
-  status: VerdictStatus;
-  z: number | null;
-  zErr: number | null;
-  confidence: Confidence | null;
-  objectClass: ObjectClass;
-  template: string | null;
-  note: string;
-}
+/**
+ * What the window sends to save a decision: the verdict's own fields, with the spectrum named by
+ * its worklist id; the host fills in the HDU and stamps time and user.
+ */
+export type VerdictInput = Omit<Verdict, 'spectrum' | 'hdu' | 'time' | 'user'> & { id: string };
 
 export interface SiteSetting {
   name: string;
