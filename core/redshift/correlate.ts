@@ -20,8 +20,8 @@ import { complexFft, forwardRealPair, nextPowerOfTwo, type ComplexFft } from './
 import type { PreparedSpectrum } from './preprocess.js';
 import { TD_MIN_WINDOW_LAGS, TD_WINDOW_WIDTHS } from './peaks.js';
 import type { Template } from './templates.js';
+import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
 
-const C_KMS = 299792.458;
 /** Spectrum ranges are rounded out to multiples of this many pixels to share cached templates. */
 const RANGE_QUANTUM = 256;
 /** Lags where the template covers less than this fraction of the spectrum are not searched. */
@@ -83,7 +83,7 @@ interface Layout {
  * itself: FWHM = 2√(2 ln 2)·√2·σ, σ the line's width with the pixel's in quadrature.
  */
 export function sigmaAMarginLags(template: Template, step: number): number {
-  const pixelKmS = C_KMS * step;
+  const pixelKmS = SPEED_OF_LIGHT_KMS * step;
   const widest = template.lines.reduce((m, l) => Math.max(m, l.sigmaKmS), 0);
   const fwhmLags = (2 * Math.sqrt(2 * Math.LN2) * Math.SQRT2 * Math.hypot(widest, pixelKmS)) / pixelKmS;
   return Math.max(TD_MIN_WINDOW_LAGS, Math.ceil(TD_WINDOW_WIDTHS * fwhmLags));
@@ -122,7 +122,7 @@ function bankEntry(t: Template, step: number, lay: Layout): BankEntry {
   const wave = new Float64Array(n);
   for (let i = 0; i < n; i++) wave[i] = Math.exp((lay.templateOrigin + i) * step);
   const prof = new Float64Array(n);
-  t.evaluate(wave, C_KMS * step, prof, CORRELATION_STRENGTH_POWER);
+  t.evaluate(wave, SPEED_OF_LIGHT_KMS * step, prof, CORRELATION_STRENGTH_POWER);
   let supportLo = 0, supportHi = n - 1;
   while (supportLo < n && prof[supportLo] === 0) supportLo++;
   while (supportHi >= 0 && prof[supportHi] === 0) supportHi--;

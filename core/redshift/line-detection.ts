@@ -5,8 +5,8 @@
  */
 import { lineRun, usable, type NativeResidual } from './native-residual.js';
 import type { Template } from './templates.js';
+import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
 
-const C_KMS = 299792.458;
 export const DETECTION_SNR = 3;
 
 export interface LineDetection {
@@ -19,7 +19,7 @@ export function detectLines(nr: NativeResidual, template: Template, z: number): 
   for (const l of template.lines) {
     const [from, to] = lineRun(nr, l, z, 2.5);
     const centre = l.waveRestAngstrom * (1 + z);
-    const sigmaA = (centre * Math.hypot(l.sigmaKmS, nr.pixelKmS)) / C_KMS;
+    const sigmaA = (centre * Math.hypot(l.sigmaKmS, nr.pixelKmS)) / SPEED_OF_LIGHT_KMS;
     let sty = 0, stt = 0, used = 0;
     for (let i = from; i < to; i++) {
       if (!usable(nr, i)) continue;

@@ -6,8 +6,8 @@
 import { robustContinuum } from './continuum.js';
 import { continuumBlockPixels, type PreparedSpectrum } from './preprocess.js';
 import { lowerBound, type ProfileLine, type Template } from './templates.js';
+import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
 
-const C_KMS = 299792.458;
 /** Half-width of the mask around each line, in line σ (common practice, no source). */
 const LINE_MASK_SIGMAS = 3;
 
@@ -35,7 +35,7 @@ export function nativeResidual(p: PreparedSpectrum, masks: readonly LineMask[]):
   for (const { template, z } of masks) {
     for (const l of template.lines) {
       const c = Math.log(l.waveRestAngstrom * (1 + z)) / grid.step - grid.start;
-      const half = (LINE_MASK_SIGMAS * Math.hypot(l.sigmaKmS, C_KMS * grid.step)) / (C_KMS * grid.step);
+      const half = (LINE_MASK_SIGMAS * Math.hypot(l.sigmaKmS, SPEED_OF_LIGHT_KMS * grid.step)) / (SPEED_OF_LIGHT_KMS * grid.step);
       for (let i = Math.max(0, Math.floor(c - half)); i <= Math.min(grid.length - 1, Math.ceil(c + half)); i++) use[i] = 0;
     }
   }
@@ -54,7 +54,7 @@ export function nativeResidual(p: PreparedSpectrum, masks: readonly LineMask[]):
     continuum[i] = x < -0.5 || x > grid.length - 0.5 ? NaN : gridCont[j] + f * (gridCont[j + 1] - gridCont[j]);
     resid[i] = flux[i] - continuum[i];
   }
-  const pixelKmS = C_KMS * grid.step;
+  const pixelKmS = SPEED_OF_LIGHT_KMS * grid.step;
   return { waveAngstrom, resid, continuum, sigma, good, pixelKmS, linesMasked };
 }
 
@@ -65,7 +65,7 @@ export function nativeResidual(p: PreparedSpectrum, masks: readonly LineMask[]):
 export function lineRun(nr: NativeResidual, line: ProfileLine, z: number, halfSigmas: number): [number, number] {
   const wave = nr.waveAngstrom;
   const centre = line.waveRestAngstrom * (1 + z);
-  const half = (halfSigmas * centre * Math.hypot(line.sigmaKmS, nr.pixelKmS)) / C_KMS;
+  const half = (halfSigmas * centre * Math.hypot(line.sigmaKmS, nr.pixelKmS)) / SPEED_OF_LIGHT_KMS;
   const from = lowerBound(wave, centre - half);
   let to = from;
   while (to < wave.length && wave[to] <= centre + half) to++;

@@ -7,6 +7,7 @@ import type { Spectrum } from '../spectrum/spectrum.js';
 import { robustContinuum, median } from './continuum.js';
 import { gridStepFor, rebinFluxConserving, type LogGrid } from './log-grid.js';
 import { applyObservedMasks } from './observed-masks.js';
+import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
 
 /** Continuum block width, km/s (common practice, no source: wide next to broad QSO lines). */
 export const CONTINUUM_BLOCK_KMS = 20000;
@@ -14,7 +15,6 @@ export const CONTINUUM_BLOCK_KMS = 20000;
 export const APODISE_FRACTION = 0.05;
 /** Weights are capped at this multiple of their median, so a few pixels cannot dominate. */
 const MAX_WEIGHT_OVER_MEDIAN = 10;
-const C_KMS = 299792.458;
 
 export interface NativePixels {
   waveAngstrom: Float64Array;
@@ -75,7 +75,7 @@ function scatterSigma(flux: Float64Array, good: Uint8Array): number {
 }
 
 export function continuumBlockPixels(step: number, length: number): number {
-  return Math.max(16, Math.min(Math.round(Math.log(1 + CONTINUUM_BLOCK_KMS / C_KMS) / step), Math.floor(length / 4)));
+  return Math.max(16, Math.min(Math.round(Math.log(1 + CONTINUUM_BLOCK_KMS / SPEED_OF_LIGHT_KMS) / step), Math.floor(length / 4)));
 }
 
 export function preprocess(spectrum: Spectrum, opts: PreprocessOptions): PreparedSpectrum {

@@ -11,8 +11,8 @@ import { choleskySolve, lmFit, type LmProblem } from './lm-fit.js';
 import { invert } from '../math/linear-algebra.js';
 import { lineRun, pixelsNearLines, usable, type NativeResidual } from './native-residual.js';
 import { lowerBound, type ProfileLine, type Template } from './templates.js';
+import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
 
-const C_KMS = 299792.458;
 const SQRT_2PI = Math.sqrt(2 * Math.PI);
 /** Lines wider than this (km/s) share the broad σ (common practice, no source). */
 const BROAD_KMS = 600;
@@ -83,8 +83,8 @@ export function fitEmissionLines(nr: NativeResidual, template: Template, z0: num
   };
   const scatterKmS = chi2Red > SCATTER_FLOOR_CHI2RED ? centroidScatterKmS({ comps, nGroups, z0, inst, xs, ys, ws, lower, upper }, p, ampErr) : 0;
   const sigmaV = Math.max(covarianceKmS, scatterKmS);
-  const z = (1 + z0) * (1 + p[0] / C_KMS) - 1;
-  return { z, zErr: ((1 + z0) * sigmaV) / C_KMS, chi2Red, nLinesFitted: inRange.length };
+  const z = (1 + z0) * (1 + p[0] / SPEED_OF_LIGHT_KMS) - 1;
+  return { z, zErr: ((1 + z0) * sigmaV) / SPEED_OF_LIGHT_KMS, chi2Red, nLinesFitted: inRange.length };
 }
 
 function usablePixels(nr: NativeResidual, line: ProfileLine, z: number): number {
@@ -102,16 +102,16 @@ function usablePixels(nr: NativeResidual, line: ProfileLine, z: number): number 
 function lineModel(comps: Component[], z0: number, inst: number, xs: Float64Array, nP: number): LmProblem['evaluate'] {
   return (p, model, jac) => {
     model.fill(0);
-    const zf = (1 + z0) * (1 + p[0] / C_KMS);
+    const zf = (1 + z0) * (1 + p[0] / SPEED_OF_LIGHT_KMS);
     for (const comp of comps) {
       const c = comp.line.waveRestAngstrom * zf;
       const sv = comp.broad ? p[2] : p[1];
       const stot = Math.hypot(sv, inst);
-      const sA = (c * stot) / C_KMS;
+      const sA = (c * stot) / SPEED_OF_LIGHT_KMS;
       const amp = p[3 + comp.group];
       const norm = comp.ratio / (sA * SQRT_2PI);
       // ∂g/∂c = g·u/s, ∂c/∂v = λ_rest(1+z0)/c; ∂g/∂s = g(u² − 1)/s, ∂s/∂σv = c·σv/(C·stot)
-      const dcdv = (comp.line.waveRestAngstrom * (1 + z0)) / C_KMS, dsdsv = (c * sv) / (C_KMS * stot);
+      const dcdv = (comp.line.waveRestAngstrom * (1 + z0)) / SPEED_OF_LIGHT_KMS, dsdsv = (c * sv) / (SPEED_OF_LIGHT_KMS * stot);
       const jS = comp.broad ? 2 : 1, jA = 3 + comp.group;
       const end = c + PROFILE_REACH * sA;
       for (let k = lowerBound(xs, c - PROFILE_REACH * sA); k < xs.length && xs[k] <= end; k++) {
@@ -165,8 +165,8 @@ function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) =>
     const own = j.comps.filter((c) => c.group === g);
     const near = new Uint8Array(j.xs.length);
     for (const c of own) {
-      const centre = c.line.waveRestAngstrom * (1 + j.z0) * (1 + p[0] / C_KMS);
-      const half = (3 * centre * Math.hypot(c.broad ? p[2] : p[1], j.inst)) / C_KMS;
+      const centre = c.line.waveRestAngstrom * (1 + j.z0) * (1 + p[0] / SPEED_OF_LIGHT_KMS);
+      const half = (3 * centre * Math.hypot(c.broad ? p[2] : p[1], j.inst)) / SPEED_OF_LIGHT_KMS;
       for (let k = lowerBound(j.xs, centre - half); k < j.xs.length && j.xs[k] <= centre + half; k++) near[k] = 1;
     }
     const idx: number[] = [];

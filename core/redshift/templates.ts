@@ -7,8 +7,8 @@ import { restLine } from './line-list.js';
 import { LINE_TEMPLATES, type LineTemplateSpec } from './class-templates.js';
 import { robustContinuum } from './continuum.js';
 import type { TemplateClass, UserLineTemplate, UserSpectrumTemplate } from './types.js';
+import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
 
-const C_KMS = 299792.458;
 const SQRT_2PI = Math.sqrt(2 * Math.PI);
 
 export interface ProfileLine {
@@ -65,7 +65,7 @@ function lineTemplate(name: string, templateClass: TemplateClass, zMin: number, 
  */
 export function addLineProfile(line: ProfileLine, waveRest: Float64Array, instSigmaKmS: number, out: Float64Array, scale: number): void {
   const n = waveRest.length;
-  const sigmaA = (line.waveRestAngstrom * Math.hypot(line.sigmaKmS, instSigmaKmS)) / C_KMS;
+  const sigmaA = (line.waveRestAngstrom * Math.hypot(line.sigmaKmS, instSigmaKmS)) / SPEED_OF_LIGHT_KMS;
   const peak = scale / (sigmaA * SQRT_2PI);
   const b = line.waveRestAngstrom + 5 * sigmaA;
   for (let i = lowerBound(waveRest, line.waveRestAngstrom - 5 * sigmaA); i < n && waveRest[i] <= b; i++) {
