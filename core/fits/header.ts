@@ -18,30 +18,46 @@ export const BLOCK_LENGTH = 2880;
 
 const COMMENTARY = new Set(['COMMENT', 'HISTORY', '']);
 
-/** A parsed header: every card in order, and typed look-ups by keyword (case-insensitive). */
+/**
+ * A parsed header: every card in order, and typed look-ups by keyword (case-insensitive).
+ * Built from card images (fromImages), a card is parsed only when it is looked up or when
+ * all cards are asked for: most of a survey file's cards are never read.
+ */
 export class FitsHeader {
-  readonly cards: readonly FitsCard[];
-  private readonly byKey = new Map<string, FitsCard>();
+  private parsed?: FitsCard[];
+  private byKey?: Map<string, FitsCard>;
+  /** Card images (80 characters each) of a lazily parsed header, and where each key sits. */
+  private readonly images?: string;
+  private imageIndex?: Map<string, number>;
+  private readonly found = new Map<string, FitsCard | undefined>();
 
-  constructor(cards: FitsCard[]) {
-    this.cards = cards;
-    // The first occurrence of a keyword wins, as in most FITS readers.
-    for (const c of cards) {
-      const k = c.key.toUpperCase();
-      if (!COMMENTARY.has(k) && !this.byKey.has(k)) this.byKey.set(k, c);
-    }
+  constructor(cards: FitsCard[]);
+  constructor(cards: undefined, images: string);
+  constructor(cards: FitsCard[] | undefined, images?: string) {
+    this.parsed = cards;
+    this.images = images;
+  }
+
+  /** A header of card images (80 characters each, printable ASCII, END excluded). */
+  static fromImages(images: string): FitsHeader {
+    return new FitsHeader(undefined, images);
+  }
+
+  get cards(): readonly FitsCard[] {
+    this.parsed ??= joinContinued(this.cardImages(0, this.images!.length / CARD_LENGTH).map(parseCard));
+    return this.parsed;
   }
 
   has(key: string): boolean {
-    return this.byKey.has(key.toUpperCase());
+    return this.card(key) !== undefined;
   }
 
   value(key: string): CardValue | undefined {
-    return this.byKey.get(key.toUpperCase())?.value;
+    return this.card(key)?.value;
   }
 
   comment(key: string): string | undefined {
-    return this.byKey.get(key.toUpperCase())?.comment;
+    return this.card(key)?.comment;
   }
 
   /** String value, trimmed of trailing blanks (FITS 4.0 §4.2.1: they are not significant). */
@@ -72,6 +88,60 @@ export class FitsHeader {
     const v = this.value(key);
     return typeof v === 'boolean' ? v : undefined;
   }
+
+  /** The first card of a keyword (commentary keywords excepted), CONTINUE cards joined to it. */
+  private card(key: string): FitsCard | undefined {
+    const k = key.toUpperCase();
+    if (this.images === undefined || this.parsed || k === 'CONTINUE') {
+      this.byKey ??= firstByKey(this.cards);
+      return this.byKey.get(k);
+    }
+    if (!this.found.has(k)) this.found.set(k, this.lookUp(k, this.images));
+    return this.found.get(k);
+  }
+
+  private lookUp(k: string, images: string): FitsCard | undefined {
+    this.imageIndex ??= imageIndex(images);
+    const at = this.imageIndex.get(k);
+    if (at === undefined) return undefined;
+    let end = at + 1;
+    while (end * CARD_LENGTH < images.length && images.startsWith('CONTINUE', end * CARD_LENGTH)) end++;
+    return joinContinued(this.cardImages(at, end).map(parseCard))[0];
+  }
+
+  private cardImages(from: number, to: number): string[] {
+    const out: string[] = [];
+    for (let i = from; i < to; i++) out.push(this.images!.slice(i * CARD_LENGTH, (i + 1) * CARD_LENGTH));
+    return out;
+  }
+}
+
+/** The first occurrence of a keyword wins, as in most FITS readers. */
+function firstByKey(cards: readonly FitsCard[]): Map<string, FitsCard> {
+  const byKey = new Map<string, FitsCard>();
+  for (const c of cards) {
+    const k = c.key.toUpperCase();
+    if (!COMMENTARY.has(k) && !byKey.has(k)) byKey.set(k, c);
+  }
+  return byKey;
+}
+
+/**
+ * Keyword → number of its first card, read from the images alone. CONTINUE cards are left out
+ * (looking one up parses the whole header, which knows whether it stands alone).
+ */
+function imageIndex(images: string): Map<string, number> {
+  const index = new Map<string, number>();
+  const count = images.length / CARD_LENGTH;
+  for (let i = 0; i < count; i++) {
+    const at = i * CARD_LENGTH;
+    let key = images.slice(at, at + 8).trimEnd();
+    if (key === 'CONTINUE') continue;
+    if (key === 'HIERARCH') key = parseCard(images.slice(at, at + CARD_LENGTH)).key;
+    const k = key.toUpperCase();
+    if (!COMMENTARY.has(k) && !index.has(k)) index.set(k, i);
+  }
+  return index;
 }
 
 /** Parses a FITS integer or float ('1.5D3' allowed); null when the text is not a number. */

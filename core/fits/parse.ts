@@ -4,7 +4,7 @@
  * Every failure is a SpectrumReadError naming the file and the problem in one line.
  */
 import { SpectrumReadError } from '../spectrum/spectrum.js';
-import { BLOCK_LENGTH, CARD_LENGTH, FitsHeader, joinContinued, parseCard, type FitsCard } from './header.js';
+import { BLOCK_LENGTH, CARD_LENGTH, FitsHeader } from './header.js';
 
 export type HduKind = 'empty' | 'image' | 'bintable' | 'ascii-table' | 'unsupported';
 
@@ -74,25 +74,25 @@ function readHeader(
   index: number,
   fail: (reason: string) => never,
 ): { header: FitsHeader; end: number } {
-  const cards: FitsCard[] = [];
-  // Decoded a block (36 cards) at a time: far fewer string operations than card by card.
-  let block = '';
-  let blockStart = -BLOCK_LENGTH;
   for (let pos = start; ; pos += CARD_LENGTH) {
     if (pos + CARD_LENGTH > bytes.length) {
       fail(`truncated: the header of HDU ${index} has no END card`);
     }
-    if (pos >= blockStart + BLOCK_LENGTH) {
-      blockStart = pos;
-      block = ascii(bytes, pos, Math.min(BLOCK_LENGTH, bytes.length - pos));
-    }
-    const image = block.slice(pos - blockStart, pos - blockStart + CARD_LENGTH);
-    if (image.startsWith('END') && image.slice(3).trim() === '') {
+    if (isEndCard(bytes, pos)) {
       const end = start + Math.ceil((pos + CARD_LENGTH - start) / BLOCK_LENGTH) * BLOCK_LENGTH;
-      return { header: new FitsHeader(joinContinued(cards)), end: Math.min(end, bytes.length) };
+      return { header: FitsHeader.fromImages(ascii(bytes, start, pos - start)), end: Math.min(end, bytes.length) };
     }
-    cards.push(parseCard(image));
   }
+}
+
+/** 'END' followed by blanks (bytes outside printable ASCII count as blanks, as in ascii()). */
+function isEndCard(bytes: Uint8Array, pos: number): boolean {
+  if (bytes[pos] !== 0x45 || bytes[pos + 1] !== 0x4e || bytes[pos + 2] !== 0x44) return false;
+  for (let i = pos + 3; i < pos + CARD_LENGTH; i++) {
+    const b = bytes[i];
+    if (b > 0x20 && b <= 0x7e) return false;
+  }
+  return true;
 }
 
 function describeHdu(
@@ -134,9 +134,12 @@ function describeHdu(
 
 /** Bytes as ASCII text; bytes outside printable ASCII read as blanks. */
 function ascii(bytes: Uint8Array, start: number, length: number): string {
-  const text = String.fromCharCode.apply(null, bytes.subarray(start, start + length) as unknown as number[]);
+  // windows-1252 (WHATWG 'latin1') maps every byte outside 0x20–0x7e outside that range too.
+  const text = LATIN1.decode(bytes.subarray(start, start + length));
   return /[^\x20-\x7e]/.test(text) ? text.replace(/[^\x20-\x7e]/g, ' ') : text;
 }
+
+const LATIN1 = new TextDecoder('latin1');
 
 /** Throws the typed read error for an HDU. */
 export function hduError(hdu: FitsHdu, reason: string): never {
