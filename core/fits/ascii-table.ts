@@ -63,7 +63,10 @@ export function openAsciiTable(hdu: FitsHdu): FitsTable {
     hdu,
     rows,
     columns,
-    find: columnFinder(columns),
+    find: columnFinder(
+      columns.map((c) => c.name),
+      (i) => columns[i],
+    ),
     values(c) {
       const col = numeric(c);
       checkElementCount(hdu, rows, `column ${col.name}`);

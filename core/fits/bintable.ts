@@ -28,7 +28,8 @@ export function openBinTable(hdu: FitsHdu): FitsTable {
   const rows = hdu.axes[1] ?? 0;
   const nfields = h.integer('TFIELDS') ?? 0;
   if (nfields < 0 || nfields > 999) hduError(hdu, `TFIELDS ${nfields} is not valid`);
-  const columns: BinColumn[] = [];
+  // Every TFORMn is checked now; the rest of a column's keywords are read when it is used.
+  const layouts: ColumnLayout[] = [];
   let offset = 0;
   for (let n = 1; n <= nfields; n++) {
     const form = (h.string(`TFORM${n}`) ?? '').trim().toUpperCase();
@@ -40,27 +41,15 @@ export function openBinTable(hdu: FitsHdu): FitsTable {
     const isVariable = type === 'P' || type === 'Q';
     const heapType = isVariable ? /^([LXBIJKAEDCM])/.exec(m![3])?.[1] : undefined;
     if (isVariable && !heapType) hduError(hdu, `column ${n} has a variable-length TFORM${n} '${form}' without an element type`);
-    columns.push({
-      number: n,
-      name: h.string(`TTYPE${n}`)?.trim() || `COL${n}`,
-      form,
-      unit: h.string(`TUNIT${n}`)?.trim() || undefined,
-      repeat: isVariable ? 1 : repeat,
-      isText: type === 'A' || heapType === 'A',
-      isVariable,
-      type,
-      offset,
-      scale: h.number(`TSCAL${n}`) ?? 1,
-      zero: h.number(`TZERO${n}`) ?? 0,
-      tnull: h.integer(`TNULL${n}`),
-      heapType,
-    });
+    layouts.push({ n, form, repeat, type, isVariable, heapType, offset, name: h.string(`TTYPE${n}`)?.trim() || `COL${n}` });
     offset += width;
   }
   if (offset > rowBytes) hduError(hdu, `the columns need ${offset} bytes per row but NAXIS1 is ${rowBytes}`);
+  const described: BinColumn[] = [];
+  const column = (i: number): BinColumn => (described[i] ??= describe(h, layouts[i]));
+  let all: BinColumn[] | undefined;
   const view = new DataView(hdu.bytes.buffer, hdu.bytes.byteOffset + hdu.dataStart, hdu.dataLength);
   const heapStart = h.integer('THEAP') ?? rowBytes * rows;
-  const find = columnFinder(columns);
 
   const numeric = (c: TableColumn): BinColumn => {
     const col = c as BinColumn;
@@ -74,8 +63,13 @@ export function openBinTable(hdu: FitsHdu): FitsTable {
   return {
     hdu,
     rows,
-    columns,
-    find,
+    get columns() {
+      return (all ??= layouts.map((_, i) => column(i)));
+    },
+    find: columnFinder(
+      layouts.map((l) => l.name),
+      column,
+    ),
     values(c) {
       const col = numeric(c);
       if (col.isVariable) {
@@ -91,8 +85,9 @@ export function openBinTable(hdu: FitsHdu): FitsTable {
       }
       checkElementCount(hdu, rows * col.repeat, `column ${col.name}`);
       const out = new Float64Array(rows * col.repeat);
-      const decode = cellDecoder(col, col.type);
-      for (let r = 0; r < rows; r++) decode(view, r * rowBytes + col.offset, col.repeat, out, r * col.repeat);
+      if (col.repeat === 1 && col.type !== 'X') decodeCells(view, col.type, col.offset, rowBytes, rows, out, 0);
+      else for (let r = 0; r < rows; r++) decodeCells(view, col.type, r * rowBytes + col.offset, ELEMENT_BYTES[col.type], col.repeat, out, r * col.repeat);
+      applyNullsAndScale(col, col.type, out);
       return out;
     },
     rowValues(c, row) {
@@ -102,7 +97,8 @@ export function openBinTable(hdu: FitsHdu): FitsTable {
       if (!col.isVariable) {
         checkElementCount(hdu, col.repeat, `column ${col.name}`);
         const out = new Float64Array(col.repeat);
-        cellDecoder(col, col.type)(view, cell, col.repeat, out, 0);
+        decodeCells(view, col.type, cell, ELEMENT_BYTES[col.type], col.repeat, out, 0);
+        applyNullsAndScale(col, col.type, out);
         return out;
       }
       const wide = col.type === 'Q';
@@ -116,7 +112,8 @@ export function openBinTable(hdu: FitsHdu): FitsTable {
       }
       checkElementCount(hdu, count, `column ${col.name}`);
       const out = new Float64Array(count);
-      cellDecoder(col, type)(view, start, count, out, 0);
+      decodeCells(view, type, start, ELEMENT_BYTES[type], count, out, 0);
+      applyNullsAndScale(col, type, out);
       return out;
     },
     strings(c) {
@@ -138,46 +135,80 @@ export function openBinTable(hdu: FitsHdu): FitsTable {
   };
 }
 
-type CellDecoder = (view: DataView, at: number, count: number, out: Float64Array, outAt: number) => void;
+/** What TFORMn and TTYPEn say about a column: enough to check the row layout and find it by name. */
+interface ColumnLayout {
+  n: number;
+  name: string;
+  form: string;
+  repeat: number;
+  type: string;
+  isVariable: boolean;
+  heapType?: string;
+  offset: number;
+}
 
-function cellDecoder(col: BinColumn, type: string): CellDecoder {
-  const { scale, zero, tnull } = col;
-  const scaled = scale !== 1 || zero !== 0;
-  const integer = (read: (v: DataView, o: number) => number, size: number): CellDecoder => (view, at, count, out, outAt) => {
-    for (let i = 0; i < count; i++) {
-      const raw = read(view, at + i * size);
-      out[outAt + i] = tnull !== undefined && raw === tnull ? NaN : scaled ? zero + scale * raw : raw;
-    }
+function describe(h: FitsHdu['header'], l: ColumnLayout): BinColumn {
+  return {
+    number: l.n,
+    name: l.name,
+    form: l.form,
+    unit: h.string(`TUNIT${l.n}`)?.trim() || undefined,
+    repeat: l.isVariable ? 1 : l.repeat,
+    isText: l.type === 'A' || l.heapType === 'A',
+    isVariable: l.isVariable,
+    type: l.type,
+    offset: l.offset,
+    scale: h.number(`TSCAL${l.n}`) ?? 1,
+    zero: h.number(`TZERO${l.n}`) ?? 0,
+    tnull: h.integer(`TNULL${l.n}`),
+    heapType: l.heapType,
   };
-  const float = (read: (v: DataView, o: number) => number, size: number): CellDecoder => (view, at, count, out, outAt) => {
-    for (let i = 0; i < count; i++) {
-      const raw = read(view, at + i * size);
-      out[outAt + i] = scaled ? zero + scale * raw : raw;
-    }
-  };
+}
+
+/**
+ * Stored values of `count` elements, element i at byte at + i × step (X: bits packed from `at`),
+ * big-endian; one loop per type so that each stays monomorphic.
+ */
+function decodeCells(view: DataView, type: string, at: number, step: number, count: number, out: Float64Array, outAt: number): void {
   switch (type) {
     case 'L':
-      return (view, at, count, out, outAt) => {
-        for (let i = 0; i < count; i++) {
-          const b = view.getUint8(at + i);
-          out[outAt + i] = b === 84 ? 1 : b === 70 ? 0 : NaN;
-        }
-      };
+      for (let i = 0; i < count; i++) {
+        const b = view.getUint8(at + i * step);
+        out[outAt + i] = b === 84 ? 1 : b === 70 ? 0 : NaN;
+      }
+      return;
     case 'X':
-      return (view, at, count, out, outAt) => {
-        for (let i = 0; i < count; i++) out[outAt + i] = (view.getUint8(at + (i >> 3)) >> (7 - (i & 7))) & 1;
-      };
+      for (let i = 0; i < count; i++) out[outAt + i] = (view.getUint8(at + (i >> 3)) >> (7 - (i & 7))) & 1;
+      return;
     case 'B':
-      return integer((v, o) => v.getUint8(o), 1);
+      for (let i = 0; i < count; i++) out[outAt + i] = view.getUint8(at + i * step);
+      return;
     case 'I':
-      return integer((v, o) => v.getInt16(o), 2);
+      for (let i = 0; i < count; i++) out[outAt + i] = view.getInt16(at + i * step);
+      return;
     case 'J':
-      return integer((v, o) => v.getInt32(o), 4);
+      for (let i = 0; i < count; i++) out[outAt + i] = view.getInt32(at + i * step);
+      return;
     case 'K':
-      return integer((v, o) => Number(v.getBigInt64(o)), 8);
+      for (let i = 0; i < count; i++) out[outAt + i] = Number(view.getBigInt64(at + i * step));
+      return;
     case 'E':
-      return float((v, o) => v.getFloat32(o), 4);
+      for (let i = 0; i < count; i++) out[outAt + i] = view.getFloat32(at + i * step);
+      return;
     default:
-      return float((v, o) => v.getFloat64(o), 8);
+      for (let i = 0; i < count; i++) out[outAt + i] = view.getFloat64(at + i * step);
+  }
+}
+
+/** Integer cells equal to TNULLn → NaN; then physical = TZEROn + TSCALn × stored (L and X as stored). */
+function applyNullsAndScale(col: BinColumn, type: string, out: Float64Array): void {
+  if (type === 'L' || type === 'X') return;
+  const { scale, zero } = col;
+  const tnull = type === 'B' || type === 'I' || type === 'J' || type === 'K' ? col.tnull : undefined;
+  const scaled = scale !== 1 || zero !== 0;
+  if (tnull === undefined && !scaled) return;
+  for (let i = 0; i < out.length; i++) {
+    const raw = out[i];
+    out[i] = tnull !== undefined && raw === tnull ? NaN : scaled ? zero + scale * raw : raw;
   }
 }

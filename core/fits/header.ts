@@ -29,7 +29,6 @@ export class FitsHeader {
   /** Card images (80 characters each) of a lazily parsed header, and where each key sits. */
   private readonly images?: string;
   private imageIndex?: Map<string, number>;
-  private readonly found = new Map<string, FitsCard | undefined>();
 
   constructor(cards: FitsCard[]);
   constructor(cards: undefined, images: string);
@@ -49,7 +48,10 @@ export class FitsHeader {
   }
 
   has(key: string): boolean {
-    return this.card(key) !== undefined;
+    const k = key.toUpperCase();
+    if (this.images === undefined || this.parsed || k === 'CONTINUE') return this.card(key) !== undefined;
+    this.imageIndex ??= imageIndex(this.images);
+    return this.imageIndex.has(k);
   }
 
   value(key: string): CardValue | undefined {
@@ -63,7 +65,7 @@ export class FitsHeader {
   /** String value, trimmed of trailing blanks (FITS 4.0 §4.2.1: they are not significant). */
   string(key: string): string | undefined {
     const v = this.value(key);
-    if (typeof v === 'string') return v.replace(/\s+$/, '');
+    if (typeof v === 'string') return endsInBlank(v) ? v.replace(/\s+$/, '') : v;
     if (typeof v === 'number') return String(v);
     return undefined;
   }
@@ -96,16 +98,12 @@ export class FitsHeader {
       this.byKey ??= firstByKey(this.cards);
       return this.byKey.get(k);
     }
-    if (!this.found.has(k)) this.found.set(k, this.lookUp(k, this.images));
-    return this.found.get(k);
-  }
-
-  private lookUp(k: string, images: string): FitsCard | undefined {
-    this.imageIndex ??= imageIndex(images);
+    this.imageIndex ??= imageIndex(this.images);
     const at = this.imageIndex.get(k);
     if (at === undefined) return undefined;
     let end = at + 1;
-    while (end * CARD_LENGTH < images.length && images.startsWith('CONTINUE', end * CARD_LENGTH)) end++;
+    while (end * CARD_LENGTH < this.images.length && this.images.startsWith('CONTINUE', end * CARD_LENGTH)) end++;
+    if (end === at + 1) return parseCard(this.images.slice(at * CARD_LENGTH, end * CARD_LENGTH));
     return joinContinued(this.cardImages(at, end).map(parseCard))[0];
   }
 
@@ -114,6 +112,12 @@ export class FitsHeader {
     for (let i = from; i < to; i++) out.push(this.images!.slice(i * CARD_LENGTH, (i + 1) * CARD_LENGTH));
     return out;
   }
+}
+
+/** True when the text may end in white space (\s: code ≤ 32, or ≥ 0xA0 for the Unicode blanks). */
+function endsInBlank(text: string): boolean {
+  const c = text.charCodeAt(text.length - 1);
+  return !(c > 32 && c < 127);
 }
 
 /** The first occurrence of a keyword wins, as in most FITS readers. */
@@ -204,6 +208,10 @@ function parseValueField(field: string): { value: CardValue; comment?: string } 
 }
 
 function withComment(value: CardValue, rest: string): { value: CardValue; comment?: string } {
+  // Most value fields end in blanks only: no comment, and no need for the pattern.
+  let i = 0;
+  while (i < rest.length && rest.charCodeAt(i) === 32) i++;
+  if (i === rest.length) return { value };
   const m = /^\s*\/\s?(.*)$/.exec(rest);
   const comment = m ? m[1].trimEnd() : '';
   return comment ? { value, comment } : { value };

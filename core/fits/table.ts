@@ -43,9 +43,14 @@ export function openTable(hdu: FitsHdu): FitsTable {
   return hduError(hdu, 'is not a table');
 }
 
-/** Name → column map shared by both table kinds (first column of a name wins). */
-export function columnFinder(columns: TableColumn[]): (name: string) => TableColumn | undefined {
-  const byName = new Map<string, TableColumn>();
-  for (const c of columns) if (!byName.has(c.name.toLowerCase())) byName.set(c.name.toLowerCase(), c);
-  return (name) => byName.get(name.toLowerCase());
+/** Name → column look-up shared by both table kinds (first column of a name wins). */
+export function columnFinder(names: readonly string[], column: (index: number) => TableColumn): (name: string) => TableColumn | undefined {
+  const byName = new Map<string, number>();
+  names.forEach((name, i) => {
+    if (!byName.has(name.toLowerCase())) byName.set(name.toLowerCase(), i);
+  });
+  return (name) => {
+    const i = byName.get(name.toLowerCase());
+    return i === undefined ? undefined : column(i);
+  };
 }

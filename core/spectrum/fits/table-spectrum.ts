@@ -9,6 +9,7 @@ import { openTable, type FitsTable, type TableColumn } from '../../fits/table.js
 import { ERROR_KIND, ERROR_ROLES, findByRole, maskFrom, sdssMaskFrom, sigmaFrom } from '../columns.js';
 import { mediumFromName } from '../medium.js';
 import { guessWaveUnit, parseWaveUnit, type WaveUnit } from '../units.js';
+import { powersOfTen } from './powers-of-ten.js';
 import { bunit, headerParts, type HduContext, type LayoutDraft, type LayoutVerdict } from './layout.js';
 import { GRISM_DEFAULTS, sdssDefaults } from './surveys.js';
 
@@ -39,7 +40,7 @@ function readTable(
   const get = (c: TableColumn) => (arrays ? table.rowValues(c, 0) : table.values(c));
   const isLog = findByRole('loglam', table.find) === waveCol;
   const rawWave = get(waveCol);
-  const wave = isLog ? rawWave.map((v) => 10 ** v) : rawWave;
+  const wave = isLog ? powersOfTen(rawWave) : rawWave;
   let flux = get(fluxCol);
   const n = flux.length;
   const mask = new Uint8Array(n);
