@@ -3,7 +3,8 @@
  * J. SIAM 11, 431; e.g. Press et al., Numerical Recipes, §15.5), parameters clamped to their
  * bounds, a bounded number of iterations that stops when χ² improves by less than a relative
  * tolerance. Parameters with equal lower and upper bounds are held fixed. The caller's model
- * fills the values and the analytic Jacobian in place, so an iteration allocates nothing.
+ * fills the values and the analytic Jacobian in place, and each trial point is evaluated once
+ * (values and Jacobian together), so an iteration allocates nothing.
  */
 
 export interface LmProblem {
@@ -38,22 +39,23 @@ export function lmFit(prob: LmProblem, start: Float64Array, maxIterations = LM_M
   for (let j = 0; j < nP; j++) if (prob.upper[j] > prob.lower[j]) free.push(j);
   const nF = free.length;
   const model = new Float64Array(nY), jac = new Float64Array(nY * nP);
-  const a = new Float64Array(nF * nF), g = new Float64Array(nF), m = new Float64Array(nF * nF), step = new Float64Array(nF);
+  // The normal matrix and gradient at p, and at the trial point (swapped in when it is accepted).
+  let a = new Float64Array(nF * nF), g = new Float64Array(nF);
+  let aTrial = new Float64Array(nF * nF), gTrial = new Float64Array(nF);
+  const m = new Float64Array(nF * nF), rhs = new Float64Array(nF), step = new Float64Array(nF);
   const trial = new Float64Array(nP);
-  const nzIndex = new Int32Array(nF), nzValue = new Float64Array(nF);
-  const chi2At = (q: Float64Array): number => {
-    prob.evaluate(q, model, null);
-    let s = 0;
-    for (let k = 0; k < nY; k++) s += prob.w[k] * (prob.y[k] - model[k]) ** 2;
-    return s;
-  };
-  const normalAt = (q: Float64Array): void => {
+  const nzIndex = new Int32Array(nF), nzValue = new Float64Array(nF), moving = new Int32Array(nF);
+  /** χ² at q, with JᵀWJ into na and JᵀW(y − model) into ng. */
+  const linearise = (q: Float64Array, na: Float64Array, ng: Float64Array): number => {
     jac.fill(0);
     prob.evaluate(q, model, jac);
-    a.fill(0);
-    g.fill(0);
+    na.fill(0);
+    ng.fill(0);
+    let chi2 = 0;
+    const { y, w } = prob;
     for (let k = 0; k < nY; k++) {
-      const wk = prob.w[k], r = wk * (prob.y[k] - model[k]), row = k * nP;
+      const wk = w[k], d = y[k] - model[k], r = wk * d, row = k * nP;
+      chi2 += r * d;
       // A point depends on few parameters (the lines near it): accumulate over those only.
       let nz = 0;
       for (let i = 0; i < nF; i++) {
@@ -65,36 +67,52 @@ export function lmFit(prob: LmProblem, start: Float64Array, maxIterations = LM_M
       }
       for (let u = 0; u < nz; u++) {
         const i = nzIndex[u], ji = nzValue[u];
-        g[i] += ji * r;
-        const wji = wk * ji;
-        for (let v = u; v < nz; v++) a[i * nF + nzIndex[v]] += wji * nzValue[v];
+        ng[i] += ji * r;
+        const wji = wk * ji, base = i * nF;
+        for (let v = u; v < nz; v++) na[base + nzIndex[v]] += wji * nzValue[v];
       }
     }
-    for (let i = 0; i < nF; i++) for (let l = 0; l < i; l++) a[i * nF + l] = a[l * nF + i];
+    for (let i = 0; i < nF; i++) for (let l = 0; l < i; l++) na[i * nF + l] = na[l * nF + i];
+    return chi2;
   };
-  let chi2 = chi2At(p);
+  let chi2 = linearise(p, a, g);
   let damping = 1e-3;
   let it = 0;
   for (; it < maxIterations; it++) {
-    normalAt(p);
+    // A parameter on a bound that the descent direction pushes outwards is held for this step,
+    // so that clamping does not spoil the others' step (a projected step, e.g. Nocedal & Wright,
+    // Numerical Optimization, §16.7).
+    let nM = 0;
+    for (let i = 0; i < nF; i++) {
+      const j = free[i];
+      if ((p[j] >= prob.upper[j] && g[i] > 0) || (p[j] <= prob.lower[j] && g[i] < 0)) continue;
+      moving[nM++] = i;
+    }
+    if (nM === 0) break;
     let accepted = false, gain = 0;
     while (damping < 1e10) {
-      m.set(a);
-      for (let i = 0; i < nF; i++) m[i * nF + i] = a[i * nF + i] * (1 + damping) || 1e-300;
-      if (!choleskySolve(m, g, step, nF)) {
+      for (let u = 0; u < nM; u++) {
+        const i = moving[u];
+        for (let v = 0; v < nM; v++) m[u * nM + v] = a[i * nF + moving[v]];
+        m[u * nM + u] = a[i * nF + i] * (1 + damping) || 1e-300;
+        rhs[u] = g[i];
+      }
+      if (!choleskySolve(m, rhs, step, nM)) {
         damping *= 10;
         continue;
       }
       trial.set(p);
-      for (let i = 0; i < nF; i++) {
-        const j = free[i];
-        trial[j] = Math.min(prob.upper[j], Math.max(prob.lower[j], p[j] + step[i]));
+      for (let u = 0; u < nM; u++) {
+        const j = free[moving[u]];
+        trial[j] = Math.min(prob.upper[j], Math.max(prob.lower[j], p[j] + step[u]));
       }
-      const c = chi2At(trial);
+      const c = linearise(trial, aTrial, gTrial);
       if (c < chi2) {
         gain = (chi2 - c) / Math.max(c, 1e-300);
         p.set(trial);
         chi2 = c;
+        [a, aTrial] = [aTrial, a];
+        [g, gTrial] = [gTrial, g];
         damping = Math.max(damping / 10, 1e-7);
         accepted = true;
         break;
@@ -103,8 +121,7 @@ export function lmFit(prob: LmProblem, start: Float64Array, maxIterations = LM_M
     }
     if (!accepted || gain < relTol) break;
   }
-  normalAt(p);
-  return { p, chi2, free, normal: Float64Array.from(a), iterations: it + 1 };
+  return { p, chi2, free, normal: a, iterations: it + 1 };
 }
 
 /** Solves M·x = b for symmetric positive-definite M (n×n, overwritten by its Cholesky factor). */

@@ -91,15 +91,19 @@ function finish(p: PreparedSpectrum, distinct: Scored[], curves: CorrelationCurv
     notes.push('no correlation peak: nothing in the spectrum matches a template');
     return { candidates, best: null, refinement: { method: 'none', chi2Red: null, nLinesFitted: 0 }, confidence: 'none', nLines: 0, ...(correlations ? { correlations } : {}), notes };
   }
-  const { order, own } = rankByLineEvidence(p, distinct);
+  const { order, judgedOn, shared } = rankByLineEvidence(p, distinct);
   const top = distinct[order];
   if (order !== 0) {
     candidates.unshift(...candidates.splice(order, 1));
     distinct.unshift(...distinct.splice(order, 1));
   }
-  // The chosen candidate's continuum has only its own lines masked (refitted unless the ranking did).
-  const residualOf = (s: Scored) => own.get(s) ?? nativeResidual(p, [{ template: s.template, z: s.peak.z }]);
-  const nr = residualOf(top);
+  // The chosen candidate is refined on a continuum with only its own lines masked (refitted
+  // unless the ranking did); the runner-up's χ² needs only its lines masked, as the ranking's was.
+  const ownResidual = (s: Scored) => {
+    const judged = judgedOn.get(s);
+    return judged && judged !== shared ? judged : nativeResidual(p, [{ template: s.template, z: s.peak.z }]);
+  };
+  const nr = ownResidual(top);
   let best: Candidate = { ...candidates[0] };
   let refinement: Refinement = { method: 'none', chi2Red: null, nLinesFitted: 0 };
   const fit = top.template.absorptionOnly
@@ -117,7 +121,7 @@ function finish(p: PreparedSpectrum, distinct: Scored[], curves: CorrelationCurv
   const absorption = top.template.absorptionOnly && top.template.lines.length
     ? {
         features: absorptionFeatures(top.template, detections),
-        chi2Lead: lineChi2Gain(nr, top.template, best.z) - (distinct.length > 1 ? lineChi2Gain(residualOf(distinct[1]), distinct[1].template, distinct[1].peak.z) : 0),
+        chi2Lead: lineChi2Gain(nr, top.template, best.z) - (distinct.length > 1 ? lineChi2Gain(judgedOn.get(distinct[1]) ?? ownResidual(distinct[1]), distinct[1].template, distinct[1].peak.z) : 0),
       }
     : undefined;
   const confidence = suggestConfidence({ r: top.peak.r, overlap: top.peak.overlap, nLines, lead, absorption });
@@ -135,9 +139,9 @@ const EVIDENCE_SNR_CAP = 10;
  * spectrum: Σ min(S/N, cap)² over lines seen with the right sign. One strong line matched by the
  * wrong line of another template (broad Hα taken for Lyα) explains less than the full pattern.
  */
-function rankByLineEvidence(p: PreparedSpectrum, distinct: Scored[]): { order: number; own: Map<Scored, NativeResidual> } {
+function rankByLineEvidence(p: PreparedSpectrum, distinct: Scored[]): { order: number; judgedOn: Map<Scored, NativeResidual>; shared: NativeResidual | null } {
   let order = 0, bestEvidence = -Infinity;
-  const own = new Map<Scored, NativeResidual>();
+  const judgedOn = new Map<Scored, NativeResidual>();
   const compared = distinct.slice(0, EVIDENCE_CANDIDATES);
   // One continuum with every compared candidate's lines masked serves them all, unless that
   // leaves too few pixels: then each gets its own.
@@ -145,15 +149,15 @@ function rankByLineEvidence(p: PreparedSpectrum, distinct: Scored[]): { order: n
   const shared = withLines.length > 1 ? nativeResidual(p, withLines.map((s) => ({ template: s.template, z: s.peak.z }))) : null;
   compared.forEach((s, i) => {
     if (s.template.lines.length === 0) return;
-    let nr = shared;
-    if (!nr?.linesMasked) own.set(s, (nr = nativeResidual(p, [{ template: s.template, z: s.peak.z }])));
+    const nr = shared?.linesMasked ? shared : nativeResidual(p, [{ template: s.template, z: s.peak.z }]);
+    judgedOn.set(s, nr);
     const ev = detectLines(nr, s.template, s.peak.z).reduce((acc, d) => acc + (d.snr >= DETECTION_SNR ? Math.min(d.snr, EVIDENCE_SNR_CAP) ** 2 : 0), 0);
     if (ev > bestEvidence) {
       bestEvidence = ev;
       order = i;
     }
   });
-  return { order, own };
+  return { order, judgedOn, shared };
 }
 
 function downsampleCurve(c: CorrelationCurveData): CorrelationCurve {

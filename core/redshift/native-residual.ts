@@ -45,17 +45,42 @@ export function nativeResidual(p: PreparedSpectrum, masks: readonly LineMask[]):
   const gridCont = linesMasked ? robustContinuum(p.flux, use, continuumBlockPixels(grid.step, grid.length)) : p.continuum;
   const { waveAngstrom, flux, sigma, good } = p.native;
   const n = waveAngstrom.length;
+  const { cell, frac } = gridPositions(p);
   const continuum = new Float64Array(n);
   const resid = new Float64Array(n);
   for (let i = 0; i < n; i++) {
-    const x = Math.log(waveAngstrom[i]) / grid.step - grid.start;
-    const j = Math.min(grid.length - 2, Math.max(0, Math.floor(x)));
-    const f = Math.min(1, Math.max(0, x - j));
-    continuum[i] = x < -0.5 || x > grid.length - 0.5 ? NaN : gridCont[j] + f * (gridCont[j + 1] - gridCont[j]);
+    const j = cell[i];
+    continuum[i] = j < 0 ? NaN : gridCont[j] + frac[i] * (gridCont[j + 1] - gridCont[j]);
     resid[i] = flux[i] - continuum[i];
   }
   const pixelKmS = SPEED_OF_LIGHT_KMS * grid.step;
   return { waveAngstrom, resid, continuum, sigma, good, pixelKmS, linesMasked };
+}
+
+/** Each native pixel's grid cell (−1 outside the grid) and position in it, for interpolating the grid continuum. */
+interface GridPositions {
+  cell: Int32Array;
+  frac: Float64Array;
+}
+
+/** Computed once per prepared spectrum: every continuum refit interpolates at the same positions. */
+const positionsOf = new WeakMap<PreparedSpectrum, GridPositions>();
+
+function gridPositions(p: PreparedSpectrum): GridPositions {
+  const known = positionsOf.get(p);
+  if (known) return known;
+  const { grid } = p;
+  const wave = p.native.waveAngstrom;
+  const cell = new Int32Array(wave.length), frac = new Float64Array(wave.length);
+  for (let i = 0; i < wave.length; i++) {
+    const x = Math.log(wave[i]) / grid.step - grid.start;
+    const j = Math.min(grid.length - 2, Math.max(0, Math.floor(x)));
+    cell[i] = x < -0.5 || x > grid.length - 0.5 ? -1 : j;
+    frac[i] = Math.min(1, Math.max(0, x - j));
+  }
+  const positions = { cell, frac };
+  positionsOf.set(p, positions);
+  return positions;
 }
 
 /**
