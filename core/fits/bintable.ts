@@ -6,7 +6,7 @@
  */
 import { concatArrays } from '../util/concat-arrays.js';
 import { checkElementCount, hduError, type FitsHdu } from './parse.js';
-import { columnFinder, type FitsTable, type TableColumn } from './table.js';
+import { columnFinder, columnNames, type FitsTable, type TableColumn } from './table.js';
 
 interface BinColumn extends TableColumn {
   type: string;
@@ -26,8 +26,8 @@ export function openBinTable(hdu: FitsHdu): FitsTable {
   const h = hdu.header;
   const rowBytes = hdu.axes[0] ?? 0;
   const rows = hdu.axes[1] ?? 0;
-  const nfields = h.integer('TFIELDS') ?? 0;
-  if (nfields < 0 || nfields > 999) hduError(hdu, `TFIELDS ${nfields} is not valid`);
+  const names = columnNames(hdu) ?? hduError(hdu, `TFIELDS ${h.integer('TFIELDS')} is not valid`);
+  const nfields = names.length;
   // Every TFORMn is checked now; the rest of a column's keywords are read when it is used.
   const layouts: ColumnLayout[] = [];
   let offset = 0;
@@ -41,7 +41,7 @@ export function openBinTable(hdu: FitsHdu): FitsTable {
     const isVariable = type === 'P' || type === 'Q';
     const heapType = isVariable ? /^([LXBIJKAEDCM])/.exec(m![3])?.[1] : undefined;
     if (isVariable && !heapType) hduError(hdu, `column ${n} has a variable-length TFORM${n} '${form}' without an element type`);
-    layouts.push({ n, form, repeat, type, isVariable, heapType, offset, name: h.string(`TTYPE${n}`)?.trim() || `COL${n}` });
+    layouts.push({ n, form, repeat, type, isVariable, heapType, offset, name: names[n - 1] });
     offset += width;
   }
   if (offset > rowBytes) hduError(hdu, `the columns need ${offset} bytes per row but NAXIS1 is ${rowBytes}`);
@@ -66,10 +66,7 @@ export function openBinTable(hdu: FitsHdu): FitsTable {
     get columns() {
       return (all ??= layouts.map((_, i) => column(i)));
     },
-    find: columnFinder(
-      layouts.map((l) => l.name),
-      column,
-    ),
+    find: columnFinder(names, column),
     values(c) {
       const col = numeric(c);
       if (col.isVariable) {

@@ -5,6 +5,8 @@
  * a string ending in '&' continues in the next CONTINUE card's string.
  */
 
+import { CardIndex } from './card-index.js';
+
 export type CardValue = string | number | boolean | null;
 
 export interface FitsCard {
@@ -20,38 +22,38 @@ const COMMENTARY = new Set(['COMMENT', 'HISTORY', '']);
 
 /**
  * A parsed header: every card in order, and typed look-ups by keyword (case-insensitive).
- * Built from card images (fromImages), a card is parsed only when it is looked up or when
+ * Built from a header's bytes (fromBytes), a card is parsed only when it is looked up or when
  * all cards are asked for: most of a survey file's cards are never read.
  */
 export class FitsHeader {
   private parsed?: FitsCard[];
   private byKey?: Map<string, FitsCard>;
-  /** Card images (80 characters each) of a lazily parsed header, and where each key sits. */
-  private readonly images?: string;
-  private imageIndex?: Map<string, number>;
+  /** The card bytes of a lazily parsed header (END excluded), their text and key index. */
+  private readonly bytes?: Uint8Array;
+  private text?: string;
+  private index?: CardIndex;
 
   constructor(cards: FitsCard[]);
-  constructor(cards: undefined, images: string);
-  constructor(cards: FitsCard[] | undefined, images?: string) {
+  constructor(cards: undefined, bytes: Uint8Array);
+  constructor(cards: FitsCard[] | undefined, bytes?: Uint8Array) {
     this.parsed = cards;
-    this.images = images;
+    this.bytes = bytes;
   }
 
-  /** A header of card images (80 characters each, printable ASCII, END excluded). */
-  static fromImages(images: string): FitsHeader {
-    return new FitsHeader(undefined, images);
+  /** A header from the bytes of its cards (80 bytes each, END excluded). */
+  static fromBytes(bytes: Uint8Array): FitsHeader {
+    return new FitsHeader(undefined, bytes);
   }
 
   get cards(): readonly FitsCard[] {
-    this.parsed ??= joinContinued(this.cardImages(0, this.images!.length / CARD_LENGTH).map(parseCard));
+    this.parsed ??= joinContinued(this.cardImages(0, this.bytes!.length / CARD_LENGTH).map(parseCard));
     return this.parsed;
   }
 
   has(key: string): boolean {
     const k = key.toUpperCase();
-    if (this.images === undefined || this.parsed || k === 'CONTINUE') return this.card(key) !== undefined;
-    this.imageIndex ??= imageIndex(this.images);
-    return this.imageIndex.has(k);
+    if (this.bytes === undefined || this.parsed || k === 'CONTINUE') return this.card(key) !== undefined;
+    return this.cardIndex(this.bytes).find(k) !== undefined;
   }
 
   value(key: string): CardValue | undefined {
@@ -94,24 +96,46 @@ export class FitsHeader {
   /** The first card of a keyword (commentary keywords excepted), CONTINUE cards joined to it. */
   private card(key: string): FitsCard | undefined {
     const k = key.toUpperCase();
-    if (this.images === undefined || this.parsed || k === 'CONTINUE') {
+    // A CONTINUE card may stand alone or belong to the card before it: the full parse knows.
+    if (this.bytes === undefined || this.parsed || k === 'CONTINUE') {
       this.byKey ??= firstByKey(this.cards);
       return this.byKey.get(k);
     }
-    this.imageIndex ??= imageIndex(this.images);
-    const at = this.imageIndex.get(k);
+    const at = this.cardIndex(this.bytes).find(k);
     if (at === undefined) return undefined;
     let end = at + 1;
-    while (end * CARD_LENGTH < this.images.length && this.images.startsWith('CONTINUE', end * CARD_LENGTH)) end++;
-    if (end === at + 1) return parseCard(this.images.slice(at * CARD_LENGTH, end * CARD_LENGTH));
+    while (end * CARD_LENGTH < this.bytes.length && isContinue(this.bytes, end * CARD_LENGTH)) end++;
+    if (end === at + 1) return parseCard(this.cardImages(at, end)[0]);
     return joinContinued(this.cardImages(at, end).map(parseCard))[0];
   }
 
+  private cardIndex(bytes: Uint8Array): CardIndex {
+    this.index ??= new CardIndex(bytes, (i) => parseCard(this.cardImages(i, i + 1)[0]).key);
+    return this.index;
+  }
+
+  /** Card images from..to-1, bytes outside printable ASCII read as blanks. */
   private cardImages(from: number, to: number): string[] {
+    this.text ??= LATIN1.decode(this.bytes);
     const out: string[] = [];
-    for (let i = from; i < to; i++) out.push(this.images!.slice(i * CARD_LENGTH, (i + 1) * CARD_LENGTH));
+    for (let i = from; i < to; i++) out.push(printable(this.text.slice(i * CARD_LENGTH, (i + 1) * CARD_LENGTH)));
     return out;
   }
+}
+
+// windows-1252 (WHATWG 'latin1') maps every byte outside 0x20–0x7e outside that range too.
+const LATIN1 = new TextDecoder('latin1');
+
+/** Text with every character outside printable ASCII replaced by a blank. */
+export function printable(text: string): string {
+  return /[^\x20-\x7e]/.test(text) ? text.replace(/[^\x20-\x7e]/g, ' ') : text;
+}
+
+const CONTINUE_BYTES = [0x43, 0x4f, 0x4e, 0x54, 0x49, 0x4e, 0x55, 0x45];
+
+/** The card at `at` has the keyword CONTINUE. */
+function isContinue(bytes: Uint8Array, at: number): boolean {
+  return CONTINUE_BYTES.every((c, j) => bytes[at + j] === c);
 }
 
 /** True when the text may end in white space (\s: code ≤ 32, or ≥ 0xA0 for the Unicode blanks). */
@@ -128,24 +152,6 @@ function firstByKey(cards: readonly FitsCard[]): Map<string, FitsCard> {
     if (!COMMENTARY.has(k) && !byKey.has(k)) byKey.set(k, c);
   }
   return byKey;
-}
-
-/**
- * Keyword → number of its first card, read from the images alone. CONTINUE cards are left out
- * (looking one up parses the whole header, which knows whether it stands alone).
- */
-function imageIndex(images: string): Map<string, number> {
-  const index = new Map<string, number>();
-  const count = images.length / CARD_LENGTH;
-  for (let i = 0; i < count; i++) {
-    const at = i * CARD_LENGTH;
-    let key = images.slice(at, at + 8).trimEnd();
-    if (key === 'CONTINUE') continue;
-    if (key === 'HIERARCH') key = parseCard(images.slice(at, at + CARD_LENGTH)).key;
-    const k = key.toUpperCase();
-    if (!COMMENTARY.has(k) && !index.has(k)) index.set(k, i);
-  }
-  return index;
 }
 
 /** Parses a FITS integer or float ('1.5D3' allowed); null when the text is not a number. */
@@ -208,11 +214,10 @@ function parseValueField(field: string): { value: CardValue; comment?: string } 
 }
 
 function withComment(value: CardValue, rest: string): { value: CardValue; comment?: string } {
-  // Most value fields end in blanks only: no comment, and no need for the pattern.
-  let i = 0;
-  while (i < rest.length && rest.charCodeAt(i) === 32) i++;
-  if (i === rest.length) return { value };
-  const m = /^\s*\/\s?(.*)$/.exec(rest);
+  // Most value fields end in blanks only; ^\s*\/ on rest is ^\/ once the same blanks are trimmed.
+  const tail = rest.trimStart();
+  if (tail.charCodeAt(0) !== 0x2f) return { value };
+  const m = /^\/\s?(.*)$/.exec(tail);
   const comment = m ? m[1].trimEnd() : '';
   return comment ? { value, comment } : { value };
 }

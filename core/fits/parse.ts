@@ -4,7 +4,7 @@
  * Every failure is a SpectrumReadError naming the file and the problem in one line.
  */
 import { SpectrumReadError } from '../spectrum/spectrum.js';
-import { BLOCK_LENGTH, CARD_LENGTH, FitsHeader } from './header.js';
+import { BLOCK_LENGTH, CARD_LENGTH, FitsHeader, printable } from './header.js';
 
 export type HduKind = 'empty' | 'image' | 'bintable' | 'ascii-table' | 'unsupported';
 
@@ -80,7 +80,7 @@ function readHeader(
     }
     if (isEndCard(bytes, pos)) {
       const end = start + Math.ceil((pos + CARD_LENGTH - start) / BLOCK_LENGTH) * BLOCK_LENGTH;
-      return { header: FitsHeader.fromImages(ascii(bytes, start, pos - start)), end: Math.min(end, bytes.length) };
+      return { header: FitsHeader.fromBytes(bytes.subarray(start, pos)), end: Math.min(end, bytes.length) };
     }
   }
 }
@@ -134,12 +134,8 @@ function describeHdu(
 
 /** Bytes as ASCII text; bytes outside printable ASCII read as blanks. */
 function ascii(bytes: Uint8Array, start: number, length: number): string {
-  // windows-1252 (WHATWG 'latin1') maps every byte outside 0x20–0x7e outside that range too.
-  const text = LATIN1.decode(bytes.subarray(start, start + length));
-  return /[^\x20-\x7e]/.test(text) ? text.replace(/[^\x20-\x7e]/g, ' ') : text;
+  return printable(String.fromCharCode(...bytes.subarray(start, start + length)));
 }
-
-const LATIN1 = new TextDecoder('latin1');
 
 /** Throws the typed read error for an HDU. */
 export function hduError(hdu: FitsHdu, reason: string): never {

@@ -43,6 +43,16 @@ export function openTable(hdu: FitsHdu): FitsTable {
   return hduError(hdu, 'is not a table');
 }
 
+/**
+ * TTYPEn of every column (trimmed; 'COLn' when absent), from the header alone and without
+ * checking the row layout; undefined when TFIELDS is not valid (openTable says why).
+ */
+export function columnNames(hdu: FitsHdu): string[] | undefined {
+  const count = hdu.header.integer('TFIELDS') ?? 0;
+  if (count < 0 || count > 999) return undefined;
+  return Array.from({ length: count }, (_, i) => hdu.header.string(`TTYPE${i + 1}`)?.trim() || `COL${i + 1}`);
+}
+
 /** Name → column look-up shared by both table kinds (first column of a name wins). */
 export function columnFinder(names: readonly string[], column: (index: number) => TableColumn): (name: string) => TableColumn | undefined {
   const byName = new Map<string, number>();

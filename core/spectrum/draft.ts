@@ -1,6 +1,7 @@
 /**
  * What a layout reader hands over before the common checks and conversions of finish.ts:
- * wavelengths still in the file's unit and medium, errors already as 1σ.
+ * wavelengths still in the file's unit and medium, errors already as 1σ. Its arrays belong to
+ * it alone (finish.ts keeps and may reverse them), never views shared with anything else.
  */
 import type { Dispersion, ErrorKind, HeaderCard, SpectrumMeta, WavelengthMedium } from './spectrum.js';
 import type { WaveUnit } from './units.js';

@@ -26,18 +26,21 @@ export function finishSpectrum(draft: SpectrumDraft, fileName: string, override?
   }
   if (n === 0) fail('the spectrum has no pixels');
   const medium = override ?? draft.medium;
-  const wave = new Float64Array(n);
+  // The draft's arrays are its own (every reader makes them fresh): converted in place, kept, not copied.
+  const wave = draft.wave;
+  const toAngstrom = draft.waveUnit.toAngstrom;
+  const air = medium.medium === 'air';
   for (let i = 0; i < n; i++) {
-    const w = draft.wave[i] * draft.waveUnit.toAngstrom;
-    if (!Number.isFinite(w) || w <= 0) fail(`wavelength of pixel ${i + 1} is ${draft.wave[i]}, not a positive number`);
-    wave[i] = medium.medium === 'air' ? airToVacuum(w) : w;
+    const w = wave[i] * toAngstrom;
+    if (!Number.isFinite(w) || w <= 0) fail(`wavelength of pixel ${i + 1} is ${wave[i]}, not a positive number`);
+    wave[i] = air ? airToVacuum(w) : w;
   }
   const order = wavelengthOrder(wave);
   if (order.kind === 'scrambled') {
     fail(`the wavelengths are not in order (pixel ${order.at + 1} breaks the sequence)`);
   }
   const flipped = order.kind === 'descending';
-  const pick = <T extends Float64Array | Uint8Array>(a: T): T => (flipped ? (a.slice().reverse() as T) : a.slice() as T);
+  const pick = <T extends Float64Array | Uint8Array>(a: T): T => (flipped ? (a.reverse() as T) : a);
   const flux = pick(draft.flux);
   const error = draft.error ? pick(draft.error) : new Float64Array(n).fill(NaN);
   const mask = draft.mask ? pick(draft.mask) : new Uint8Array(n);

@@ -1,0 +1,98 @@
+/**
+ * Where each keyword's first card sits in a header, found from the raw card bytes without
+ * making a string per card: keys are compared as FITS readers see them (FITS 4.0 §4.1.2.1:
+ * bytes 1–8, trailing blanks dropped), upper-cased, bytes outside printable ASCII as blanks.
+ * Commentary (COMMENT, HISTORY, blank) and CONTINUE cards are not indexed; HIERARCH cards
+ * (the word in capitals, as the card parser requires) are indexed by the key it gives them.
+ */
+import { CARD_LENGTH } from './header.js';
+
+/** A key as two 32-bit words of its 8 blank-padded bytes. */
+type KeyWords = [number, number];
+
+/** Key bytes as compared: printable ASCII upper-cased, anything else a blank. */
+const NORMALISED = Uint8Array.from({ length: 256 }, (_, b) => (b < 0x20 || b > 0x7e ? 0x20 : b >= 0x61 && b <= 0x7a ? b - 0x20 : b));
+
+const UNINDEXED = ['COMMENT', 'HISTORY', '', 'CONTINUE'].map((k) => keyWords(k)!);
+const HIERARCH = keyWords('HIERARCH')!;
+
+export class CardIndex {
+  /** Card number + 1 per slot (0: empty), open addressing with linear probing. */
+  private readonly slots: Int32Array;
+  private readonly words: Int32Array;
+  private readonly hierarch = new Map<string, number>();
+
+  /** `hierarchKey(i)`: the key of card i, a HIERARCH card. */
+  constructor(bytes: Uint8Array, hierarchKey: (card: number) => string) {
+    const count = Math.floor(bytes.length / CARD_LENGTH);
+    let size = 16;
+    while (size < 2 * count) size *= 2;
+    this.slots = new Int32Array(size);
+    this.words = new Int32Array(2 * count);
+    for (let i = 0; i < count; i++) {
+      const at = i * CARD_LENGTH;
+      const w0 = word(bytes, at);
+      const w1 = word(bytes, at + 4);
+      this.words[2 * i] = w0;
+      this.words[2 * i + 1] = w1;
+      if (w0 === HIERARCH[0] && w1 === HIERARCH[1] && isCapitalHierarch(bytes, at)) {
+        const k = hierarchKey(i).toUpperCase();
+        if (!this.hierarch.has(k)) this.hierarch.set(k, i);
+      } else if (!isUnindexed(w0, w1)) {
+        const slot = this.slotOf(w0, w1);
+        if (this.slots[slot] === 0) this.slots[slot] = i + 1;
+      }
+    }
+  }
+
+  /** Number of the first card of the keyword (upper-cased as given), or undefined. */
+  find(upperKey: string): number | undefined {
+    const h = this.hierarch.get(upperKey);
+    const key = keyWords(upperKey);
+    if (!key || isUnindexed(key[0], key[1])) return h;
+    const card = this.slots[this.slotOf(key[0], key[1])] - 1;
+    if (card < 0) return h;
+    return h !== undefined && h < card ? h : card;
+  }
+
+  /** The slot holding the key, or the empty slot where it would go. */
+  private slotOf(w0: number, w1: number): number {
+    const mask = this.slots.length - 1;
+    // Multiplicative hashing (Knuth, TAOCP vol. 3, §6.4) of the two words.
+    let slot = (Math.imul(w0, 0x9e3779b1) ^ Math.imul(w1, 0x85ebca6b)) >>> 7;
+    for (;;) {
+      slot &= mask;
+      const card = this.slots[slot] - 1;
+      if (card < 0 || (this.words[2 * card] === w0 && this.words[2 * card + 1] === w1)) return slot;
+      slot++;
+    }
+  }
+}
+
+function isUnindexed(w0: number, w1: number): boolean {
+  for (let u = 0; u < UNINDEXED.length; u++) if (UNINDEXED[u][0] === w0 && UNINDEXED[u][1] === w1) return true;
+  return false;
+}
+
+/** Four key bytes as one word (see NORMALISED). */
+function word(bytes: Uint8Array, at: number): number {
+  const n = NORMALISED;
+  return (n[bytes[at]] << 24) | (n[bytes[at + 1]] << 16) | (n[bytes[at + 2]] << 8) | n[bytes[at + 3]];
+}
+
+function isCapitalHierarch(bytes: Uint8Array, at: number): boolean {
+  for (let j = 0; j < 8; j++) if (bytes[at + j] !== 'HIERARCH'.charCodeAt(j)) return false;
+  return true;
+}
+
+/** An upper-cased key as words; undefined when no card key can equal it. */
+function keyWords(key: string): KeyWords | undefined {
+  if (key.length > 8 || key.endsWith(' ')) return undefined;
+  const bytes = new Uint8Array(8).fill(0x20);
+  for (let j = 0; j < key.length; j++) {
+    const c = key.charCodeAt(j);
+    if (c < 0x20 || c > 0x7e || (c >= 0x61 && c <= 0x7a)) return undefined;
+    bytes[j] = c;
+  }
+  return [word(bytes, 0), word(bytes, 4)];
+}
