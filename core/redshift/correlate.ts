@@ -17,10 +17,13 @@
  * transforms.
  */
 import { complexFft, forwardRealPair, nextPowerOfTwo, type ComplexFft } from './fft.js';
+import { binnedInput, gridChoiceFor, pixelSigmaKmS, type CorrelationInput } from './coarse-grid.js';
 import type { PreparedSpectrum } from './preprocess.js';
 import { TD_MIN_WINDOW_LAGS, TD_WINDOW_WIDTHS } from './peaks.js';
+import type { TemplateUse } from './template-set.js';
 import type { Template } from './templates.js';
 import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
+import { LruCache } from '../util/lru-cache.js';
 
 /** Spectrum ranges are rounded out to multiples of this many pixels to share cached templates. */
 const RANGE_QUANTUM = 256;
@@ -32,13 +35,20 @@ const MIN_TEMPLATE_ENERGY = 0.02;
  * Line strengths enter the correlation as |S|^0.5, so one strong line (Lyα, Hα) cannot decide
  * the redshift alone: the pattern of lines does (common practice, no source).
  */
-const CORRELATION_STRENGTH_POWER = 0.5;
+export const CORRELATION_STRENGTH_POWER = 0.5;
 /** Cached template transforms kept (least recently used dropped). */
 const BANK_SIZE = 48;
 
 export interface CorrelationCurveData {
   template: Template;
+  /** Δ ln λ per lag. */
   step: number;
+  /** Native pixels per lag (1 on the native grid). */
+  binFactor: number;
+  /** Least half-width of the Tonry–Davis σ_a window, lags (TD_MIN_WINDOW_LAGS native lags). */
+  minWindowLags: number;
+  /** true when this curve only locates peaks, to be described on the native grid (fine-window.ts). */
+  describeNatively: boolean;
   /** Lag of index 0. */
   lagMin: number;
   /** Indices [searchLo, searchHi] of the searched z range; the lags outside serve σ_a only. */
@@ -61,7 +71,7 @@ interface BankEntry {
   coverHi: number;
 }
 
-const bank = new Map<string, BankEntry>();
+const bank = new LruCache<string, BankEntry>(BANK_SIZE);
 
 interface Layout {
   lagMin: number;
@@ -82,14 +92,18 @@ interface Layout {
  * and r comes out far too high. The width is that of the template's widest line correlated with
  * itself: FWHM = 2√(2 ln 2)·√2·σ, σ the line's width with the pixel's in quadrature.
  */
-export function sigmaAMarginLags(template: Template, step: number): number {
-  const pixelKmS = SPEED_OF_LIGHT_KMS * step;
+export function sigmaAMarginLags(template: Template, input: CorrelationInput): number {
+  const lagKmS = SPEED_OF_LIGHT_KMS * input.grid.step;
   const widest = template.lines.reduce((m, l) => Math.max(m, l.sigmaKmS), 0);
-  const fwhmLags = (2 * Math.sqrt(2 * Math.LN2) * Math.SQRT2 * Math.hypot(widest, pixelKmS)) / pixelKmS;
-  return Math.max(TD_MIN_WINDOW_LAGS, Math.ceil(TD_WINDOW_WIDTHS * fwhmLags));
+  const fwhmLags = (2 * Math.sqrt(2 * Math.LN2) * Math.SQRT2 * Math.hypot(widest, pixelSigmaKmS(input))) / lagKmS;
+  return Math.max(minWindowLags(input), Math.ceil(TD_WINDOW_WIDTHS * fwhmLags));
 }
 
-function layoutFor(p: PreparedSpectrum, zMin: number, zMax: number, margin: number): Layout {
+function minWindowLags(input: CorrelationInput): number {
+  return Math.ceil(TD_MIN_WINDOW_LAGS / input.binFactor);
+}
+
+function layoutFor(p: CorrelationInput, zMin: number, zMax: number, margin: number): Layout {
   const { step, start, length } = p.grid;
   const lagMin = Math.floor(Math.log1p(zMin) / step) - 1 - margin;
   const lagMax = Math.ceil(Math.log1p(zMax) / step) + 1 + margin;
@@ -110,33 +124,34 @@ function templateFftSize(lay: Layout, supportLo: number, supportHi: number): num
   return nextPowerOfTwo(Math.max(noWrap, nLag, lay.specLength));
 }
 
-function bankEntry(t: Template, step: number, lay: Layout): BankEntry {
-  const key = `${t.name}|${step}|${lay.templateOrigin}|${lay.templateLength}|${lay.specLength}`;
-  const hit = bank.get(key);
-  if (hit) {
-    bank.delete(key);
-    bank.set(key, hit);
-    return hit;
-  }
-  const n = lay.templateLength;
-  const wave = new Float64Array(n);
-  for (let i = 0; i < n; i++) wave[i] = Math.exp((lay.templateOrigin + i) * step);
-  const prof = new Float64Array(n);
-  t.evaluate(wave, SPEED_OF_LIGHT_KMS * step, prof, CORRELATION_STRENGTH_POWER);
-  let supportLo = 0, supportHi = n - 1;
-  while (supportLo < n && prof[supportLo] === 0) supportLo++;
-  while (supportHi >= 0 && prof[supportHi] === 0) supportHi--;
-  const fft = complexFft(templateFftSize(lay, supportLo, supportHi));
-  const [lo, hi] = t.restRangeAngstrom;
-  const sq = new Float64Array(n);
-  for (let i = 0; i < n; i++) sq[i] = prof[i] * prof[i];
-  const entry: BankEntry = { fft, t: fft.buffer(), t2: fft.buffer(), coverLo: 0, coverHi: n - 1 };
-  while (entry.coverLo < n && !(wave[entry.coverLo] >= lo)) entry.coverLo++;
-  while (entry.coverHi >= 0 && !(wave[entry.coverHi] <= hi)) entry.coverHi--;
-  forwardRealPair(fft, prof, sq, entry.t, entry.t2, fft.buffer());
-  bank.set(key, entry);
-  if (bank.size > BANK_SIZE) bank.delete(bank.keys().next().value as string);
-  return entry;
+function bankEntry(t: Template, input: CorrelationInput, lay: Layout): BankEntry {
+  const { step } = input.grid;
+  const instKmS = pixelSigmaKmS(input);
+  return bank.get(`${t.name}|${step}|${instKmS}|${lay.templateOrigin}|${lay.templateLength}|${lay.specLength}`, () => {
+    const n = lay.templateLength;
+    const wave = new Float64Array(n);
+    for (let i = 0; i < n; i++) wave[i] = Math.exp((lay.templateOrigin + i) * step);
+    const prof = new Float64Array(n);
+    t.evaluate(wave, instKmS, prof, CORRELATION_STRENGTH_POWER);
+    let supportLo = 0, supportHi = n - 1;
+    while (supportLo < n && prof[supportLo] === 0) supportLo++;
+    while (supportHi >= 0 && prof[supportHi] === 0) supportHi--;
+    const fft = complexFft(templateFftSize(lay, supportLo, supportHi));
+    const sq = new Float64Array(n);
+    for (let i = 0; i < n; i++) sq[i] = prof[i] * prof[i];
+    const [coverLo, coverHi] = coveredRange(wave, t.restRangeAngstrom);
+    const entry: BankEntry = { fft, t: fft.buffer(), t2: fft.buffer(), coverLo, coverHi };
+    forwardRealPair(fft, prof, sq, entry.t, entry.t2, fft.buffer());
+    return entry;
+  });
+}
+
+/** Positions [first, last] of the ascending wavelengths inside [lo, hi] (first > last when none). */
+export function coveredRange(waveAngstrom: Float64Array, [lo, hi]: [number, number]): [number, number] {
+  let first = 0, last = waveAngstrom.length - 1;
+  while (first < waveAngstrom.length && !(waveAngstrom[first] >= lo)) first++;
+  while (last >= 0 && !(waveAngstrom[last] <= hi)) last--;
+  return [first, last];
 }
 
 interface SpectrumTransforms {
@@ -171,7 +186,7 @@ function scratchFor(fft: ComplexFft): Scratch {
   return s;
 }
 
-function spectrumTransforms(p: PreparedSpectrum, lay: Layout, fft: ComplexFft): SpectrumTransforms {
+function spectrumTransforms(p: CorrelationInput, lay: Layout, fft: ComplexFft): SpectrumTransforms {
   const n = fft.size;
   const off = p.grid.start - lay.specOrigin;
   const { a, b, z, s2Sum, goodSum } = scratchFor(fft);
@@ -201,23 +216,25 @@ function spectrumTransforms(p: PreparedSpectrum, lay: Layout, fft: ComplexFft): 
   return { sw, w: ww, s2Sum, goodSum, nGood };
 }
 
-/** Correlates the spectrum with each template over its z range. */
-export function correlate(p: PreparedSpectrum, templates: { template: Template; zMin: number; zMax: number }[]): CorrelationCurveData[] {
-  const out: CorrelationCurveData[] = [];
+/** Correlates the spectrum with each template over its z range, each on its grid (coarse-grid.ts). */
+export function correlate(p: PreparedSpectrum, templates: TemplateUse[]): CorrelationCurveData[] {
+  const inputs = new Map<number, CorrelationInput>();
   const specCache = new Map<string, SpectrumTransforms>();
-  for (const { template, zMin, zMax } of templates) {
-    const margin = sigmaAMarginLags(template, p.grid.step);
-    const lay = layoutFor(p, zMin, zMax, margin);
-    const e = bankEntry(template, p.grid.step, lay);
-    const skey = `${lay.specOrigin}|${e.fft.size}`;
+  return templates.map(({ template, zMin, zMax }) => {
+    const choice = gridChoiceFor(template, p.grid.step);
+    let input = inputs.get(choice.binFactor);
+    if (!input) inputs.set(choice.binFactor, (input = binnedInput(p, choice.binFactor)));
+    const margin = sigmaAMarginLags(template, input);
+    const lay = layoutFor(input, zMin, zMax, margin);
+    const e = bankEntry(template, input, lay);
+    const skey = `${input.binFactor}|${lay.specOrigin}|${e.fft.size}`;
     let st = specCache.get(skey);
-    if (!st) specCache.set(skey, (st = spectrumTransforms(p, lay, e.fft)));
-    out.push(correlateOne(p, template, e, lay, st, margin));
-  }
-  return out;
+    if (!st) specCache.set(skey, (st = spectrumTransforms(input, lay, e.fft)));
+    return { ...correlateOne(input, template, e, lay, st, margin), describeNatively: choice.describeNatively };
+  });
 }
 
-function correlateOne(p: PreparedSpectrum, template: Template, e: BankEntry, lay: Layout, st: SpectrumTransforms, margin: number): CorrelationCurveData {
+function correlateOne(p: CorrelationInput, template: Template, e: BankEntry, lay: Layout, st: SpectrumTransforms, margin: number): CorrelationCurveData {
   const { fft } = e;
   const n = fft.size;
   const [x, cx] = scratchFor(fft).z;
@@ -256,5 +273,5 @@ function correlateOne(p: PreparedSpectrum, template: Template, e: BankEntry, lay
     score[i] = sc;
     rho[i] = sc / Math.sqrt(s2);
   }
-  return { template, step: p.grid.step, lagMin: lay.lagMin, searchLo: margin, searchHi: nLag - 1 - margin, rho, score, overlap };
+  return { template, step: p.grid.step, binFactor: p.binFactor, minWindowLags: minWindowLags(p), describeNatively: false, lagMin: lay.lagMin, searchLo: margin, searchHi: nLag - 1 - margin, rho, score, overlap };
 }

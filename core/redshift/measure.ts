@@ -9,7 +9,8 @@ import { suggestConfidence } from './confidence.js';
 import { correlate, type CorrelationCurveData } from './correlate.js';
 import { detectLines, DETECTION_SNR, linesInRange } from './line-detection.js';
 import { nativeResidual, type NativeResidual } from './native-residual.js';
-import { findPeaks, type Peak } from './peaks.js';
+import { distinctPeaks } from './distinct-peaks.js';
+import type { Peak } from './peaks.js';
 import { preprocess, type PreparedSpectrum } from './preprocess.js';
 import { fitTemplateChi2 } from './refine-chi2.js';
 import { fitEmissionLines } from './refine-lines.js';
@@ -17,10 +18,6 @@ import { resolveTemplates } from './template-set.js';
 import type { Template } from './templates.js';
 import type { Candidate, CorrelationCurve, Measurement, MeasureOptions, Refinement } from './types.js';
 
-/** Peaks kept per template before merging across templates. */
-const PEAKS_PER_TEMPLATE = 8;
-/** Candidates closer than this in ln(1+z), or than a peak's FWHM, are the same solution (≈ 1500 km/s; common practice). */
-const DISTINCT_LN = 0.005;
 const MAX_CURVE_POINTS = 2000;
 
 export interface StageTimes {
@@ -40,7 +37,7 @@ export function measureRedshift(spectrum: Spectrum, options: MeasureOptions = {}
   const prepared = preprocess(spectrum, { maskTelluric: options.maskTelluric ?? true, maskSky: options.maskSky ?? true });
   const t1 = now();
   const curves = correlate(prepared, templates);
-  const distinct = distinctPeaks(curves, options.maxCandidates ?? 5);
+  const distinct = distinctPeaks(prepared, curves, templates, (options.maxCandidates ?? 5) + 1);
   const t2 = now();
   const m = finish(prepared, distinct, curves, options);
   const t3 = now();
@@ -54,19 +51,6 @@ export function measureRedshift(spectrum: Spectrum, options: MeasureOptions = {}
 
 function now(): number {
   return globalThis.performance ? globalThis.performance.now() : Date.now();
-}
-
-function distinctPeaks(curves: CorrelationCurveData[], max: number): Scored[] {
-  const all: Scored[] = [];
-  for (const c of curves) for (const peak of findPeaks(c, PEAKS_PER_TEMPLATE)) all.push({ peak, template: c.template });
-  all.sort((a, b) => b.peak.score - a.peak.score);
-  const kept: Scored[] = [];
-  for (const s of all) {
-    if (kept.length >= max + 1) break;
-    const apart = (k: Scored) => Math.abs(Math.log1p(k.peak.z) - Math.log1p(s.peak.z)) > Math.max(DISTINCT_LN, Math.max(k.peak.widthLags, s.peak.widthLags) * curves[0].step);
-    if (kept.every(apart)) kept.push(s);
-  }
-  return kept;
 }
 
 function toCandidate(s: Scored, p: PreparedSpectrum): Candidate {

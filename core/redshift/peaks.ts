@@ -5,7 +5,7 @@
  */
 import type { CorrelationCurveData } from './correlate.js';
 
-/** σ_a window of tonryDavisR: this many peak widths either side, at least TD_MIN_WINDOW_LAGS (common practice, no source). */
+/** σ_a window of tonryDavisR: this many peak widths either side, at least TD_MIN_WINDOW_LAGS native pixels (common practice, no source). */
 export const TD_WINDOW_WIDTHS = 10;
 export const TD_MIN_WINDOW_LAGS = 100;
 
@@ -18,8 +18,10 @@ export interface Peak {
   height: number;
   /** √Δχ² at the peak (ranking across templates). */
   score: number;
-  /** FWHM, lags. */
+  /** FWHM, lags of its curve. */
   widthLags: number;
+  /** FWHM in ln(1 + z). */
+  widthLn: number;
   r: number;
   overlap: number;
 }
@@ -53,11 +55,11 @@ export function describePeak(curve: CorrelationCurveData, i: number): Peak {
   const delta = den < 0 ? Math.max(-0.5, Math.min(0.5, (0.5 * (y0 - y2)) / den)) : 0;
   const h = y1 - 0.25 * (y0 - y2) * delta;
   const widthLags = fwhm(rho, i, h);
-  const r = tonryDavisR(rho, i, h, widthLags);
+  const r = tonryDavisR(rho, i, h, widthLags, curve.minWindowLags);
   const lag = lagMin + i + delta;
   const z = Math.expm1(lag * step);
   const sigmaLag = ((3 / 8) * widthLags) / (1 + r);
-  return { lag, z, zErr: (1 + z) * step * sigmaLag, height: h, score: score[i], widthLags, r, overlap: overlap[i] };
+  return { lag, z, zErr: (1 + z) * step * sigmaLag, height: h, score: score[i], widthLags, widthLn: widthLags * step, r, overlap: overlap[i] };
 }
 
 /** Full width at half of h (linear interpolation of the crossings), lags. */
@@ -76,14 +78,14 @@ export function fwhm(rho: Float64Array, i: number, h: number): number {
 
 /**
  * Tonry–Davis r: σ_a from the antisymmetric part a(k) = (ρ(i+k) − ρ(i−k))/2 over k up to
- * ten peak widths (at least 100 lags) either side, as far as both sides exist. A peak with fewer
+ * ten peak widths (at least minWindowLags) either side, as far as both sides exist. A peak with fewer
  * such pairs than its FWHM (at the end of the searched range, or where the template barely
  * overlaps) gets r = 0: a(k) would then sample only the peak's own symmetric core, σ_a → 0 and
  * r → ∞ without evidence (z ≈ 4.9 QSO peaks reached r ≈ 58 on SDSS galaxies). Our rule, no source.
  */
-export function tonryDavisR(rho: Float64Array, i: number, h: number, widthLags: number): number {
+export function tonryDavisR(rho: Float64Array, i: number, h: number, widthLags: number, minWindowLags: number): number {
   const n = rho.length;
-  const kMax = Math.min(i, n - 1 - i, Math.max(TD_MIN_WINDOW_LAGS, Math.ceil(TD_WINDOW_WIDTHS * widthLags)));
+  const kMax = Math.min(i, n - 1 - i, Math.max(minWindowLags, Math.ceil(TD_WINDOW_WIDTHS * widthLags)));
   let ss = 0, m = 0;
   for (let k = 1; k <= kMax; k++) {
     const a = rho[i + k], b = rho[i - k];

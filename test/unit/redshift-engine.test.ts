@@ -4,7 +4,9 @@ import { apodise } from '../../core/redshift/preprocess.js';
 import { median } from '../../core/redshift/continuum.js';
 import { complexFft, forwardRealPair } from '../../core/redshift/fft.js';
 import { rebinFluxConserving, pixelEdges, type LogGrid } from '../../core/redshift/log-grid.js';
-import { describePeak } from '../../core/redshift/peaks.js';
+import { describePeak, findPeaks } from '../../core/redshift/peaks.js';
+import { binnedInput, nativeInput, pixelSigmaKmS } from '../../core/redshift/coarse-grid.js';
+import { describeOnNativeGrid, locateOnNativeGrid } from '../../core/redshift/fine-window.js';
 import { correlate, type CorrelationCurveData } from '../../core/redshift/correlate.js';
 import { preprocess } from '../../core/redshift/preprocess.js';
 import { measureRedshift } from '../../core/redshift/measure.js';
@@ -107,7 +109,7 @@ describe('Tonry–Davis r and σz', () => {
     // A Gaussian peak of height h, σ = s lags, plus a known antisymmetric ripple of rms ε/√2.
     const h = 0.8, s = 3, eps = 0.02, n = 401, i0 = 200, step = 2.3e-4;
     const rho = Float64Array.from({ length: n }, (_, i) => h * Math.exp(-0.5 * ((i - i0) / s) ** 2) + eps * Math.sin((2 * Math.PI * (i - i0)) / 37));
-    const curve: CorrelationCurveData = { template: builtInTemplates()[0], step, lagMin: 0, searchLo: 0, searchHi: n - 1, rho, score: rho, overlap: new Float64Array(n).fill(1) };
+    const curve: CorrelationCurveData = { template: builtInTemplates()[0], step, binFactor: 1, minWindowLags: 100, describeNatively: false, lagMin: 0, searchLo: 0, searchHi: n - 1, rho, score: rho, overlap: new Float64Array(n).fill(1) };
     const p = describePeak(curve, i0);
     const k = Math.min(i0, Math.max(100, Math.ceil(10 * p.widthLags)));
     let ss = 0;
@@ -125,36 +127,67 @@ describe('Tonry–Davis r and σz', () => {
   });
 });
 
+/** Overlap-normalised correlation at one lag of a grid, summed directly (the definition in correlate.ts). */
+function directRho(t: Template, grid: LogGrid, weight: Float64Array, resid: Float64Array, instKmS: number, lag: number): { rho: number; score: number; overlap: number } {
+  const [lo, hi] = t.restRangeAngstrom;
+  const { step, start, length } = grid;
+  const rest = Float64Array.from({ length }, (_, i) => Math.exp((start + i - lag) * step));
+  const prof = new Float64Array(length);
+  // Line strengths enter as |S|^0.5, as in correlate.ts.
+  t.evaluate(rest, instKmS, prof, 0.5);
+  let c = 0, t2 = 0, s2 = 0, good = 0, covered = 0;
+  for (let i = 0; i < length; i++) {
+    const w = weight[i];
+    c += w * resid[i] * prof[i];
+    t2 += w * prof[i] * prof[i];
+    if (w > 0) good++;
+    if (w > 0 && rest[i] >= lo && rest[i] <= hi) {
+      s2 += w * resid[i] * resid[i];
+      covered++;
+    }
+  }
+  const score = c / Math.sqrt(t2);
+  return { rho: score / Math.sqrt(s2), score, overlap: covered / good };
+}
+
 describe('FFT correlation', () => {
-  it('equals the overlap-normalised correlation summed directly, lag by lag', () => {
+  it('equals the overlap-normalised correlation summed directly, lag by lag, on each template’s grid', () => {
     // The FFT is cut to the size the searched lags need: any wrap-around would show here. With
     // zmax 0.9 the sizes are set by the template's support, not by the lag count.
     const p = preprocess(synthetic(0.8, 1, 11, 400, builtInTemplates().find((t) => t.name === 'qso')!), { maskTelluric: true, maskSky: true });
     const uses = resolveTemplates({ zmax: 0.9 }).filter((u) => u.template.name === 'qso' || u.template.name === 'star-forming');
     const curves = correlate(p, uses);
-    const C_KMS = 299792.458, { step, start, length } = p.grid;
     let compared = 0;
     for (const curve of curves) {
-      const t = curve.template, [lo, hi] = t.restRangeAngstrom;
-      for (let k = curve.searchLo; k <= curve.searchHi; k += 97) {
+      const input = binnedInput(p, curve.binFactor);
+      expect(input.grid.step).toBeCloseTo(curve.step, 15);
+      for (let k = curve.searchLo; k <= curve.searchHi; k += 23) {
         if (!Number.isFinite(curve.rho[k])) continue;
-        const lag = curve.lagMin + k;
-        const rest = Float64Array.from({ length }, (_, i) => Math.exp((start + i - lag) * step));
-        const prof = new Float64Array(length);
-        // Line strengths enter as |S|^0.5, as in correlate.ts.
-        t.evaluate(rest, C_KMS * step, prof, 0.5);
-        let c = 0, t2 = 0, s2 = 0;
-        for (let i = 0; i < length; i++) {
-          const w = p.weight[i];
-          c += w * p.resid[i] * prof[i];
-          t2 += w * prof[i] * prof[i];
-          if (w > 0 && rest[i] >= lo && rest[i] <= hi) s2 += w * p.resid[i] * p.resid[i];
-        }
-        expect(curve.rho[k]).toBeCloseTo(c / Math.sqrt(t2 * s2), 9);
+        const d = directRho(curve.template, input.grid, input.weight, input.resid, pixelSigmaKmS(input), curve.lagMin + k);
+        expect(curve.rho[k]).toBeCloseTo(d.rho, 9);
         compared++;
       }
     }
+    // The star-forming template's narrow lines are searched on the coarsest grid, the QSO's on a finer one.
+    expect(curves.map((c) => c.binFactor)).toEqual([4, 2]);
     expect(compared).toBeGreaterThan(50);
+  });
+
+  it('describes a narrow-line peak on the native grid as the native correlation summed directly does', () => {
+    const sf = builtInTemplates().find((t) => t.name === 'star-forming')!;
+    const p = preprocess(synthetic(0.3, 1, 5, 60, sf), { maskTelluric: true, maskSky: true });
+    const [use] = resolveTemplates({ templates: ['star-forming'] });
+    const [coarse] = correlate(p, [use]);
+    expect(coarse.describeNatively).toBe(true);
+    const at = locateOnNativeGrid(p, coarse, use, findPeaks(coarse, 1)[0])!;
+    const peak = describeOnNativeGrid(p, coarse, use, at)!;
+    // The whole native curve over a window wider than any σ_a window the peak can need.
+    const half = 400, lagMin = at.lag - half, n = 2 * half + 1;
+    const rho = new Float64Array(n), score = new Float64Array(n), overlap = new Float64Array(n);
+    for (let i = 0; i < n; i++) ({ rho: rho[i], score: score[i], overlap: overlap[i] } = directRho(sf, p.grid, p.weight, p.resid, pixelSigmaKmS(nativeInput(p)), lagMin + i));
+    const direct = describePeak({ template: sf, step: p.grid.step, binFactor: 1, minWindowLags: 100, describeNatively: false, lagMin, searchLo: 0, searchHi: n - 1, rho, score, overlap }, half);
+    expect(Math.abs(peak.z - 0.3) / peak.zErr).toBeLessThan(4);
+    for (const key of ['z', 'zErr', 'r', 'height', 'score', 'widthLags', 'overlap'] as const) expect(peak[key]).toBeCloseTo(direct[key], 9);
   });
 });
 

@@ -1,0 +1,184 @@
+/**
+ * Correlation peaks of narrow-line templates described on the native grid. The coarse search
+ * (coarse-grid.ts) finds where a peak is; here the same overlap-normalised correlation as in
+ * correlate.ts is summed directly over a window of native lags around it, wide enough for the
+ * Tonry–Davis σ_a window, so z, r, the width and σz are those of the native-grid curve. The
+ * template is sparse (lines over ±5σ), so the direct sums cost (window lags) × (template pixels).
+ */
+import { CORRELATION_STRENGTH_POWER, coveredRange, MIN_OVERLAP, sigmaAMarginLags, type CorrelationCurveData } from './correlate.js';
+import { nativeInput, pixelSigmaKmS } from './coarse-grid.js';
+import { describePeak, TD_MIN_WINDOW_LAGS, TD_WINDOW_WIDTHS, type Peak } from './peaks.js';
+import type { PreparedSpectrum } from './preprocess.js';
+import type { TemplateUse } from './template-set.js';
+import type { Template } from './templates.js';
+import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
+import { LruCache } from '../util/lru-cache.js';
+
+/** Profile evaluated to this many line σ beyond the outer lines (the lines are cut at ±5σ). */
+const PROFILE_SIGMAS = 6;
+/** Sparse profiles kept (least recently used dropped). */
+const PROFILE_CACHE_SIZE = 24;
+
+/** Non-zero runs of a template profile on the native grid's rest indices. */
+interface SparseProfile {
+  /** Rest index of each run's first value. */
+  runStart: number[];
+  t: Float64Array[];
+  t2: Float64Array[];
+  /** Rest indices [coverLo, coverHi] inside the template's rest range. */
+  coverLo: number;
+  coverHi: number;
+}
+
+const profiles = new LruCache<string, SparseProfile>(PROFILE_CACHE_SIZE);
+
+function sparseProfile(template: Template, step: number, instKmS: number): SparseProfile {
+  return profiles.get(`${template.name}|${step}|${instKmS}`, () => {
+    let [waveLo, waveHi] = template.restRangeAngstrom;
+    for (const l of template.lines) {
+      const reach = (PROFILE_SIGMAS * Math.hypot(l.sigmaKmS, instKmS)) / SPEED_OF_LIGHT_KMS;
+      waveLo = Math.min(waveLo, l.waveRestAngstrom * (1 - reach));
+      waveHi = Math.max(waveHi, l.waveRestAngstrom * (1 + reach));
+    }
+    const r0 = Math.floor(Math.log(waveLo) / step), n = Math.ceil(Math.log(waveHi) / step) - r0 + 1;
+    const wave = new Float64Array(n);
+    for (let i = 0; i < n; i++) wave[i] = Math.exp((r0 + i) * step);
+    const prof = new Float64Array(n);
+    template.evaluate(wave, instKmS, prof, CORRELATION_STRENGTH_POWER);
+    const [coverLo, coverHi] = coveredRange(wave, template.restRangeAngstrom);
+    const sp: SparseProfile = { runStart: [], t: [], t2: [], coverLo: r0 + coverLo, coverHi: r0 + coverHi };
+    for (let i = 0; i < n; ) {
+      if (prof[i] === 0) {
+        i++;
+        continue;
+      }
+      let j = i;
+      while (j < n && prof[j] !== 0) j++;
+      const t = prof.slice(i, j);
+      sp.runStart.push(r0 + i);
+      sp.t.push(t);
+      sp.t2.push(t.map((v) => v * v));
+      i = j;
+    }
+    return sp;
+  });
+}
+
+/** Per-spectrum sums the window needs: w·s, and running sums of w·s² and of good pixels. */
+interface SpectrumSums {
+  ws: Float64Array;
+  s2Sum: Float64Array;
+  goodSum: Float64Array;
+}
+
+const sumsOf = new WeakMap<PreparedSpectrum, SpectrumSums>();
+
+function spectrumSums(p: PreparedSpectrum): SpectrumSums {
+  let s = sumsOf.get(p);
+  if (s) return s;
+  const n = p.grid.length;
+  s = { ws: new Float64Array(n), s2Sum: new Float64Array(n + 1), goodSum: new Float64Array(n + 1) };
+  for (let j = 0; j < n; j++) {
+    const w = p.weight[j];
+    s.ws[j] = w * p.resid[j];
+    s.s2Sum[j + 1] = s.s2Sum[j] + (w > 0 ? w * p.resid[j] * p.resid[j] : 0);
+    s.goodSum[j + 1] = s.goodSum[j] + (w > 0 ? 1 : 0);
+  }
+  sumsOf.set(p, s);
+  return s;
+}
+
+/**
+ * The native-grid correlation over lags [centre − half, centre + half] (clipped to the searched
+ * range and its σ_a margins), as a curve; lags the coarse curve left out stay left out.
+ */
+function nativeWindow(p: PreparedSpectrum, coarse: CorrelationCurveData, use: TemplateUse, centre: number, half: number): CorrelationCurveData {
+  const { template } = use;
+  const { step, start, length } = p.grid;
+  const native = nativeInput(p);
+  const margin = sigmaAMarginLags(template, native);
+  const searchMin = Math.floor(Math.log1p(use.zMin) / step) - 1, searchMax = Math.ceil(Math.log1p(use.zMax) / step) + 1;
+  const la = Math.max(centre - half, searchMin - margin), lb = Math.min(centre + half, searchMax + margin);
+  const nLag = Math.max(0, lb - la + 1);
+  const sp = sparseProfile(template, step, pixelSigmaKmS(native));
+  const sums = spectrumSums(p);
+  const nGood = sums.goodSum[length];
+  const c = new Float64Array(nLag), t2 = new Float64Array(nLag);
+  const { ws } = sums, w = p.weight;
+  for (let r = 0; r < sp.runStart.length; r++) {
+    const tv = sp.t[r], t2v = sp.t2[r];
+    for (let u = 0; u < tv.length; u++) {
+      // At lag la + i, rest index runStart + u meets native pixel off + i.
+      const off = sp.runStart[r] + u + la - start;
+      const tu = tv[u], t2u = t2v[u];
+      const iLo = Math.max(0, -off), iHi = Math.min(nLag, length - off);
+      for (let i = iLo; i < iHi; i++) c[i] += ws[off + i] * tu;
+      for (let i = iLo; i < iHi; i++) t2[i] += w[off + i] * t2u;
+    }
+  }
+  const rho = new Float64Array(nLag), score = new Float64Array(nLag), overlap = new Float64Array(nLag);
+  for (let i = 0; i < nLag; i++) {
+    const lag = la + i;
+    const jLo = Math.max(0, sp.coverLo + lag - start), jHi = Math.min(length - 1, sp.coverHi + lag - start);
+    const s2 = jHi >= jLo ? sums.s2Sum[jHi + 1] - sums.s2Sum[jLo] : 0;
+    const ov = jHi >= jLo && nGood > 0 ? (sums.goodSum[jHi + 1] - sums.goodSum[jLo]) / nGood : 0;
+    overlap[i] = Math.min(1, Math.max(0, ov));
+    const k = Math.round(lag / coarse.binFactor) - coarse.lagMin;
+    const coarseKept = k >= 0 && k < coarse.rho.length && coarse.rho[k] === coarse.rho[k];
+    if (!coarseKept || ov < MIN_OVERLAP || !(t2[i] > 0) || !(s2 > 0)) {
+      rho[i] = NaN;
+      score[i] = NaN;
+      continue;
+    }
+    score[i] = c[i] / Math.sqrt(t2[i]);
+    rho[i] = score[i] / Math.sqrt(s2);
+  }
+  return { template, step, binFactor: 1, minWindowLags: TD_MIN_WINDOW_LAGS, describeNatively: false, lagMin: la, searchLo: Math.max(0, searchMin - la), searchHi: Math.min(nLag - 1, searchMax - la), rho, score, overlap };
+}
+
+/** A coarse peak's position on the native grid. */
+export interface NativeLocation {
+  /** Absolute native lag of the local maximum. */
+  lag: number;
+  z: number;
+  /** √Δχ² there, as in CorrelationCurveData.score. */
+  score: number;
+}
+
+/**
+ * The best local maximum of the native-grid correlation within a coarse lag of the coarse peak
+ * (a few lags summed: cheap enough for every coarse peak), or null when there is none.
+ */
+export function locateOnNativeGrid(p: PreparedSpectrum, coarse: CorrelationCurveData, use: TemplateUse, peak: Peak): NativeLocation | null {
+  const k = coarse.binFactor;
+  const centre = Math.round(peak.lag * k);
+  const win = nativeWindow(p, coarse, use, centre, k + 2);
+  const { rho, score } = win;
+  let best = -1;
+  const from = Math.max(win.searchLo + 2, 1), to = Math.min(win.searchHi - 2, rho.length - 2);
+  for (let i = from; i <= to; i++) {
+    const v = rho[i];
+    if (!(v > 0) || !(v >= rho[i - 1]) || !(v > rho[i + 1]) || !(rho[i - 1] === rho[i - 1]) || !(rho[i + 1] === rho[i + 1])) continue;
+    if (best < 0 || score[i] > score[best]) best = i;
+  }
+  if (best < 0) return null;
+  const lag = win.lagMin + best;
+  return { lag, z: Math.expm1(lag * p.grid.step), score: score[best] };
+}
+
+/**
+ * The located peak described on the native grid (z, r, width, σz), over a window wide enough
+ * for the Tonry–Davis σ_a window of a peak as wide as the template's lines; a wider peak (lines
+ * broader than the template's) gets a second, wider window. Null when r cannot be measured.
+ */
+export function describeOnNativeGrid(p: PreparedSpectrum, coarse: CorrelationCurveData, use: TemplateUse, at: NativeLocation): Peak | null {
+  const half = sigmaAMarginLags(use.template, nativeInput(p)) + 2;
+  let win = nativeWindow(p, coarse, use, at.lag, half);
+  let peak = describePeak(win, at.lag - win.lagMin);
+  const needed = Math.ceil(TD_WINDOW_WIDTHS * peak.widthLags) + 2;
+  if (needed > half) {
+    win = nativeWindow(p, coarse, use, at.lag, needed);
+    peak = describePeak(win, at.lag - win.lagMin);
+  }
+  return peak.r > 0 ? peak : null;
+}
