@@ -1,20 +1,20 @@
 /**
- * Levenberg–Marquardt on typed arrays with Marquardt's diagonal scaling (Marquardt 1963,
- * J. SIAM 11, 431; e.g. Press et al., Numerical Recipes, §15.5), parameters clamped to their
- * bounds, a bounded number of iterations that stops when χ² improves by less than a relative
- * tolerance. Parameters with equal lower and upper bounds are held fixed. The caller's model
- * fills the values and the analytic Jacobian in place, and each trial point is evaluated once
- * (values and Jacobian together), so an iteration allocates nothing.
+ * Levenberg–Marquardt with Marquardt's diagonal scaling (Marquardt 1963, J. SIAM 11, 431; e.g.
+ * Press et al., Numerical Recipes, §15.5), parameters clamped to their bounds, a bounded number
+ * of iterations that stops when χ² improves by less than a relative tolerance. Parameters with
+ * equal lower and upper bounds are held fixed. The problem linearises itself at a point (χ², the
+ * normal matrix and the gradient, in place), so it can use its own sparsity; each trial point is
+ * evaluated once, and an iteration allocates nothing.
  */
 
 export interface LmProblem {
-  y: Float64Array;
-  /** Weights 1/σ². */
-  w: Float64Array;
   lower: Float64Array;
   upper: Float64Array;
-  /** Fills model[k] and, when jac is given, jac[k·nParams + j] = ∂model[k]/∂p[j] (zeroed before). */
-  evaluate(p: Float64Array, model: Float64Array, jac: Float64Array | null): void;
+  /**
+   * χ² at p, with JᵀWJ over the parameters in `free` (row-major, free.length²) into `normal`
+   * and JᵀW(y − model) into `gradient`.
+   */
+  linearise(p: Float64Array, free: readonly number[], normal: Float64Array, gradient: Float64Array): number;
 }
 
 export interface LmResult {
@@ -33,49 +33,18 @@ export const LM_MAX_ITERATIONS = 20;
 export const LM_RELATIVE_TOLERANCE = 1e-6;
 
 export function lmFit(prob: LmProblem, start: Float64Array, maxIterations = LM_MAX_ITERATIONS, relTol = LM_RELATIVE_TOLERANCE): LmResult {
-  const nP = start.length, nY = prob.y.length;
+  const nP = start.length;
   const p = Float64Array.from(start);
   const free: number[] = [];
   for (let j = 0; j < nP; j++) if (prob.upper[j] > prob.lower[j]) free.push(j);
   const nF = free.length;
-  const model = new Float64Array(nY), jac = new Float64Array(nY * nP);
   // The normal matrix and gradient at p, and at the trial point (swapped in when it is accepted).
   let a = new Float64Array(nF * nF), g = new Float64Array(nF);
   let aTrial = new Float64Array(nF * nF), gTrial = new Float64Array(nF);
   const m = new Float64Array(nF * nF), rhs = new Float64Array(nF), step = new Float64Array(nF);
   const trial = new Float64Array(nP);
-  const nzIndex = new Int32Array(nF), nzValue = new Float64Array(nF), moving = new Int32Array(nF);
-  /** χ² at q, with JᵀWJ into na and JᵀW(y − model) into ng. */
-  const linearise = (q: Float64Array, na: Float64Array, ng: Float64Array): number => {
-    jac.fill(0);
-    prob.evaluate(q, model, jac);
-    na.fill(0);
-    ng.fill(0);
-    let chi2 = 0;
-    const { y, w } = prob;
-    for (let k = 0; k < nY; k++) {
-      const wk = w[k], d = y[k] - model[k], r = wk * d, row = k * nP;
-      chi2 += r * d;
-      // A point depends on few parameters (the lines near it): accumulate over those only.
-      let nz = 0;
-      for (let i = 0; i < nF; i++) {
-        const ji = jac[row + free[i]];
-        if (ji !== 0) {
-          nzIndex[nz] = i;
-          nzValue[nz++] = ji;
-        }
-      }
-      for (let u = 0; u < nz; u++) {
-        const i = nzIndex[u], ji = nzValue[u];
-        ng[i] += ji * r;
-        const wji = wk * ji, base = i * nF;
-        for (let v = u; v < nz; v++) na[base + nzIndex[v]] += wji * nzValue[v];
-      }
-    }
-    for (let i = 0; i < nF; i++) for (let l = 0; l < i; l++) na[i * nF + l] = na[l * nF + i];
-    return chi2;
-  };
-  let chi2 = linearise(p, a, g);
+  const moving = new Int32Array(nF);
+  let chi2 = prob.linearise(p, free, a, g);
   let damping = 1e-3;
   let it = 0;
   for (; it < maxIterations; it++) {
@@ -106,7 +75,7 @@ export function lmFit(prob: LmProblem, start: Float64Array, maxIterations = LM_M
         const j = free[moving[u]];
         trial[j] = Math.min(prob.upper[j], Math.max(prob.lower[j], p[j] + step[u]));
       }
-      const c = linearise(trial, aTrial, gTrial);
+      const c = prob.linearise(trial, free, aTrial, gTrial);
       if (c < chi2) {
         gain = (chi2 - c) / Math.max(c, 1e-300);
         p.set(trial);

@@ -20,8 +20,8 @@ const BROAD_KMS = 600;
 const MAX_SHIFT_KMS = 1500;
 /** A line enters the fit only with at least this many good pixels within 4σ (common practice, no source). */
 const MIN_LINE_PIXELS = 3;
-/** A line's profile is evaluated out to this many σ (e^(−32) beyond: nothing left). */
-const PROFILE_REACH = 8;
+/** A line's profile is evaluated out to this many σ, as the templates are (templates.ts addLineProfile; e^(−12.5) of the peak beyond). */
+const PROFILE_REACH = 5;
 
 export interface LineFit {
   z: number;
@@ -56,19 +56,22 @@ export function fitEmissionLines(nr: NativeResidual, template: Template, z0: num
   const inst = nr.pixelKmS;
 
   const nP = 3 + nGroups;
-  const xs = Float64Array.from(idx, (i) => nr.waveAngstrom[i]);
-  const ys = Float64Array.from(idx, (i) => nr.resid[i]);
-  const ws = Float64Array.from(idx, (i) => 1 / (nr.sigma[i] * nr.sigma[i]));
-  const evaluate = lineModel(comps, z0, inst, xs, nP);
+  const xs = new Float64Array(idx.length), ys = new Float64Array(idx.length), ws = new Float64Array(idx.length);
+  idx.forEach((i, k) => {
+    xs[k] = nr.waveAngstrom[i];
+    ys[k] = nr.resid[i];
+    ws[k] = 1 / (nr.sigma[i] * nr.sigma[i]);
+  });
   const start = new Float64Array(nP);
   start[1] = narrow0;
   start[2] = broad0;
-  setInitialAmplitudes(evaluate, ys, ws, start);
   const fixedBroad = broadLines.length === 0;
   const fixedNarrow = inRange.every((l) => l.sigmaKmS > BROAD_KMS);
   const lower = Float64Array.from([-MAX_SHIFT_KMS * 2, fixedNarrow ? narrow0 : 5, fixedBroad ? broad0 : 300, ...new Array<number>(nGroups).fill(-Infinity)]);
   const upper = Float64Array.from([MAX_SHIFT_KMS * 2, fixedNarrow ? narrow0 : BROAD_KMS, fixedBroad ? broad0 : 6000, ...new Array<number>(nGroups).fill(Infinity)]);
-  const fit = lmFit({ y: ys, w: ws, lower, upper, evaluate }, start);
+  const profiles = new LineProfiles(comps, z0, inst, xs);
+  setInitialAmplitudes(profiles, nGroups, ys, ws, start);
+  const fit = lmFit(lineProblem(profiles, nGroups, ys, ws, lower, upper), start);
   const p = fit.p;
   if (!p.every(Number.isFinite) || Math.abs(p[0]) > MAX_SHIFT_KMS) return null;
   const nF = fit.free.length;
@@ -95,37 +98,212 @@ function usablePixels(nr: NativeResidual, line: ProfileLine, z: number): number 
 }
 
 /**
- * The model of the lines in `comps` at the pixels xs, for lmFit. Parameters: [v, σ_narrow,
- * σ_broad, A_0 … A_(g−1)]. Each line touches only the points within PROFILE_REACH of its centre,
- * found by bisection in the sorted wavelengths.
+ * Each line's unit-amplitude profile (its ratio in its group included) at the pixels xs, and its
+ * derivatives in v and in its σ, over the points within PROFILE_REACH of its centre (found by
+ * bisection in the sorted wavelengths). Parameters as in the fit: [v, σ_narrow, σ_broad, A_0 …].
  */
-function lineModel(comps: Component[], z0: number, inst: number, xs: Float64Array, nP: number): LmProblem['evaluate'] {
-  return (p, model, jac) => {
-    model.fill(0);
+class LineProfiles {
+  readonly comps: Component[];
+  readonly xs: Float64Array;
+  /** Per line: its points [from, to) and where they start in the packed arrays. */
+  readonly from: Int32Array;
+  readonly to: Int32Array;
+  readonly at: Int32Array;
+  phi = new Float64Array(0);
+  dPhiDv = new Float64Array(0);
+  dPhiDs = new Float64Array(0);
+  private readonly z0: number;
+  private readonly inst: number;
+  private readonly centre: Float64Array;
+  private readonly width: Float64Array;
+
+  constructor(comps: Component[], z0: number, inst: number, xs: Float64Array) {
+    this.comps = comps;
+    this.z0 = z0;
+    this.inst = inst;
+    this.xs = xs;
+    const n = comps.length;
+    this.from = new Int32Array(n);
+    this.to = new Int32Array(n);
+    this.at = new Int32Array(n + 1);
+    this.centre = new Float64Array(n);
+    this.width = new Float64Array(n);
+  }
+
+  compute(p: Float64Array): void {
+    const { comps, xs, z0 } = this;
     const zf = (1 + z0) * (1 + p[0] / SPEED_OF_LIGHT_KMS);
-    for (const comp of comps) {
-      const c = comp.line.waveRestAngstrom * zf;
+    for (let c = 0; c < comps.length; c++) {
+      const centre = comps[c].line.waveRestAngstrom * zf;
+      const sA = (centre * Math.hypot(comps[c].broad ? p[2] : p[1], this.inst)) / SPEED_OF_LIGHT_KMS;
+      const end = centre + PROFILE_REACH * sA;
+      const from = lowerBound(xs, centre - PROFILE_REACH * sA);
+      let to = lowerBound(xs, end);
+      while (to < xs.length && xs[to] <= end) to++;
+      this.centre[c] = centre;
+      this.width[c] = sA;
+      this.from[c] = from;
+      this.to[c] = to;
+      this.at[c + 1] = this.at[c] + to - from;
+    }
+    const total = this.at[comps.length];
+    if (this.phi.length < total) {
+      this.phi = new Float64Array(2 * total);
+      this.dPhiDv = new Float64Array(2 * total);
+      this.dPhiDs = new Float64Array(2 * total);
+    }
+    const { phi, dPhiDv, dPhiDs } = this;
+    for (let c = 0; c < comps.length; c++) {
+      const comp = comps[c];
+      const centre = this.centre[c], sA = this.width[c];
       const sv = comp.broad ? p[2] : p[1];
-      const stot = Math.hypot(sv, inst);
-      const sA = (c * stot) / SPEED_OF_LIGHT_KMS;
-      const amp = p[3 + comp.group];
+      const stot = Math.hypot(sv, this.inst);
       const norm = comp.ratio / (sA * SQRT_2PI);
-      // ∂g/∂c = g·u/s, ∂c/∂v = λ_rest(1+z0)/c; ∂g/∂s = g(u² − 1)/s, ∂s/∂σv = c·σv/(C·stot)
-      const dcdv = (comp.line.waveRestAngstrom * (1 + z0)) / SPEED_OF_LIGHT_KMS, dsdsv = (c * sv) / (SPEED_OF_LIGHT_KMS * stot);
-      const jS = comp.broad ? 2 : 1, jA = 3 + comp.group;
-      const end = c + PROFILE_REACH * sA;
-      for (let k = lowerBound(xs, c - PROFILE_REACH * sA); k < xs.length && xs[k] <= end; k++) {
-        const u = (xs[k] - c) / sA;
+      // ∂φ/∂c = φ·u/s, ∂c/∂v = λ_rest(1+z0)/C; ∂φ/∂s = φ(u² − 1)/s, ∂s/∂σv = c·σv/(C·stot)
+      const dcdv = (comp.line.waveRestAngstrom * (1 + z0)) / SPEED_OF_LIGHT_KMS / sA;
+      const dsdsv = (centre * sv) / (SPEED_OF_LIGHT_KMS * stot) / sA;
+      for (let k = this.from[c], q = this.at[c]; k < this.to[c]; k++, q++) {
+        const u = (xs[k] - centre) / sA;
         const g = norm * Math.exp(-0.5 * u * u);
-        model[k] += amp * g;
-        if (jac) {
-          const row = k * nP;
-          jac[row] += amp * ((g * u) / sA) * dcdv;
-          jac[row + jS] += amp * ((g * (u * u - 1)) / sA) * dsdsv;
-          jac[row + jA] += g;
-        }
+        phi[q] = g;
+        dPhiDv[q] = g * u * dcdv;
+        dPhiDs[q] = g * (u * u - 1) * dsdsv;
       }
     }
+  }
+
+  /** Adds Σ A_g·profile to out, with the amplitudes of p (after compute). */
+  addModel(p: Float64Array, out: Float64Array): void {
+    for (let c = 0; c < this.comps.length; c++) {
+      const amp = p[3 + this.comps[c].group];
+      for (let k = this.from[c], q = this.at[c]; k < this.to[c]; k++, q++) out[k] += amp * this.phi[q];
+    }
+  }
+}
+
+/**
+ * Σ w·φ_c·φ_d over the points two lines share, summed into their groups' entry of `out`
+ * (row-major, nGroups²): the amplitude block of JᵀWJ, as the model is linear in the amplitudes.
+ */
+function amplitudeGram(profiles: LineProfiles, ws: Float64Array, nGroups: number, out: Float64Array): void {
+  const { comps, phi, from, to, at } = profiles;
+  out.fill(0);
+  for (let c = 0; c < comps.length; c++) {
+    const gc = comps[c].group;
+    for (let d = c; d < comps.length; d++) {
+      const lo = Math.max(from[c], from[d]), hi = Math.min(to[c], to[d]);
+      if (lo >= hi) continue;
+      let s = 0;
+      for (let k = lo, qc = at[c] + lo - from[c], qd = at[d] + lo - from[d]; k < hi; k++, qc++, qd++) s += ws[k] * phi[qc] * phi[qd];
+      const gd = comps[d].group;
+      out[gc * nGroups + gd] += s;
+      if (d !== c) out[gd * nGroups + gc] += s;
+    }
+  }
+}
+
+/**
+ * Sets p[3…] to the weighted linear least-squares amplitudes at p's velocity and widths (the
+ * model is linear in them); zero when the normal equations cannot be solved.
+ */
+function setInitialAmplitudes(profiles: LineProfiles, nGroups: number, ys: Float64Array, ws: Float64Array, p: Float64Array): void {
+  profiles.compute(p);
+  const { comps, phi, from, to, at } = profiles;
+  const a = new Float64Array(nGroups * nGroups), b = new Float64Array(nGroups), amp = new Float64Array(nGroups);
+  amplitudeGram(profiles, ws, nGroups, a);
+  for (let c = 0; c < comps.length; c++) {
+    let s = 0;
+    for (let k = from[c], q = at[c]; k < to[c]; k++, q++) s += ws[k] * phi[q] * ys[k];
+    b[comps[c].group] += s;
+  }
+  for (let i = 0; i < nGroups; i++) a[i * nGroups + i] += 1e-12 * (a[i * nGroups + i] || 1);
+  if (choleskySolve(a, b, amp, nGroups)) p.set(amp, 3);
+}
+
+/**
+ * The weighted least-squares problem of fitting `profiles` to ys (weights ws), for lmFit. JᵀWJ
+ * is built from the lines' own points: the v and width columns are dense, an amplitude's column
+ * is its lines' profiles.
+ */
+function lineProblem(profiles: LineProfiles, nGroups: number, ys: Float64Array, ws: Float64Array, lower: Float64Array, upper: Float64Array): LmProblem {
+  const nY = ys.length, { comps } = profiles;
+  const model = new Float64Array(nY), resid = new Float64Array(nY);
+  const dv = new Float64Array(nY), dn = new Float64Array(nY), db = new Float64Array(nY);
+  const gram = new Float64Array(nGroups * nGroups);
+  const at = new Int32Array(3 + nGroups);
+  const sums = new Float64Array(9);
+  return {
+    lower,
+    upper,
+    linearise(p, free, normal, gradient) {
+      profiles.compute(p);
+      const { phi, dPhiDv, dPhiDs, from, to } = profiles;
+      const start = profiles.at;
+      model.fill(0);
+      dv.fill(0);
+      dn.fill(0);
+      db.fill(0);
+      for (let c = 0; c < comps.length; c++) {
+        const a = p[3 + comps[c].group], ds = comps[c].broad ? db : dn;
+        for (let k = from[c], q = start[c]; k < to[c]; k++, q++) {
+          model[k] += a * phi[q];
+          dv[k] += a * dPhiDv[q];
+          ds[k] += a * dPhiDs[q];
+        }
+      }
+      // χ², and the v and width rows of JᵀWJ and JᵀW(y − model), in one pass.
+      let chi2 = 0;
+      sums.fill(0);
+      for (let k = 0; k < nY; k++) {
+        const r = ys[k] - model[k], w = ws[k];
+        resid[k] = r;
+        chi2 += w * r * r;
+        const a = w * dv[k], b = w * dn[k], c = w * db[k];
+        sums[0] += a * dv[k];
+        sums[1] += a * dn[k];
+        sums[2] += a * db[k];
+        sums[3] += b * dn[k];
+        sums[4] += b * db[k];
+        sums[5] += c * db[k];
+        sums[6] += a * r;
+        sums[7] += b * r;
+        sums[8] += c * r;
+      }
+      const nF = free.length;
+      normal.fill(0);
+      gradient.fill(0);
+      at.fill(-1);
+      for (let i = 0; i < nF; i++) at[free[i]] = i;
+      for (let i = 0, t = 0; i < 3; i++) {
+        for (let j = i; j < 3; j++, t++) {
+          if (at[i] >= 0 && at[j] >= 0) normal[at[i] * nF + at[j]] = normal[at[j] * nF + at[i]] = sums[t];
+        }
+        if (at[i] >= 0) gradient[at[i]] = sums[6 + i];
+      }
+      for (let c = 0; c < comps.length; c++) {
+        const fa = at[3 + comps[c].group];
+        if (fa < 0) continue;
+        let sr = 0, sv = 0, sn = 0, sb = 0;
+        for (let k = from[c], q = start[c]; k < to[c]; k++, q++) {
+          const wg = ws[k] * phi[q];
+          sr += wg * resid[k];
+          sv += wg * dv[k];
+          sn += wg * dn[k];
+          sb += wg * db[k];
+        }
+        gradient[fa] += sr;
+        if (at[0] >= 0) normal[at[0] * nF + fa] = normal[fa * nF + at[0]] += sv;
+        if (at[1] >= 0) normal[at[1] * nF + fa] = normal[fa * nF + at[1]] += sn;
+        if (at[2] >= 0) normal[at[2] * nF + fa] = normal[fa * nF + at[2]] += sb;
+      }
+      amplitudeGram(profiles, ws, nGroups, gram);
+      for (let g = 0; g < nGroups; g++) {
+        const fg = at[3 + g];
+        if (fg < 0) continue;
+        for (let h = 0; h < nGroups; h++) if (at[3 + h] >= 0) normal[fg * nF + at[3 + h]] = gram[g * nGroups + h];
+      }
+      return chi2;
+    },
   };
 }
 
@@ -156,9 +334,10 @@ interface JointFit {
  * SCATTER_MIN_LINES lines are strong enough.
  */
 function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) => number): number {
-  const nP = 3 + j.nGroups;
   const full = new Float64Array(j.xs.length);
-  lineModel(j.comps, j.z0, j.inst, j.xs, nP)(p, full, null);
+  const all = new LineProfiles(j.comps, j.z0, j.inst, j.xs);
+  all.compute(p);
+  all.addModel(p, full);
   const velocities: number[] = [];
   for (let g = 0; g < j.nGroups; g++) {
     if (!(Math.abs(p[3 + g]) >= SCATTER_MIN_SNR * ampErr(g))) continue;
@@ -174,8 +353,9 @@ function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) =>
     if (idx.length < 4) continue;
     const xs = Float64Array.from(idx, (k) => j.xs[k]);
     const mine = new Float64Array(xs.length);
-    const evaluate = lineModel(own, j.z0, j.inst, xs, nP);
-    evaluate(p, mine, null);
+    const profiles = new LineProfiles(own, j.z0, j.inst, xs);
+    profiles.compute(p);
+    profiles.addModel(p, mine);
     // The other lines' share of the joint model stays subtracted.
     const ys = Float64Array.from(idx, (k, i) => j.ys[k] - (full[k] - mine[i]));
     const ws = Float64Array.from(idx, (k) => j.ws[k]);
@@ -184,7 +364,7 @@ function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) =>
     upper[0] = j.upper[0];
     lower[3 + g] = -Infinity;
     upper[3 + g] = Infinity;
-    const v = lmFit({ y: ys, w: ws, lower, upper, evaluate }, p).p[0];
+    const v = lmFit(lineProblem(profiles, j.nGroups, ys, ws, lower, upper), p).p[0];
     if (Math.abs(v) <= MAX_SHIFT_KMS) velocities.push(v);
   }
   const n = velocities.length;
@@ -192,30 +372,4 @@ function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) =>
   const mean = velocities.reduce((a, v) => a + v, 0) / n;
   const s = Math.sqrt(velocities.reduce((a, v) => a + (v - mean) ** 2, 0) / (n - 1));
   return s / Math.sqrt(n);
-}
-
-/**
- * Sets p[3…] to the linear least-squares amplitudes at p's velocity and widths (the model is
- * linear in them: its Jacobian columns for the amplitudes are the unit-amplitude profiles);
- * zero when the normal equations cannot be solved.
- */
-function setInitialAmplitudes(evaluate: LmProblem['evaluate'], y: Float64Array, w: Float64Array, p: Float64Array): void {
-  const nP = p.length, nA = nP - 3, nY = y.length;
-  const model = new Float64Array(nY), jac = new Float64Array(nY * nP);
-  evaluate(p, model, jac);
-  const a = new Float64Array(nA * nA), b = new Float64Array(nA), amp = new Float64Array(nA);
-  for (let k = 0; k < nY; k++) {
-    const row = k * nP + 3;
-    for (let i = 0; i < nA; i++) {
-      const gi = jac[row + i];
-      if (gi === 0) continue;
-      b[i] += w[k] * gi * y[k];
-      for (let j = i; j < nA; j++) a[i * nA + j] += w[k] * gi * jac[row + j];
-    }
-  }
-  for (let i = 0; i < nA; i++) {
-    for (let j = 0; j < i; j++) a[i * nA + j] = a[j * nA + i];
-    a[i * nA + i] += 1e-12 * (a[i * nA + i] || 1);
-  }
-  if (choleskySolve(a, b, amp, nA)) p.set(amp, 3);
 }
