@@ -4,7 +4,7 @@
  * better the template's lines explain the spectrum at this redshift than the next candidate's do
  * (a χ² difference, each line's depth fitted with the template's sign).
  */
-import { pixelsNearLines, type NativeResidual } from './native-residual.js';
+import { pixelArrays, pixelsNearLines, type NativeResidual } from './native-residual.js';
 import type { LineDetection } from './line-detection.js';
 import { DETECTION_SNR } from './line-detection.js';
 import { chi2Scratch, templateChi2 } from './template-basis.js';
@@ -30,9 +30,7 @@ export function lineChi2Gain(nr: NativeResidual, template: Template, z: number):
   if (template.lines.length === 0) return 0;
   const idx = pixelsNearLines(nr, template, z, 4);
   if (idx.length === 0) return 0;
-  const wave = Float64Array.from(idx, (i) => nr.waveAngstrom[i]);
-  const y = Float64Array.from(idx, (i) => nr.resid[i]);
-  const w = Float64Array.from(idx, (i) => 1 / (nr.sigma[i] * nr.sigma[i]));
+  const { wave, y, w } = pixelArrays(nr, idx);
   let syy = 0;
   for (let k = 0; k < y.length; k++) syy += w[k] * y[k] * y[k];
   return syy - templateChi2(template, z, wave, y, w, nr.pixelKmS, chi2Scratch(wave.length)).chi2;

@@ -113,3 +113,16 @@ export function pixelsNearLines(nr: NativeResidual, template: Template, z: numbe
   }
   return out;
 }
+
+/** Wavelength (Å), residual and weight 1/σ² at the pixels idx, for a fit. */
+export function pixelArrays(nr: NativeResidual, idx: readonly number[]): { wave: Float64Array; y: Float64Array; w: Float64Array } {
+  const n = idx.length;
+  const wave = new Float64Array(n), y = new Float64Array(n), w = new Float64Array(n);
+  for (let k = 0; k < n; k++) {
+    const i = idx[k];
+    wave[k] = nr.waveAngstrom[i];
+    y[k] = nr.resid[i];
+    w[k] = 1 / (nr.sigma[i] * nr.sigma[i]);
+  }
+  return { wave, y, w };
+}

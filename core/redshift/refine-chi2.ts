@@ -6,7 +6,7 @@
  * minimum and its error from a parabola through the lowest points, Δχ² = 1 (e.g. Press et al.,
  * Numerical Recipes, §15.6), scaled by √χ²_red when that exceeds 1.
  */
-import { pixelsNearLines, type NativeResidual } from './native-residual.js';
+import { pixelArrays, pixelsNearLines, type NativeResidual } from './native-residual.js';
 import { chi2Scratch, templateChi2 } from './template-basis.js';
 import type { Template } from './templates.js';
 
@@ -23,9 +23,7 @@ export interface Chi2Fit {
 export function fitTemplateChi2(nr: NativeResidual, template: Template, z0: number, halfRangeZ: number): Chi2Fit | null {
   const idx = template.lines.length ? pixelsNearLines(nr, template, z0, 4) : allGood(nr);
   if (idx.length < 10) return null;
-  const wave = Float64Array.from(idx, (i) => nr.waveAngstrom[i]);
-  const y = Float64Array.from(idx, (i) => nr.resid[i]);
-  const w = Float64Array.from(idx, (i) => 1 / (nr.sigma[i] * nr.sigma[i]));
+  const { wave, y, w } = pixelArrays(nr, idx);
   const scratch = chi2Scratch(wave.length);
   const dz = halfRangeZ / HALF_STEPS;
   const nGrid = 2 * HALF_STEPS + 1;

@@ -9,7 +9,7 @@
 import { lineGroups } from './line-groups.js';
 import { choleskySolve, lmFit, type LmProblem } from './lm-fit.js';
 import { invert } from '../math/linear-algebra.js';
-import { lineRun, pixelsNearLines, usable, type NativeResidual } from './native-residual.js';
+import { lineRun, pixelArrays, pixelsNearLines, usable, type NativeResidual } from './native-residual.js';
 import { lowerBound, type ProfileLine, type Template } from './templates.js';
 import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
 
@@ -56,12 +56,7 @@ export function fitEmissionLines(nr: NativeResidual, template: Template, z0: num
   const inst = nr.pixelKmS;
 
   const nP = 3 + nGroups;
-  const xs = new Float64Array(idx.length), ys = new Float64Array(idx.length), ws = new Float64Array(idx.length);
-  idx.forEach((i, k) => {
-    xs[k] = nr.waveAngstrom[i];
-    ys[k] = nr.resid[i];
-    ws[k] = 1 / (nr.sigma[i] * nr.sigma[i]);
-  });
+  const { wave: xs, y: ys, w: ws } = pixelArrays(nr, idx);
   const start = new Float64Array(nP);
   start[1] = narrow0;
   start[2] = broad0;

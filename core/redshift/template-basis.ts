@@ -30,27 +30,35 @@ export function templateBasis(t: Template, rest: Float64Array, instSigmaKmS: num
   return { basis, strength };
 }
 
+/** Per profile, the indices (ascending) where it is non-zero and the weight positive. */
+export function profileSupports(basis: Float64Array[], w: Float64Array): number[][] {
+  return basis.map((b) => {
+    const idx: number[] = [];
+    for (let i = 0; i < b.length; i++) if (b[i] !== 0 && w[i] > 0) idx.push(i);
+    return idx;
+  });
+}
+
 /**
  * Weighted least-squares amplitudes ≥ 0 of the profiles in `groups` (the others stay 0): the
  * unconstrained solution, then the most negative amplitude fixed at 0 and the rest refitted
  * until none is negative (an active-set reduction, after Lawson & Hanson 1974, Solving Least
  * Squares Problems, ch. 23).
  */
-export function nonNegativeFit(basis: Float64Array[], y: Float64Array, w: Float64Array, groups: number[]): Float64Array {
+export function nonNegativeFit(basis: Float64Array[], y: Float64Array, w: Float64Array, groups: number[], support = profileSupports(basis, w)): Float64Array {
   const m = basis.length;
   const a = new Float64Array(m);
   const ata = Array.from({ length: m }, () => new Array<number>(m).fill(0));
   const aty = new Array<number>(m).fill(0);
-  const support = basis.map((b) => {
-    const idx: number[] = [];
-    for (let i = 0; i < b.length; i++) if (b[i] !== 0 && w[i] > 0) idx.push(i);
-    return idx;
-  });
   for (let g = 0; g < m; g++) {
-    for (const i of support[g]) aty[g] += w[i] * basis[g][i] * y[i];
+    const sg = support[g];
+    for (const i of sg) aty[g] += w[i] * basis[g][i] * y[i];
     for (let h = g; h < m; h++) {
+      // Only where both profiles are non-zero: the other terms are exactly 0.
+      const sh = support[h];
+      if (!sg.length || !sh.length || sg[sg.length - 1] < sh[0] || sh[sh.length - 1] < sg[0]) continue;
       let s = 0;
-      for (const i of support[g]) s += w[i] * basis[g][i] * basis[h][i];
+      for (const i of sg) if (i >= sh[0] && i <= sh[sh.length - 1]) s += w[i] * basis[g][i] * basis[h][i];
       ata[g][h] = ata[h][g] = s;
     }
   }
@@ -78,11 +86,12 @@ export function nonNegativeFit(basis: Float64Array[], y: Float64Array, w: Float6
 /** Work arrays of templateChi2 for one set of wavelengths, reused from one z to the next. */
 export interface Chi2Scratch {
   rest: Float64Array;
+  model: Float64Array;
   basis: Float64Array[];
 }
 
 export function chi2Scratch(length: number): Chi2Scratch {
-  return { rest: new Float64Array(length), basis: [] };
+  return { rest: new Float64Array(length), model: new Float64Array(length), basis: [] };
 }
 
 /**
@@ -93,12 +102,12 @@ export function templateChi2(template: Template, z: number, wave: Float64Array, 
   const { rest } = scratch;
   for (let k = 0; k < wave.length; k++) rest[k] = wave[k] / (1 + z);
   const { basis } = templateBasis(template, rest, instSigmaKmS, scratch.basis);
-  const amplitude = nonNegativeFit(basis, y, w, basis.map((_, g) => g));
+  const support = profileSupports(basis, w);
+  const amplitude = nonNegativeFit(basis, y, w, basis.map((_, g) => g), support);
+  // The model matters only where the weight is positive, and there each profile only on its support.
+  const model = scratch.model.fill(0);
+  for (let g = 0; g < basis.length; g++) if (amplitude[g] !== 0) for (const k of support[g]) model[k] += amplitude[g] * basis[g][k];
   let chi2 = 0;
-  for (let k = 0; k < y.length; k++) {
-    let m = 0;
-    for (let g = 0; g < basis.length; g++) m += amplitude[g] * basis[g][k];
-    chi2 += w[k] * (y[k] - m) ** 2;
-  }
+  for (let k = 0; k < y.length; k++) chi2 += w[k] * (y[k] - model[k]) ** 2;
   return { chi2, nFree: 1 + basis.length };
 }
