@@ -19,6 +19,8 @@ export interface CorrelationInput {
   weight: Float64Array;
   /** Native pixels per pixel of this grid (1 = the native grid). */
   binFactor: number;
+  /** Names the grid's step and bin factor in cache keys. */
+  gridKey: string;
 }
 
 /** On which grid a template is correlated, and whether its peaks are then described on the native grid. */
@@ -69,7 +71,7 @@ export function pixelSigmaKmS(input: CorrelationInput): number {
 }
 
 export function nativeInput(p: PreparedSpectrum): CorrelationInput {
-  return { grid: p.grid, resid: p.resid, weight: p.weight, binFactor: 1 };
+  return { grid: p.grid, resid: p.resid, weight: p.weight, binFactor: 1, gridKey: `1:${p.grid.step}` };
 }
 
 /** The spectrum binned by k: coarse pixel I holds native absolute pixels [kI, kI + k). */
@@ -88,5 +90,5 @@ export function binnedInput(p: PreparedSpectrum, k: number): CorrelationInput {
     resid[I] += w * p.resid[j];
   }
   for (let I = 0; I < cLength; I++) if (weight[I] > 0) resid[I] /= weight[I];
-  return { grid: { step: k * step, start: cStart, length: cLength }, resid, weight, binFactor: k };
+  return { grid: { step: k * step, start: cStart, length: cLength }, resid, weight, binFactor: k, gridKey: `${k}:${step}` };
 }

@@ -16,7 +16,7 @@
  * interval of rest wavelengths, so the sums over it are differences of running sums, not
  * transforms.
  */
-import { complexFft, forwardRealPair, nextPowerOfTwo, type ComplexFft } from './fft.js';
+import { complexFft, forwardPackedPair, forwardRealPair, nextPowerOfTwo, type ComplexFft } from './fft.js';
 import { binnedInput, gridChoiceFor, pixelSigmaKmS, type CorrelationInput } from './coarse-grid.js';
 import type { PreparedSpectrum } from './preprocess.js';
 import { TD_MIN_WINDOW_LAGS, TD_WINDOW_WIDTHS } from './peaks.js';
@@ -127,7 +127,7 @@ function templateFftSize(lay: Layout, supportLo: number, supportHi: number): num
 function bankEntry(t: Template, input: CorrelationInput, lay: Layout): BankEntry {
   const { step } = input.grid;
   const instKmS = pixelSigmaKmS(input);
-  return bank.get(`${t.name}|${step}|${instKmS}|${lay.templateOrigin}|${lay.templateLength}|${lay.specLength}`, () => {
+  return bank.get(`${t.name}|${input.gridKey}|${lay.templateOrigin}|${lay.templateLength}|${lay.specLength}`, () => {
     const n = lay.templateLength;
     const wave = new Float64Array(n);
     for (let i = 0; i < n; i++) wave[i] = Math.exp((lay.templateOrigin + i) * step);
@@ -164,24 +164,27 @@ interface SpectrumTransforms {
   nGood: number;
 }
 
-/** Work buffers per FFT size, reused from spectrum to spectrum (one correlation at a time per thread). */
+/**
+ * Work buffers per grid and FFT size, reused from spectrum to spectrum (one correlation at a time
+ * per thread); per grid, because a spectrum's transforms on one grid are kept while templates on
+ * another grid run.
+ */
 interface Scratch {
-  a: Float64Array;
-  b: Float64Array;
   s2Sum: Float64Array;
   goodSum: Float64Array;
   /** Interleaved complex buffers. */
   z: Float64Array[];
 }
 
-const scratchBySize = new Map<number, Scratch>();
+const scratchByGrid = new Map<string, Scratch>();
 
-function scratchFor(fft: ComplexFft): Scratch {
-  let s = scratchBySize.get(fft.size);
+function scratchFor(fft: ComplexFft, binFactor: number): Scratch {
+  const key = `${binFactor}|${fft.size}`;
+  let s = scratchByGrid.get(key);
   if (!s) {
     const n = fft.size;
-    s = { a: new Float64Array(n), b: new Float64Array(n), s2Sum: new Float64Array(n + 1), goodSum: new Float64Array(n + 1), z: Array.from({ length: 6 }, () => fft.buffer()) };
-    scratchBySize.set(n, s);
+    s = { s2Sum: new Float64Array(n + 1), goodSum: new Float64Array(n + 1), z: Array.from({ length: 5 }, () => fft.buffer()) };
+    scratchByGrid.set(key, s);
   }
   return s;
 }
@@ -189,26 +192,24 @@ function scratchFor(fft: ComplexFft): Scratch {
 function spectrumTransforms(p: CorrelationInput, lay: Layout, fft: ComplexFft): SpectrumTransforms {
   const n = fft.size;
   const off = p.grid.start - lay.specOrigin;
-  const { a, b, z, s2Sum, goodSum } = scratchFor(fft);
-  a.fill(0);
-  b.fill(0);
-  s2Sum.fill(0);
-  goodSum.fill(0);
+  const { z, s2Sum, goodSum } = scratchFor(fft, p.binFactor);
+  // z[3…4] hold the transforms kept while this spectrum's templates run; z[0…2] are scratch.
+  const [, , packed, sw, ww] = z;
+  packed.fill(0);
+  s2Sum.fill(0, 0, off + 1);
+  goodSum.fill(0, 0, off + 1);
   let nGood = 0;
   for (let i = 0; i < p.grid.length; i++) {
-    const w = p.weight[i];
-    a[off + i] = w * p.resid[i];
-    b[off + i] = w;
-  }
-  for (let j = 0; j < n; j++) {
-    const i = j - off, w = i >= 0 && i < p.grid.length ? p.weight[i] : 0;
+    const w = p.weight[i], j = off + i;
+    packed[2 * j] = w * p.resid[i];
+    packed[2 * j + 1] = w;
     s2Sum[j + 1] = s2Sum[j] + (w > 0 ? w * p.resid[i] * p.resid[i] : 0);
     goodSum[j + 1] = goodSum[j] + (w > 0 ? 1 : 0);
     if (w > 0) nGood++;
   }
-  // z[4…5] hold the transforms kept while this spectrum's templates run; z[0…3] are scratch.
-  const [, , scratch, , sw, ww] = z;
-  forwardRealPair(fft, a, b, sw, ww, scratch);
+  s2Sum.fill(s2Sum[off + p.grid.length], off + p.grid.length + 1);
+  goodSum.fill(goodSum[off + p.grid.length], off + p.grid.length + 1);
+  forwardPackedPair(fft, packed, sw, ww);
   for (let k = 0; k < n; k++) {
     sw[2 * k + 1] = -sw[2 * k + 1];
     ww[2 * k + 1] = -ww[2 * k + 1];
@@ -237,7 +238,7 @@ export function correlate(p: PreparedSpectrum, templates: TemplateUse[]): Correl
 function correlateOne(p: CorrelationInput, template: Template, e: BankEntry, lay: Layout, st: SpectrumTransforms, margin: number): CorrelationCurveData {
   const { fft } = e;
   const n = fft.size;
-  const [x, cx] = scratchFor(fft).z;
+  const [x, cx] = scratchFor(fft, p.binFactor).z;
   for (let k = 0; k < n; k++) {
     const re = 2 * k, im = re + 1;
     // conj(SW)·T + i·conj(W)·T2

@@ -51,11 +51,16 @@ export function nextPowerOfTwo(n: number): number {
  */
 export function forwardRealPair(fft: ComplexFft, a: Float64Array, b: Float64Array, outA: Float64Array, outB: Float64Array, scratch: Float64Array): void {
   const n = fft.size;
-  const packed = scratch;
   for (let i = 0; i < n; i++) {
-    packed[2 * i] = i < a.length ? a[i] : 0;
-    packed[2 * i + 1] = i < b.length ? b[i] : 0;
+    scratch[2 * i] = i < a.length ? a[i] : 0;
+    scratch[2 * i + 1] = i < b.length ? b[i] : 0;
   }
+  forwardPackedPair(fft, scratch, outA, outB);
+}
+
+/** As forwardRealPair, with a and b already packed as packed[2i] = a[i], packed[2i+1] = b[i] (packed is overwritten). */
+export function forwardPackedPair(fft: ComplexFft, packed: Float64Array, outA: Float64Array, outB: Float64Array): void {
+  const n = fft.size;
   fft.forward(outA, packed);
   const z = outA;
   // Unpack in place into outA/outB using a copy of Z held in packed.

@@ -6,7 +6,7 @@
  * template is sparse (lines over ±5σ), so the direct sums cost (window lags) × (template pixels).
  */
 import { CORRELATION_STRENGTH_POWER, coveredRange, MIN_OVERLAP, sigmaAMarginLags, type CorrelationCurveData } from './correlate.js';
-import { nativeInput, pixelSigmaKmS } from './coarse-grid.js';
+import { nativeInput, pixelSigmaKmS, type CorrelationInput } from './coarse-grid.js';
 import { describePeak, TD_MIN_WINDOW_LAGS, TD_WINDOW_WIDTHS, type Peak } from './peaks.js';
 import type { PreparedSpectrum } from './preprocess.js';
 import type { TemplateUse } from './template-set.js';
@@ -32,8 +32,9 @@ interface SparseProfile {
 
 const profiles = new LruCache<string, SparseProfile>(PROFILE_CACHE_SIZE);
 
-function sparseProfile(template: Template, step: number, instKmS: number): SparseProfile {
-  return profiles.get(`${template.name}|${step}|${instKmS}`, () => {
+function sparseProfile(template: Template, input: CorrelationInput): SparseProfile {
+  const { step } = input.grid, instKmS = pixelSigmaKmS(input);
+  return profiles.get(`${template.name}|${input.gridKey}`, () => {
     let [waveLo, waveHi] = template.restRangeAngstrom;
     for (const l of template.lines) {
       const reach = (PROFILE_SIGMAS * Math.hypot(l.sigmaKmS, instKmS)) / SPEED_OF_LIGHT_KMS;
@@ -100,7 +101,7 @@ function nativeWindow(p: PreparedSpectrum, coarse: CorrelationCurveData, use: Te
   const searchMin = Math.floor(Math.log1p(use.zMin) / step) - 1, searchMax = Math.ceil(Math.log1p(use.zMax) / step) + 1;
   const la = Math.max(centre - half, searchMin - margin), lb = Math.min(centre + half, searchMax + margin);
   const nLag = Math.max(0, lb - la + 1);
-  const sp = sparseProfile(template, step, pixelSigmaKmS(native));
+  const sp = sparseProfile(template, native);
   const sums = spectrumSums(p);
   const nGood = sums.goodSum[length];
   const c = new Float64Array(nLag), t2 = new Float64Array(nLag);
@@ -146,13 +147,13 @@ export interface NativeLocation {
 }
 
 /**
- * The best local maximum of the native-grid correlation within a coarse lag of the coarse peak
- * (a few lags summed: cheap enough for every coarse peak), or null when there is none.
+ * The best local maximum of the native-grid correlation within about half a coarse lag of the
+ * interpolated coarse peak (a few lags summed: cheap enough for every coarse peak), or null.
  */
 export function locateOnNativeGrid(p: PreparedSpectrum, coarse: CorrelationCurveData, use: TemplateUse, peak: Peak): NativeLocation | null {
-  const k = coarse.binFactor;
-  const centre = Math.round(peak.lag * k);
-  const win = nativeWindow(p, coarse, use, centre, k + 2);
+  // The interpolated coarse peak is within half a coarse lag of the native one.
+  const centre = Math.round(peak.lag * coarse.binFactor);
+  const win = nativeWindow(p, coarse, use, centre, Math.ceil(coarse.binFactor / 2) + 2);
   const { rho, score } = win;
   let best = -1;
   const from = Math.max(win.searchLo + 2, 1), to = Math.min(win.searchHi - 2, rho.length - 2);

@@ -64,10 +64,11 @@ export function rebinFluxConserving(waveAngstrom: Float64Array, flux: Float64Arr
   const outVar = new Float64Array(m);
   const outGood = new Uint8Array(m);
   const n = waveAngstrom.length;
+  const outEdges = new Float64Array(m + 1);
+  for (let j = 0; j <= m; j++) outEdges[j] = Math.exp((grid.start + j - 0.5) * grid.step);
   let i = 0;
   for (let j = 0; j < m; j++) {
-    const lo = Math.exp((grid.start + j - 0.5) * grid.step);
-    const hi = Math.exp((grid.start + j + 0.5) * grid.step);
+    const lo = outEdges[j], hi = outEdges[j + 1];
     while (i < n && inEdges[i + 1] <= lo) i++;
     let fsum = 0, vsum = 0, cov = 0;
     for (let k = i; k < n && inEdges[k] < hi; k++) {

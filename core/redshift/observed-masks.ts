@@ -2,6 +2,7 @@
  * Observed-frame regions that carry no information about the object: the telluric O₂ bands and
  * the brightest night-sky emission lines, whose subtraction residuals masquerade as lines.
  */
+import { lowerBound } from './templates.js';
 
 /** Telluric O₂ A (≈7590–7700 Å) and B (≈6860–6960 Å) bands (DESIGN.md; common practice). */
 export const TELLURIC_BANDS_ANGSTROM: readonly [number, number][] = [
@@ -19,12 +20,10 @@ export const SKY_LINES_VACUUM_ANGSTROM: readonly number[] = [5578.89, 5891.58, 5
 /** Half-width of the mask around a sky line, Å (common practice, no source). */
 const SKY_HALF_WIDTH_ANGSTROM = 5;
 
-/** Sets good[i] = 0 for pixels in the masked regions. */
+/** Sets good[i] = 0 for pixels in the masked regions (wavelengths ascending, as every reader gives them). */
 export function applyObservedMasks(waveAngstrom: Float64Array, good: Uint8Array, opts: { telluric: boolean; sky: boolean }): void {
-  const n = waveAngstrom.length;
-  for (let i = 0; i < n; i++) {
-    const w = waveAngstrom[i];
-    if (opts.telluric) for (const [lo, hi] of TELLURIC_BANDS_ANGSTROM) if (w >= lo && w <= hi) good[i] = 0;
-    if (opts.sky) for (const c of SKY_LINES_VACUUM_ANGSTROM) if (Math.abs(w - c) <= SKY_HALF_WIDTH_ANGSTROM) good[i] = 0;
-  }
+  const regions: (readonly [number, number])[] = [];
+  if (opts.telluric) regions.push(...TELLURIC_BANDS_ANGSTROM);
+  if (opts.sky) for (const c of SKY_LINES_VACUUM_ANGSTROM) regions.push([c - SKY_HALF_WIDTH_ANGSTROM, c + SKY_HALF_WIDTH_ANGSTROM]);
+  for (const [lo, hi] of regions) for (let i = lowerBound(waveAngstrom, lo); i < waveAngstrom.length && waveAngstrom[i] <= hi; i++) good[i] = 0;
 }
