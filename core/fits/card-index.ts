@@ -88,11 +88,11 @@ function isCapitalHierarch(bytes: Uint8Array, at: number): boolean {
 /** An upper-cased key as words; undefined when no card key can equal it. */
 function keyWords(key: string): KeyWords | undefined {
   if (key.length > 8 || key.endsWith(' ')) return undefined;
-  const bytes = new Uint8Array(8).fill(0x20);
-  for (let j = 0; j < key.length; j++) {
-    const c = key.charCodeAt(j);
+  const words: KeyWords = [0, 0];
+  for (let j = 0; j < 8; j++) {
+    const c = j < key.length ? key.charCodeAt(j) : 0x20;
     if (c < 0x20 || c > 0x7e || (c >= 0x61 && c <= 0x7a)) return undefined;
-    bytes[j] = c;
+    words[j >> 2] |= c << (24 - 8 * (j & 3));
   }
-  return [word(bytes, 0), word(bytes, 4)];
+  return words;
 }

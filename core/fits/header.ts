@@ -5,6 +5,7 @@
  * a string ending in '&' continues in the next CONTINUE card's string.
  */
 
+import { cardFromBytes } from './card-from-bytes.js';
 import { CardIndex } from './card-index.js';
 
 export type CardValue = string | number | boolean | null;
@@ -46,7 +47,11 @@ export class FitsHeader {
   }
 
   get cards(): readonly FitsCard[] {
-    this.parsed ??= joinContinued(this.cardImages(0, this.bytes!.length / CARD_LENGTH).map(parseCard));
+    if (!this.parsed) {
+      const all: FitsCard[] = [];
+      for (let i = 0; i < this.bytes!.length / CARD_LENGTH; i++) all.push(this.parseOne(i));
+      this.parsed = joinContinued(all);
+    }
     return this.parsed;
   }
 
@@ -54,6 +59,13 @@ export class FitsHeader {
     const k = key.toUpperCase();
     if (this.bytes === undefined || this.parsed || k === 'CONTINUE') return this.card(key) !== undefined;
     return this.cardIndex(this.bytes).find(k) !== undefined;
+  }
+
+  /** The card images as read (Latin-1, nothing blanked); undefined for a header built from parsed cards. */
+  cardText(): string | undefined {
+    if (this.bytes === undefined) return undefined;
+    this.text ??= LATIN1.decode(this.bytes);
+    return this.text;
   }
 
   value(key: string): CardValue | undefined {
@@ -67,7 +79,7 @@ export class FitsHeader {
   /** String value, trimmed of trailing blanks (FITS 4.0 §4.2.1: they are not significant). */
   string(key: string): string | undefined {
     const v = this.value(key);
-    if (typeof v === 'string') return endsInBlank(v) ? v.replace(/\s+$/, '') : v;
+    if (typeof v === 'string') return v.trimEnd();
     if (typeof v === 'number') return String(v);
     return undefined;
   }
@@ -105,8 +117,13 @@ export class FitsHeader {
     if (at === undefined) return undefined;
     let end = at + 1;
     while (end * CARD_LENGTH < this.bytes.length && isContinue(this.bytes, end * CARD_LENGTH)) end++;
-    if (end === at + 1) return parseCard(this.cardImages(at, end)[0]);
+    if (end === at + 1) return this.parseOne(at);
     return joinContinued(this.cardImages(at, end).map(parseCard))[0];
+  }
+
+  private parseOne(i: number): FitsCard {
+    this.text ??= LATIN1.decode(this.bytes);
+    return cardFromBytes(this.bytes!, this.text, i * CARD_LENGTH) ?? parseCard(this.cardImages(i, i + 1)[0]);
   }
 
   private cardIndex(bytes: Uint8Array): CardIndex {
@@ -131,17 +148,10 @@ export function printable(text: string): string {
   return /[^\x20-\x7e]/.test(text) ? text.replace(/[^\x20-\x7e]/g, ' ') : text;
 }
 
-const CONTINUE_BYTES = [0x43, 0x4f, 0x4e, 0x54, 0x49, 0x4e, 0x55, 0x45];
-
 /** The card at `at` has the keyword CONTINUE. */
 function isContinue(bytes: Uint8Array, at: number): boolean {
-  return CONTINUE_BYTES.every((c, j) => bytes[at + j] === c);
-}
-
-/** True when the text may end in white space (\s: code ≤ 32, or ≥ 0xA0 for the Unicode blanks). */
-function endsInBlank(text: string): boolean {
-  const c = text.charCodeAt(text.length - 1);
-  return !(c > 32 && c < 127);
+  for (let j = 0; j < 8; j++) if (bytes[at + j] !== 'CONTINUE'.charCodeAt(j)) return false;
+  return true;
 }
 
 /** The first occurrence of a keyword wins, as in most FITS readers. */
@@ -156,9 +166,35 @@ function firstByKey(cards: readonly FitsCard[]): Map<string, FitsCard> {
 
 /** Parses a FITS integer or float ('1.5D3' allowed); null when the text is not a number. */
 export function parseFitsNumber(text: string): number | null {
-  if (!/^[+-]?(\d+\.?\d*|\.\d+)([EeDd][+-]?\d+)?$/.test(text)) return null;
-  const n = Number(text.replace(/[Dd]/, 'E'));
+  if (!isFitsNumber(text)) return null;
+  const n = Number(text.includes('D') || text.includes('d') ? text.replace(/[Dd]/, 'E') : text);
   return Number.isFinite(n) ? n : null;
+}
+
+/** The grammar /^[+-]?(\d+\.?\d*|\.\d+)([EeDd][+-]?\d+)?$/, checked without a pattern (it is hot). */
+function isFitsNumber(text: string): boolean {
+  let i = 0;
+  const at = (j: number) => text.charCodeAt(j);
+  const digits = () => {
+    const from = i;
+    while (at(i) >= 0x30 && at(i) <= 0x39) i++;
+    return i - from;
+  };
+  if (at(i) === 0x2b || at(i) === 0x2d) i++;
+  const whole = digits();
+  let fraction = 0;
+  if (at(i) === 0x2e) {
+    i++;
+    fraction = digits();
+  }
+  if (whole === 0 && fraction === 0) return false;
+  const e = at(i) | 0x20; // lower-cased letter
+  if (e === 0x65 || e === 0x64) {
+    i++;
+    if (at(i) === 0x2b || at(i) === 0x2d) i++;
+    if (digits() === 0) return false;
+  }
+  return i === text.length;
 }
 
 /** Parses one 80-character card image. */

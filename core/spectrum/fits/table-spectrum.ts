@@ -5,18 +5,42 @@
  * al. 2012, ApJS 200, 13). SDSS: λ = 10^loglam; σ = 1/√ivar, ivar = 0 bad; and_mask ≠ 0 bad
  * (SDSS data model, spec file HDU 1).
  */
+import { CARD_LENGTH, type FitsHeader } from '../../fits/header.js';
 import { columnNames, openTable, type FitsTable, type TableColumn } from '../../fits/table.js';
-import { ERROR_KIND, ERROR_ROLES, findByRole, type ColumnRole, maskFrom, sdssMaskFrom, sigmaFrom } from '../columns.js';
+import { COLUMN_NAMES, ERROR_KIND, ERROR_ROLES, findByRole, type ColumnRole, maskFrom, sdssMaskFrom, sigmaFrom } from '../columns.js';
 import { mediumFromName } from '../medium.js';
 import { guessWaveUnit, parseWaveUnit, type WaveUnit } from '../units.js';
 import { powersOfTen } from './powers-of-ten.js';
 import { bunit, headerParts, type HduContext, type LayoutDraft, type LayoutVerdict } from './layout.js';
 import { GRISM_DEFAULTS, sdssDefaults } from './surveys.js';
 
+/** A quote, blanks (or bytes read as blanks), then a wavelength column name; longest names first. */
+const WAVE_NAME_TEXT = new RegExp(
+  `'[\\s\\x00-\\x1f\\x7f-\\uffff]*(${[...COLUMN_NAMES.wave, ...COLUMN_NAMES.loglam].sort((a, b) => b.length - a.length).join('|')})`,
+  'gi',
+);
+
+/**
+ * False only when no TTYPEn can name a wavelength column: such a string card holds the name
+ * in quotes, with only blanks between it and the closing quote or the end of its card (or it
+ * is built from CONTINUE cards).
+ */
+function mayNameWavelength(header: FitsHeader): boolean {
+  const text = header.cardText();
+  if (text === undefined || text.includes('CONTINUE')) return true;
+  for (const m of text.matchAll(WAVE_NAME_TEXT)) {
+    const end = m.index + m[0].length;
+    const next = text.charCodeAt(end);
+    if (end % CARD_LENGTH === 0 || !(next > 0x20 && next <= 0x7e) || next === 0x27) return true;
+  }
+  return false;
+}
+
 export function matchTable(ctx: HduContext): LayoutVerdict {
   const { hdu } = ctx;
   if (hdu.kind !== 'bintable' && hdu.kind !== 'ascii-table') return undefined;
   // Tables that lack the columns by name (survey metadata, line fits) are passed over unopened.
+  if (!mayNameWavelength(hdu.header)) return 'table without a wavelength column';
   const names = columnNames(hdu);
   if (names) {
     const lower = new Set(names.map((n) => n.toLowerCase()));
