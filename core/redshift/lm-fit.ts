@@ -29,8 +29,13 @@ export interface LmResult {
 
 /** Default iteration cap; fits here start near the answer and take a handful. */
 export const LM_MAX_ITERATIONS = 20;
-/** Stop when an accepted step improves χ² by less than this fraction. */
+/** Stop when an accepted step improves χ² by less than this fraction… */
 export const LM_RELATIVE_TOLERANCE = 1e-6;
+/**
+ * …or moves the parameters by less than this many standard errors (δᵀ·JᵀWJ·δ below its square):
+ * what is left to go is then smaller still (common practice, no source).
+ */
+export const LM_STEP_TOLERANCE = 0.05;
 
 export function lmFit(prob: LmProblem, start: Float64Array, maxIterations = LM_MAX_ITERATIONS, relTol = LM_RELATIVE_TOLERANCE): LmResult {
   const nP = start.length;
@@ -58,7 +63,7 @@ export function lmFit(prob: LmProblem, start: Float64Array, maxIterations = LM_M
       moving[nM++] = i;
     }
     if (nM === 0) break;
-    let accepted = false, gain = 0;
+    let accepted = false, gain = 0, stepSigmas2 = Infinity;
     while (damping < 1e10) {
       for (let u = 0; u < nM; u++) {
         const i = moving[u];
@@ -78,6 +83,8 @@ export function lmFit(prob: LmProblem, start: Float64Array, maxIterations = LM_M
       const c = prob.linearise(trial, free, aTrial, gTrial);
       if (c < chi2) {
         gain = (chi2 - c) / Math.max(c, 1e-300);
+        stepSigmas2 = 0;
+        for (let u = 0; u < nM; u++) for (let v = 0; v < nM; v++) stepSigmas2 += step[u] * a[moving[u] * nF + moving[v]] * step[v];
         p.set(trial);
         chi2 = c;
         [a, aTrial] = [aTrial, a];
@@ -88,7 +95,7 @@ export function lmFit(prob: LmProblem, start: Float64Array, maxIterations = LM_M
       }
       damping *= 10;
     }
-    if (!accepted || gain < relTol) break;
+    if (!accepted || gain < relTol || stepSigmas2 < LM_STEP_TOLERANCE ** 2) break;
   }
   return { p, chi2, free, normal: a, iterations: it + 1 };
 }

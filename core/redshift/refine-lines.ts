@@ -92,10 +92,18 @@ function usablePixels(nr: NativeResidual, line: ProfileLine, z: number): number 
   return k;
 }
 
+/** The model at every point and its derivatives in v and in the narrow and broad σ. */
+interface ModelSums {
+  model: Float64Array;
+  dv: Float64Array;
+  dNarrow: Float64Array;
+  dBroad: Float64Array;
+}
+
 /**
- * Each line's unit-amplitude profile (its ratio in its group included) at the pixels xs, and its
- * derivatives in v and in its σ, over the points within PROFILE_REACH of its centre (found by
- * bisection in the sorted wavelengths). Parameters as in the fit: [v, σ_narrow, σ_broad, A_0 …].
+ * Each line's unit-amplitude profile (its ratio in its group included) at the pixels xs, over the
+ * points within PROFILE_REACH of its centre (found by bisection in the sorted wavelengths).
+ * Parameters as in the fit: [v, σ_narrow, σ_broad, A_0 …].
  */
 class LineProfiles {
   readonly comps: Component[];
@@ -105,8 +113,6 @@ class LineProfiles {
   readonly to: Int32Array;
   readonly at: Int32Array;
   phi = new Float64Array(0);
-  dPhiDv = new Float64Array(0);
-  dPhiDs = new Float64Array(0);
   private readonly z0: number;
   private readonly inst: number;
   private readonly centre: Float64Array;
@@ -125,7 +131,8 @@ class LineProfiles {
     this.width = new Float64Array(n);
   }
 
-  compute(p: Float64Array): void {
+  /** The profiles at p; with `sums` (zeroed), also adds the model and its derivatives there. */
+  compute(p: Float64Array, sums?: ModelSums): void {
     const { comps, xs, z0 } = this;
     const zf = (1 + z0) * (1 + p[0] / SPEED_OF_LIGHT_KMS);
     for (let c = 0; c < comps.length; c++) {
@@ -142,12 +149,8 @@ class LineProfiles {
       this.at[c + 1] = this.at[c] + to - from;
     }
     const total = this.at[comps.length];
-    if (this.phi.length < total) {
-      this.phi = new Float64Array(2 * total);
-      this.dPhiDv = new Float64Array(2 * total);
-      this.dPhiDs = new Float64Array(2 * total);
-    }
-    const { phi, dPhiDv, dPhiDs } = this;
+    if (this.phi.length < total) this.phi = new Float64Array(2 * total);
+    const { phi } = this;
     for (let c = 0; c < comps.length; c++) {
       const comp = comps[c];
       const centre = this.centre[c], sA = this.width[c];
@@ -157,12 +160,23 @@ class LineProfiles {
       // ∂φ/∂c = φ·u/s, ∂c/∂v = λ_rest(1+z0)/C; ∂φ/∂s = φ(u² − 1)/s, ∂s/∂σv = c·σv/(C·stot)
       const dcdv = (comp.line.waveRestAngstrom * (1 + z0)) / SPEED_OF_LIGHT_KMS / sA;
       const dsdsv = (centre * sv) / (SPEED_OF_LIGHT_KMS * stot) / sA;
-      for (let k = this.from[c], q = this.at[c]; k < this.to[c]; k++, q++) {
+      const from = this.from[c], to = this.to[c], at = this.at[c];
+      if (!sums) {
+        for (let k = from; k < to; k++) {
+          const u = (xs[k] - centre) / sA;
+          phi[at + k - from] = norm * Math.exp(-0.5 * u * u);
+        }
+        continue;
+      }
+      const amp = p[3 + comp.group], { model, dv } = sums, ds = comp.broad ? sums.dBroad : sums.dNarrow;
+      for (let k = from; k < to; k++) {
         const u = (xs[k] - centre) / sA;
         const g = norm * Math.exp(-0.5 * u * u);
-        phi[q] = g;
-        dPhiDv[q] = g * u * dcdv;
-        dPhiDs[q] = g * (u * u - 1) * dsdsv;
+        phi[at + k - from] = g;
+        const ag = amp * g;
+        model[k] += ag;
+        dv[k] += ag * u * dcdv;
+        ds[k] += ag * (u * u - 1) * dsdsv;
       }
     }
   }
@@ -224,6 +238,7 @@ function lineProblem(profiles: LineProfiles, nGroups: number, ys: Float64Array, 
   const nY = ys.length, { comps } = profiles;
   const model = new Float64Array(nY), resid = new Float64Array(nY);
   const dv = new Float64Array(nY), dn = new Float64Array(nY), db = new Float64Array(nY);
+  const sumsAt: ModelSums = { model, dv, dNarrow: dn, dBroad: db };
   const gram = new Float64Array(nGroups * nGroups);
   const at = new Int32Array(3 + nGroups);
   const sums = new Float64Array(9);
@@ -231,21 +246,13 @@ function lineProblem(profiles: LineProfiles, nGroups: number, ys: Float64Array, 
     lower,
     upper,
     linearise(p, free, normal, gradient) {
-      profiles.compute(p);
-      const { phi, dPhiDv, dPhiDs, from, to } = profiles;
-      const start = profiles.at;
       model.fill(0);
       dv.fill(0);
       dn.fill(0);
       db.fill(0);
-      for (let c = 0; c < comps.length; c++) {
-        const a = p[3 + comps[c].group], ds = comps[c].broad ? db : dn;
-        for (let k = from[c], q = start[c]; k < to[c]; k++, q++) {
-          model[k] += a * phi[q];
-          dv[k] += a * dPhiDv[q];
-          ds[k] += a * dPhiDs[q];
-        }
-      }
+      profiles.compute(p, sumsAt);
+      const { phi, from, to } = profiles;
+      const start = profiles.at;
       // χ², and the v and width rows of JᵀWJ and JᵀW(y − model), in one pass.
       let chi2 = 0;
       sums.fill(0);
