@@ -10,8 +10,9 @@ export function robustContinuum(flux: Float64Array, good: Uint8Array, blockPixel
   const use = Uint8Array.from(good);
   const scratch = new Float64Array(n);
   const blocks = new BlockMedians(n, blockPixels);
+  const cont = new Float64Array(n);
   blocks.update(flux, use, scratch, null);
-  let cont = blocks.interpolate();
+  blocks.interpolate(cont);
   const touched = new Uint8Array(blocks.count);
   for (let it = 0; it < iterations; it++) {
     let k = 0;
@@ -19,19 +20,23 @@ export function robustContinuum(flux: Float64Array, good: Uint8Array, blockPixel
     if (k < 10) break;
     const sigma = 1.4826 * medianInPlace(scratch, k);
     if (!(sigma > 0)) break;
+    const limit = clipSigma * sigma;
     let changed = false;
-    touched.fill(0);
-    for (let i = 0; i < n; i++) {
-      if (use[i] && Math.abs(flux[i] - cont[i]) > clipSigma * sigma) {
-        use[i] = 0;
-        touched[blocks.blockOf(i)] = 1;
-        changed = true;
+    for (let b = 0; b < blocks.count; b++) {
+      let hit = 0;
+      for (let i = blocks.lo(b), end = blocks.lo(b + 1); i < end; i++) {
+        if (use[i] && Math.abs(flux[i] - cont[i]) > limit) {
+          use[i] = 0;
+          hit = 1;
+        }
       }
+      touched[b] = hit;
+      if (hit) changed = true;
     }
     if (!changed) break;
     // Only the blocks that lost pixels get a new median.
     blocks.update(flux, use, scratch, touched);
-    cont = blocks.interpolate();
+    blocks.interpolate(cont);
   }
   return cont;
 }
@@ -53,15 +58,9 @@ class BlockMedians {
     this.valid = new Uint8Array(this.count);
   }
 
-  private lo(b: number): number {
+  /** First pixel of block b (b = count gives n). */
+  lo(b: number): number {
     return Math.floor((b * this.n) / this.count);
-  }
-
-  blockOf(i: number): number {
-    let b = Math.min(this.count - 1, Math.floor((i * this.count) / this.n));
-    while (b > 0 && this.lo(b) > i) b--;
-    while (b < this.count - 1 && this.lo(b + 1) <= i) b++;
-    return b;
   }
 
   /** Recomputes the blocks flagged in `which` (all when null). */
@@ -78,25 +77,23 @@ class BlockMedians {
     }
   }
 
-  /** The block medians joined by straight lines, flat beyond the outer ones. */
-  interpolate(): Float64Array {
-    const xs: number[] = [];
-    const ys: number[] = [];
-    for (let b = 0; b < this.count; b++) if (this.valid[b]) { xs.push(this.x[b]); ys.push(this.y[b]); }
+  /** The block medians joined by straight lines into cont, flat beyond the outer ones (NaN when no block counts). */
+  interpolate(cont: Float64Array): void {
+    const xs = new Float64Array(this.count), ys = new Float64Array(this.count);
+    let m = 0;
+    for (let b = 0; b < this.count; b++) if (this.valid[b]) { xs[m] = this.x[b]; ys[m] = this.y[b]; m++; }
     const n = this.n;
-    const cont = new Float64Array(n);
-    if (ys.length === 0) return cont.fill(NaN);
-    let s = 0;
-    for (let i = 0; i < n; i++) {
-      while (s < xs.length - 2 && i > xs[s + 1]) s++;
-      if (ys.length === 1 || i <= xs[0]) cont[i] = ys[0];
-      else if (i >= xs[xs.length - 1]) cont[i] = ys[ys.length - 1];
-      else {
-        const t = (i - xs[s]) / (xs[s + 1] - xs[s]);
-        cont[i] = ys[s] + t * (ys[s + 1] - ys[s]);
-      }
+    if (m <= 1) {
+      cont.fill(m === 1 ? ys[0] : NaN);
+      return;
     }
-    return cont;
+    let i = 0;
+    for (; i < n && i <= xs[0]; i++) cont[i] = ys[0];
+    for (let s = 0; s < m - 1; s++) {
+      const x0 = xs[s], dx = xs[s + 1] - x0, y0 = ys[s], dy = ys[s + 1] - y0;
+      for (; i < n && i <= xs[s + 1] && i < xs[m - 1]; i++) cont[i] = y0 + ((i - x0) / dx) * dy;
+    }
+    for (; i < n; i++) cont[i] = ys[m - 1];
   }
 }
 
