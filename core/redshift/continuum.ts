@@ -113,35 +113,46 @@ export function medianInPlace(a: Float64Array, n: number): number {
   return 0.5 * (lo + hi);
 }
 
-/** The k-th smallest of a[0…n−1]; afterwards a[0…k−1] ≤ a[k] ≤ a[k+1…n−1]. */
+/**
+ * The k-th smallest of a[0…n−1]; afterwards a[0…k−1] ≤ a[k] ≤ a[k+1…n−1]. Quickselect with a
+ * median-of-three pivot, finished by insertion sort once the range is short.
+ */
 export function selectInPlace(a: Float64Array, n: number, k: number): number {
   let left = 0, right = n - 1;
-  while (right > left) {
+  while (right - left > 16) {
     const mid = (left + right) >> 1;
-    // Median of three as the pivot.
-    if (a[mid] < a[left]) swap(a, mid, left);
-    if (a[right] < a[left]) swap(a, right, left);
-    if (a[right] < a[mid]) swap(a, right, mid);
-    const pivot = a[mid];
+    let x = a[left], y = a[mid], z = a[right], t;
+    if (y < x) { t = x; x = y; y = t; }
+    if (z < x) { t = x; x = z; z = t; }
+    if (z < y) { t = y; y = z; z = t; }
+    a[left] = x;
+    a[mid] = y;
+    a[right] = z;
     let i = left, j = right;
     while (i <= j) {
-      while (a[i] < pivot) i++;
-      while (a[j] > pivot) j--;
+      let ai = a[i];
+      while (ai < y) ai = a[++i];
+      let aj = a[j];
+      while (aj > y) aj = a[--j];
       if (i <= j) {
-        swap(a, i, j);
+        a[i] = aj;
+        a[j] = ai;
         i++;
         j--;
       }
     }
     if (k <= j) right = j;
     else if (k >= i) left = i;
-    else break;
+    else return a[k];
+  }
+  for (let i = left + 1; i <= right; i++) {
+    const v = a[i];
+    let j = i - 1;
+    while (j >= left && a[j] > v) {
+      a[j + 1] = a[j];
+      j--;
+    }
+    a[j + 1] = v;
   }
   return a[k];
-}
-
-function swap(a: Float64Array, i: number, j: number): void {
-  const t = a[i];
-  a[i] = a[j];
-  a[j] = t;
 }
