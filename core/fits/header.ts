@@ -61,11 +61,9 @@ export class FitsHeader {
     return this.cardIndex(this.bytes).find(k) !== undefined;
   }
 
-  /** The card images as read (Latin-1, nothing blanked); undefined for a header built from parsed cards. */
-  cardText(): string | undefined {
-    if (this.bytes === undefined) return undefined;
-    this.text ??= LATIN1.decode(this.bytes);
-    return this.text;
+  /** For quick screening: the raw card bytes (no copy, END excluded); undefined for a header built from parsed cards. */
+  rawCards(): Uint8Array | undefined {
+    return this.bytes;
   }
 
   value(key: string): CardValue | undefined {
@@ -115,10 +113,16 @@ export class FitsHeader {
     }
     const at = this.cardIndex(this.bytes).find(k);
     if (at === undefined) return undefined;
-    let end = at + 1;
-    while (end * CARD_LENGTH < this.bytes.length && isContinue(this.bytes, end * CARD_LENGTH)) end++;
+    const end = this.continuedEnd(at);
     if (end === at + 1) return this.parseOne(at);
     return joinContinued(this.cardImages(at, end).map(parseCard))[0];
+  }
+
+  /** Number of the first card after card `at` and the CONTINUE cards that follow it. */
+  private continuedEnd(at: number): number {
+    let end = at + 1;
+    while (end * CARD_LENGTH < this.bytes!.length && isContinue(this.bytes!, end * CARD_LENGTH)) end++;
+    return end;
   }
 
   private parseOne(i: number): FitsCard {
@@ -148,8 +152,8 @@ export function printable(text: string): string {
   return /[^\x20-\x7e]/.test(text) ? text.replace(/[^\x20-\x7e]/g, ' ') : text;
 }
 
-/** The card at `at` has the keyword CONTINUE. */
-function isContinue(bytes: Uint8Array, at: number): boolean {
+/** The card at byte `at` has the keyword CONTINUE. */
+export function isContinue(bytes: Uint8Array, at: number): boolean {
   for (let j = 0; j < 8; j++) if (bytes[at + j] !== 'CONTINUE'.charCodeAt(j)) return false;
   return true;
 }
