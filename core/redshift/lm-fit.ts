@@ -100,12 +100,15 @@ export function lmFit(prob: LmProblem, start: Float64Array, maxIterations = LM_M
   return { p, chi2, free, normal: a, iterations: it + 1 };
 }
 
-/** Solves M·x = b for symmetric positive-definite M (n×n, overwritten by its Cholesky factor). */
-export function choleskySolve(mat: Float64Array, b: Float64Array, x: Float64Array, n: number): boolean {
+/**
+ * Overwrites the lower triangle of symmetric M (n×n, row-major) with its Cholesky factor L
+ * (M = L·Lᵀ); false when a pivot is not above minPivot (M not positive definite).
+ */
+function choleskyFactor(mat: Float64Array, n: number, minPivot = 0): boolean {
   for (let j = 0; j < n; j++) {
     let d = mat[j * n + j];
     for (let k = 0; k < j; k++) d -= mat[j * n + k] * mat[j * n + k];
-    if (!(d > 0)) return false;
+    if (!(d > minPivot)) return false;
     const l = Math.sqrt(d);
     mat[j * n + j] = l;
     for (let i = j + 1; i < n; i++) {
@@ -114,6 +117,12 @@ export function choleskySolve(mat: Float64Array, b: Float64Array, x: Float64Arra
       mat[i * n + j] = s / l;
     }
   }
+  return true;
+}
+
+/** Solves M·x = b for symmetric positive-definite M (n×n, overwritten by its Cholesky factor). */
+export function choleskySolve(mat: Float64Array, b: Float64Array, x: Float64Array, n: number): boolean {
+  if (!choleskyFactor(mat, n)) return false;
   for (let i = 0; i < n; i++) {
     let s = b[i];
     for (let k = 0; k < i; k++) s -= mat[i * n + k] * x[k];
@@ -125,4 +134,29 @@ export function choleskySolve(mat: Float64Array, b: Float64Array, x: Float64Arra
     x[i] = s / mat[i * n + i];
   }
   return true;
+}
+
+/**
+ * The diagonal of M⁻¹ for symmetric positive-definite M (n×n, row-major; left as it was), from
+ * its Cholesky factor L: (M⁻¹)_ii = Σ_k (L⁻¹)_ki². null when M is singular to working precision
+ * (a pivot below 1e-14 of the largest entry, as Gauss–Jordan elimination would reject it).
+ */
+export function inverseDiagonal(mat: Float64Array, n: number): Float64Array | null {
+  let scale = 0;
+  for (let i = 0; i < n * n; i++) scale = Math.max(scale, Math.abs(mat[i]));
+  const l = Float64Array.from(mat.subarray(0, n * n));
+  if (!choleskyFactor(l, n, 1e-14 * scale)) return null;
+  // Column c of L⁻¹ (zero above c) by forward substitution; its squares sum to (M⁻¹)_cc.
+  const diag = new Float64Array(n), col = new Float64Array(n);
+  for (let c = 0; c < n; c++) {
+    let sum = 0;
+    for (let i = c; i < n; i++) {
+      let s = i === c ? 1 : 0;
+      for (let k = c; k < i; k++) s -= l[i * n + k] * col[k];
+      col[i] = s / l[i * n + i];
+      sum += col[i] * col[i];
+    }
+    diag[c] = sum;
+  }
+  return diag;
 }

@@ -7,8 +7,7 @@
  * lines' own velocities is a floor (centroidScatterKmS).
  */
 import { lineGroups } from './line-groups.js';
-import { choleskySolve, lmFit, type LmProblem } from './lm-fit.js';
-import { invert } from '../math/linear-algebra.js';
+import { choleskySolve, inverseDiagonal, lmFit, type LmProblem } from './lm-fit.js';
 import { lineRun, pixelArrays, pixelsNearLines, usable, type NativeResidual } from './native-residual.js';
 import { lowerBound, type ProfileLine, type Template } from './templates.js';
 import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
@@ -70,14 +69,14 @@ export function fitEmissionLines(nr: NativeResidual, template: Template, z0: num
   const p = fit.p;
   if (!p.every(Number.isFinite) || Math.abs(p[0]) > MAX_SHIFT_KMS) return null;
   const nF = fit.free.length;
-  const cov = invert(Array.from({ length: nF }, (_, i) => Array.from(fit.normal.subarray(i * nF, (i + 1) * nF))));
-  if (!cov || fit.free[0] !== 0 || !(cov[0][0] > 0)) return null;
+  const variance = inverseDiagonal(fit.normal, nF);
+  if (!variance || fit.free[0] !== 0 || !(variance[0] > 0)) return null;
   const dof = Math.max(1, xs.length - nF);
   const chi2Red = fit.chi2 / dof;
-  const covarianceKmS = Math.sqrt(cov[0][0]) * Math.sqrt(Math.max(1, chi2Red));
+  const covarianceKmS = Math.sqrt(variance[0]) * Math.sqrt(Math.max(1, chi2Red));
   const ampErr = (g: number) => {
     const f = fit.free.indexOf(3 + g);
-    return f >= 0 && cov[f][f] > 0 ? Math.sqrt(cov[f][f] * Math.max(1, chi2Red)) : Infinity;
+    return f >= 0 && variance[f] > 0 ? Math.sqrt(variance[f] * Math.max(1, chi2Red)) : Infinity;
   };
   const scatterKmS = chi2Red > SCATTER_FLOOR_CHI2RED ? centroidScatterKmS({ comps, nGroups, z0, inst, xs, ys, ws, lower, upper }, p, ampErr) : 0;
   const sigmaV = Math.max(covarianceKmS, scatterKmS);
@@ -117,6 +116,8 @@ class LineProfiles {
   private readonly inst: number;
   private readonly centre: Float64Array;
   private readonly width: Float64Array;
+  /** v, σ_narrow, σ_broad the profiles in phi are for (NaN before the first compute). */
+  private readonly at3 = new Float64Array(3).fill(NaN);
 
   constructor(comps: Component[], z0: number, inst: number, xs: Float64Array) {
     this.comps = comps;
@@ -134,6 +135,9 @@ class LineProfiles {
   /** The profiles at p; with `sums` (zeroed), also adds the model and its derivatives there. */
   compute(p: Float64Array, sums?: ModelSums): void {
     const { comps, xs, z0 } = this;
+    // The amplitudes alone changed (the first step after the start): the profiles stand.
+    const known = p[0] === this.at3[0] && p[1] === this.at3[1] && p[2] === this.at3[2];
+    this.at3.set(p.subarray(0, 3));
     const zf = (1 + z0) * (1 + p[0] / SPEED_OF_LIGHT_KMS);
     for (let c = 0; c < comps.length; c++) {
       const centre = comps[c].line.waveRestAngstrom * zf;
@@ -162,6 +166,7 @@ class LineProfiles {
       const dsdsv = (centre * sv) / (SPEED_OF_LIGHT_KMS * stot) / sA;
       const from = this.from[c], to = this.to[c], at = this.at[c];
       if (!sums) {
+        if (known) continue;
         for (let k = from; k < to; k++) {
           const u = (xs[k] - centre) / sA;
           phi[at + k - from] = norm * Math.exp(-0.5 * u * u);
@@ -171,8 +176,7 @@ class LineProfiles {
       const amp = p[3 + comp.group], { model, dv } = sums, ds = comp.broad ? sums.dBroad : sums.dNarrow;
       for (let k = from; k < to; k++) {
         const u = (xs[k] - centre) / sA;
-        const g = norm * Math.exp(-0.5 * u * u);
-        phi[at + k - from] = g;
+        const g = known ? phi[at + k - from] : (phi[at + k - from] = norm * Math.exp(-0.5 * u * u));
         const ag = amp * g;
         model[k] += ag;
         dv[k] += ag * u * dcdv;
@@ -353,14 +357,17 @@ function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) =>
     const idx: number[] = [];
     near.forEach((v, k) => v && idx.push(k));
     if (idx.length < 4) continue;
-    const xs = Float64Array.from(idx, (k) => j.xs[k]);
+    const xs = new Float64Array(idx.length), ys = new Float64Array(idx.length), ws = new Float64Array(idx.length);
+    idx.forEach((k, i) => {
+      xs[i] = j.xs[k];
+      ws[i] = j.ws[k];
+    });
     const mine = new Float64Array(xs.length);
     const profiles = new LineProfiles(own, j.z0, j.inst, xs);
     profiles.compute(p);
     profiles.addModel(p, mine);
     // The other lines' share of the joint model stays subtracted.
-    const ys = Float64Array.from(idx, (k, i) => j.ys[k] - (full[k] - mine[i]));
-    const ws = Float64Array.from(idx, (k) => j.ws[k]);
+    idx.forEach((k, i) => (ys[i] = j.ys[k] - (full[k] - mine[i])));
     const lower = Float64Array.from(p), upper = Float64Array.from(p);
     lower[0] = j.lower[0];
     upper[0] = j.upper[0];
