@@ -10,10 +10,13 @@ const BLANK = 0x20;
 const QUOTE = 0x27;
 const SLASH = 0x2f;
 
-/** The card at byte `at` of `bytes`; `text` is the same bytes as a string. */
-export function cardFromBytes(bytes: Uint8Array, text: string, at: number): FitsCard | undefined {
+/**
+ * The card at byte `at` of `bytes`; `text` is the same bytes as a string. `printable`: the
+ * caller has checked that the card holds printable ASCII only.
+ */
+export function cardFromBytes(bytes: Uint8Array, text: string, at: number, printable = false): FitsCard | undefined {
   const end = at + 80;
-  for (let i = at; i < end; i++) if (bytes[i] < BLANK || bytes[i] > 0x7e) return undefined;
+  if (!printable) for (let i = at; i < end; i++) if (bytes[i] < BLANK || bytes[i] > 0x7e) return undefined;
   if (bytes[at + 8] !== 0x3d || bytes[at + 9] !== BLANK || text.startsWith('HIERARCH', at) || text.startsWith('CONTINUE', at)) return undefined;
   let i = at + 10;
   while (i < end && bytes[i] === BLANK) i++;

@@ -14,56 +14,86 @@ type KeyWords = [number, number];
 const NORMALISED = Uint8Array.from({ length: 256 }, (_, b) => (b < 0x20 || b > 0x7e ? 0x20 : b >= 0x61 && b <= 0x7a ? b - 0x20 : b));
 
 const UNINDEXED = ['COMMENT', 'HISTORY', '', 'CONTINUE'].map((k) => keyWords(k)!);
-const HIERARCH = keyWords('HIERARCH')!;
+
+/** Look-ups answered by scanning the cards before the table is built (most headers see few). */
+const SCANNED_LOOKUPS = 12;
 
 export class CardIndex {
   /** Card number + 1 per slot (0: empty), open addressing with linear probing. */
-  private readonly slots: Int32Array;
-  private readonly words: Int32Array;
-  private readonly hierarch = new Map<string, number>();
+  private slots?: Int32Array;
+  private words?: Int32Array;
+  private hierarch?: Map<string, number>;
+  private lookups = 0;
+  private readonly count: number;
 
   /** `hierarchKey(i)`: the key of card i, a HIERARCH card. */
-  constructor(bytes: Uint8Array, hierarchKey: (card: number) => string) {
-    const count = Math.floor(bytes.length / CARD_LENGTH);
-    let size = 16;
-    while (size < 2 * count) size *= 2;
-    this.slots = new Int32Array(size);
-    this.words = new Int32Array(2 * count);
-    for (let i = 0; i < count; i++) {
-      const at = i * CARD_LENGTH;
-      const w0 = word(bytes, at);
-      const w1 = word(bytes, at + 4);
-      this.words[2 * i] = w0;
-      this.words[2 * i + 1] = w1;
-      if (w0 === HIERARCH[0] && w1 === HIERARCH[1] && isCapitalHierarch(bytes, at)) {
-        const k = hierarchKey(i).toUpperCase();
-        if (!this.hierarch.has(k)) this.hierarch.set(k, i);
-      } else if (!isUnindexed(w0, w1)) {
-        const slot = this.slotOf(w0, w1);
-        if (this.slots[slot] === 0) this.slots[slot] = i + 1;
-      }
-    }
+  constructor(
+    private readonly bytes: Uint8Array,
+    private readonly hierarchKey: (card: number) => string,
+  ) {
+    this.count = Math.floor(bytes.length / CARD_LENGTH);
   }
 
   /** Number of the first card of the keyword (upper-cased as given), or undefined. */
   find(upperKey: string): number | undefined {
-    const h = this.hierarch.get(upperKey);
+    const h = this.hierarchCards().get(upperKey);
     const key = keyWords(upperKey);
     if (!key || isUnindexed(key[0], key[1])) return h;
-    const card = this.slots[this.slotOf(key[0], key[1])] - 1;
+    const card = ++this.lookups <= SCANNED_LOOKUPS ? this.scan(key[0], key[1]) : this.slots![this.slotOf(key[0], key[1])] - 1;
     if (card < 0) return h;
     return h !== undefined && h < card ? h : card;
   }
 
+  /** First card (not HIERARCH) with the key, by looking at every card in turn; -1 when none. */
+  private scan(w0: number, w1: number): number {
+    if (this.lookups === SCANNED_LOOKUPS) this.build();
+    for (let i = 0; i < this.count; i++) {
+      const at = i * CARD_LENGTH;
+      if (word(this.bytes, at) === w0 && word(this.bytes, at + 4) === w1 && !isHierarchCard(this.bytes, at)) return i;
+    }
+    return -1;
+  }
+
+  private hierarchCards(): Map<string, number> {
+    if (!this.hierarch) {
+      this.hierarch = new Map();
+      for (let i = 0; i < this.count; i++) {
+        if (!isHierarchCard(this.bytes, i * CARD_LENGTH)) continue;
+        const k = this.hierarchKey(i).toUpperCase();
+        if (!this.hierarch.has(k)) this.hierarch.set(k, i);
+      }
+    }
+    return this.hierarch;
+  }
+
+  private build(): void {
+    let size = 16;
+    while (size < 2 * this.count) size *= 2;
+    this.slots = new Int32Array(size);
+    this.words = new Int32Array(2 * this.count);
+    for (let i = 0; i < this.count; i++) {
+      const at = i * CARD_LENGTH;
+      const w0 = word(this.bytes, at);
+      const w1 = word(this.bytes, at + 4);
+      this.words[2 * i] = w0;
+      this.words[2 * i + 1] = w1;
+      if (isHierarchCard(this.bytes, at) || isUnindexed(w0, w1)) continue;
+      const slot = this.slotOf(w0, w1);
+      if (this.slots[slot] === 0) this.slots[slot] = i + 1;
+    }
+  }
+
   /** The slot holding the key, or the empty slot where it would go. */
   private slotOf(w0: number, w1: number): number {
-    const mask = this.slots.length - 1;
+    const slots = this.slots!;
+    const words = this.words!;
+    const mask = slots.length - 1;
     // Multiplicative hashing (Knuth, TAOCP vol. 3, §6.4) of the two words.
     let slot = (Math.imul(w0, 0x9e3779b1) ^ Math.imul(w1, 0x85ebca6b)) >>> 7;
     for (;;) {
       slot &= mask;
-      const card = this.slots[slot] - 1;
-      if (card < 0 || (this.words[2 * card] === w0 && this.words[2 * card + 1] === w1)) return slot;
+      const card = slots[slot] - 1;
+      if (card < 0 || (words[2 * card] === w0 && words[2 * card + 1] === w1)) return slot;
       slot++;
     }
   }
@@ -80,7 +110,8 @@ function word(bytes: Uint8Array, at: number): number {
   return (n[bytes[at]] << 24) | (n[bytes[at + 1]] << 16) | (n[bytes[at + 2]] << 8) | n[bytes[at + 3]];
 }
 
-function isCapitalHierarch(bytes: Uint8Array, at: number): boolean {
+/** The word HIERARCH in capitals, as the card parser requires. */
+function isHierarchCard(bytes: Uint8Array, at: number): boolean {
   for (let j = 0; j < 8; j++) if (bytes[at + j] !== 'HIERARCH'.charCodeAt(j)) return false;
   return true;
 }

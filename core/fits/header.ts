@@ -48,8 +48,11 @@ export class FitsHeader {
 
   get cards(): readonly FitsCard[] {
     if (!this.parsed) {
+      this.text ??= LATIN1.decode(this.bytes);
+      // One check of the whole text is far cheaper than one per card.
+      const printable = !NOT_PRINTABLE.test(this.text);
       const all: FitsCard[] = [];
-      for (let i = 0; i < this.bytes!.length / CARD_LENGTH; i++) all.push(this.parseOne(i));
+      for (let i = 0; i < this.bytes!.length / CARD_LENGTH; i++) all.push(this.parseOne(i, printable));
       this.parsed = joinContinued(all);
     }
     return this.parsed;
@@ -125,9 +128,16 @@ export class FitsHeader {
     return end;
   }
 
-  private parseOne(i: number): FitsCard {
+  private parseOne(i: number, printable = false): FitsCard {
+    const at = i * CARD_LENGTH;
+    if (this.text === undefined && this.bytes!.length > WHOLE_TEXT_MAX_BYTES) {
+      // A large header of which a few cards are looked up (survey metadata tables): decode just the card.
+      const card = this.bytes!.subarray(at, at + CARD_LENGTH);
+      const text = LATIN1.decode(card);
+      return cardFromBytes(card, text, 0) ?? parseCard(printableText(text));
+    }
     this.text ??= LATIN1.decode(this.bytes);
-    return cardFromBytes(this.bytes!, this.text, i * CARD_LENGTH) ?? parseCard(this.cardImages(i, i + 1)[0]);
+    return cardFromBytes(this.bytes!, this.text, at, printable) ?? parseCard(this.cardImages(i, i + 1)[0]);
   }
 
   private cardIndex(bytes: Uint8Array): CardIndex {
@@ -139,7 +149,7 @@ export class FitsHeader {
   private cardImages(from: number, to: number): string[] {
     this.text ??= LATIN1.decode(this.bytes);
     const out: string[] = [];
-    for (let i = from; i < to; i++) out.push(printable(this.text.slice(i * CARD_LENGTH, (i + 1) * CARD_LENGTH)));
+    for (let i = from; i < to; i++) out.push(printableText(this.text.slice(i * CARD_LENGTH, (i + 1) * CARD_LENGTH)));
     return out;
   }
 }
@@ -147,9 +157,17 @@ export class FitsHeader {
 // windows-1252 (WHATWG 'latin1') maps every byte outside 0x20–0x7e outside that range too.
 const LATIN1 = new TextDecoder('latin1');
 
+/**
+ * Headers up to this size are decoded whole at the first look-up; larger ones card by card
+ * until all cards are asked for (decoding one card took 0.33 µs, a 40 kB header 20 µs).
+ */
+const WHOLE_TEXT_MAX_BYTES = 8 * BLOCK_LENGTH;
+
+const NOT_PRINTABLE = /[^\x20-\x7e]/;
+
 /** Text with every character outside printable ASCII replaced by a blank. */
-export function printable(text: string): string {
-  return /[^\x20-\x7e]/.test(text) ? text.replace(/[^\x20-\x7e]/g, ' ') : text;
+export function printableText(text: string): string {
+  return NOT_PRINTABLE.test(text) ? text.replace(/[^\x20-\x7e]/g, ' ') : text;
 }
 
 /** The card at byte `at` has the keyword CONTINUE. */

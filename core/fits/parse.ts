@@ -4,7 +4,7 @@
  * Every failure is a SpectrumReadError naming the file and the problem in one line.
  */
 import { SpectrumReadError } from '../spectrum/spectrum.js';
-import { BLOCK_LENGTH, CARD_LENGTH, FitsHeader, printable } from './header.js';
+import { BLOCK_LENGTH, CARD_LENGTH, FitsHeader, printableText } from './header.js';
 
 export type HduKind = 'empty' | 'image' | 'bintable' | 'ascii-table' | 'unsupported';
 
@@ -134,7 +134,7 @@ function describeHdu(
 
 /** Bytes as ASCII text; bytes outside printable ASCII read as blanks. */
 function ascii(bytes: Uint8Array, start: number, length: number): string {
-  return printable(String.fromCharCode(...bytes.subarray(start, start + length)));
+  return printableText(String.fromCharCode(...bytes.subarray(start, start + length)));
 }
 
 /** Throws the typed read error for an HDU. */
