@@ -17,6 +17,9 @@ export interface CorrelationInput {
   resid: Float64Array;
   /** Weights; 0 on bad pixels. */
   weight: Float64Array;
+  /** Σ w·s² and the number of good native pixels within each pixel, so that ρ's normalisation and the overlap are those of the native grid. */
+  energy: Float64Array;
+  goodCount: Float64Array;
   /** Native pixels per pixel of this grid (1 = the native grid). */
   binFactor: number;
   /** Names the grid's step and bin factor in cache keys. */
@@ -70,8 +73,22 @@ export function pixelSigmaKmS(input: CorrelationInput): number {
   return SPEED_OF_LIGHT_KMS * nativeStep * Math.sqrt(1 + (k * k - 1) / 12);
 }
 
+const nativeInputs = new WeakMap<PreparedSpectrum, CorrelationInput>();
+
+/** The prepared spectrum itself as a correlation input (made once per spectrum). */
 export function nativeInput(p: PreparedSpectrum): CorrelationInput {
-  return { grid: p.grid, resid: p.resid, weight: p.weight, binFactor: 1, gridKey: `1:${p.grid.step}` };
+  let input = nativeInputs.get(p);
+  if (!input) {
+    const n = p.grid.length, energy = new Float64Array(n), goodCount = new Float64Array(n);
+    for (let j = 0; j < n; j++) {
+      const w = p.weight[j];
+      if (!(w > 0)) continue;
+      energy[j] = w * p.resid[j] * p.resid[j];
+      goodCount[j] = 1;
+    }
+    nativeInputs.set(p, (input = { grid: p.grid, resid: p.resid, weight: p.weight, energy, goodCount, binFactor: 1, gridKey: `1:${p.grid.step}` }));
+  }
+  return input;
 }
 
 /** The spectrum binned by k: coarse pixel I holds native absolute pixels [kI, kI + k). */
@@ -80,15 +97,17 @@ export function binnedInput(p: PreparedSpectrum, k: number): CorrelationInput {
   const { step, start, length } = p.grid;
   const cStart = Math.floor(start / k);
   const cLength = Math.floor((start + length - 1) / k) - cStart + 1;
-  const weight = new Float64Array(cLength);
-  const resid = new Float64Array(cLength);
+  const weight = new Float64Array(cLength), resid = new Float64Array(cLength);
+  const energy = new Float64Array(cLength), goodCount = new Float64Array(cLength);
   for (let j = 0; j < length; j++) {
     const w = p.weight[j];
     if (!(w > 0)) continue;
     const I = Math.floor((start + j) / k) - cStart;
     weight[I] += w;
     resid[I] += w * p.resid[j];
+    energy[I] += w * p.resid[j] * p.resid[j];
+    goodCount[I]++;
   }
   for (let I = 0; I < cLength; I++) if (weight[I] > 0) resid[I] /= weight[I];
-  return { grid: { step: k * step, start: cStart, length: cLength }, resid, weight, binFactor: k, gridKey: `${k}:${step}` };
+  return { grid: { step: k * step, start: cStart, length: cLength }, resid, weight, energy, goodCount, binFactor: k, gridKey: `${k}:${step}` };
 }

@@ -5,7 +5,9 @@
  *
  *   ρ(L) = Σ w·s·t / √(Σ w·t² · Σ w·s²·m_t),   sums over the pixels both cover at lag L,
  *
- * where s is the spectrum, w its weights, t the template and m_t the template's coverage.
+ * where s is the spectrum, w its weights, t the template and m_t the template's coverage. On a
+ * coarse grid Σ w·s² and the overlap are summed over the native pixels, so ρ keeps the native
+ * normalisation.
  * Without the per-lag denominators a plain correlation grows or shrinks with how much template
  * falls in the window and makes false peaks at the ends of the lag range.
  *
@@ -49,6 +51,8 @@ export interface CorrelationCurveData {
   minWindowLags: number;
   /** true when this curve only locates peaks, to be described on the native grid (fine-window.ts). */
   describeNatively: boolean;
+  /** The native-grid windows its peaks were described on (for display), when describeNatively. */
+  nativeWindows?: CorrelationCurveData[];
   /** Lag of index 0. */
   lagMin: number;
   /** Indices [searchLo, searchHi] of the searched z range; the lags outside serve σ_a only. */
@@ -203,9 +207,9 @@ function spectrumTransforms(p: CorrelationInput, lay: Layout, fft: ComplexFft): 
     const w = p.weight[i], j = off + i;
     packed[2 * j] = w * p.resid[i];
     packed[2 * j + 1] = w;
-    s2Sum[j + 1] = s2Sum[j] + (w > 0 ? w * p.resid[i] * p.resid[i] : 0);
-    goodSum[j + 1] = goodSum[j] + (w > 0 ? 1 : 0);
-    if (w > 0) nGood++;
+    s2Sum[j + 1] = s2Sum[j] + p.energy[i];
+    goodSum[j + 1] = goodSum[j] + p.goodCount[i];
+    nGood += p.goodCount[i];
   }
   s2Sum.fill(s2Sum[off + p.grid.length], off + p.grid.length + 1);
   goodSum.fill(goodSum[off + p.grid.length], off + p.grid.length + 1);
@@ -231,7 +235,8 @@ export function correlate(p: PreparedSpectrum, templates: TemplateUse[]): Correl
     const skey = `${input.binFactor}|${lay.specOrigin}|${e.fft.size}`;
     let st = specCache.get(skey);
     if (!st) specCache.set(skey, (st = spectrumTransforms(input, lay, e.fft)));
-    return { ...correlateOne(input, template, e, lay, st, margin), describeNatively: choice.describeNatively };
+    const curve = correlateOne(input, template, e, lay, st, margin);
+    return choice.describeNatively ? { ...curve, describeNatively: true, nativeWindows: [] } : curve;
   });
 }
 

@@ -77,13 +77,12 @@ const sumsOf = new WeakMap<PreparedSpectrum, SpectrumSums>();
 function spectrumSums(p: PreparedSpectrum): SpectrumSums {
   let s = sumsOf.get(p);
   if (s) return s;
-  const n = p.grid.length;
+  const n = p.grid.length, { energy, goodCount } = nativeInput(p);
   s = { ws: new Float64Array(n), s2Sum: new Float64Array(n + 1), goodSum: new Float64Array(n + 1) };
   for (let j = 0; j < n; j++) {
-    const w = p.weight[j];
-    s.ws[j] = w * p.resid[j];
-    s.s2Sum[j + 1] = s.s2Sum[j] + (w > 0 ? w * p.resid[j] * p.resid[j] : 0);
-    s.goodSum[j + 1] = s.goodSum[j] + (w > 0 ? 1 : 0);
+    s.ws[j] = p.weight[j] * p.resid[j];
+    s.s2Sum[j + 1] = s.s2Sum[j] + energy[j];
+    s.goodSum[j + 1] = s.goodSum[j] + goodCount[j];
   }
   sumsOf.set(p, s);
   return s;
@@ -181,5 +180,6 @@ export function describeOnNativeGrid(p: PreparedSpectrum, coarse: CorrelationCur
     win = nativeWindow(p, coarse, use, at.lag, needed);
     peak = describePeak(win, at.lag - win.lagMin);
   }
+  coarse.nativeWindows?.push(win);
   return peak.r > 0 ? peak : null;
 }

@@ -9,6 +9,7 @@ import { suggestConfidence } from './confidence.js';
 import { correlate, type CorrelationCurveData } from './correlate.js';
 import { detectLines, DETECTION_SNR, linesInRange } from './line-detection.js';
 import { nativeResidual, type NativeResidual } from './native-residual.js';
+import { displayCurve } from './correlation-display.js';
 import { distinctPeaks } from './distinct-peaks.js';
 import type { Peak } from './peaks.js';
 import { preprocess, type PreparedSpectrum } from './preprocess.js';
@@ -16,9 +17,8 @@ import { fitTemplateChi2 } from './refine-chi2.js';
 import { fitEmissionLines } from './refine-lines.js';
 import { resolveTemplates } from './template-set.js';
 import type { Template } from './templates.js';
-import type { Candidate, CorrelationCurve, Measurement, MeasureOptions, Refinement } from './types.js';
+import type { Candidate, Measurement, MeasureOptions, Refinement } from './types.js';
 
-const MAX_CURVE_POINTS = 2000;
 
 export interface StageTimes {
   preprocessMs: number;
@@ -70,7 +70,7 @@ function finish(p: PreparedSpectrum, distinct: Scored[], curves: CorrelationCurv
   const max = options.maxCandidates ?? 5;
   const candidates = distinct.slice(0, max).map((s) => toCandidate(s, p));
   const notes: string[] = [];
-  const correlations = options.withCorrelation ? curves.map(downsampleCurve) : undefined;
+  const correlations = options.withCorrelation ? curves.map(displayCurve) : undefined;
   if (candidates.length === 0) {
     notes.push('no correlation peak: nothing in the spectrum matches a template');
     return { candidates, best: null, refinement: { method: 'none', chi2Red: null, nLinesFitted: 0 }, confidence: 'none', nLines: 0, ...(correlations ? { correlations } : {}), notes };
@@ -142,21 +142,4 @@ function rankByLineEvidence(p: PreparedSpectrum, distinct: Scored[]): { order: n
     }
   });
   return { order, judgedOn, shared };
-}
-
-function downsampleCurve(c: CorrelationCurveData): CorrelationCurve {
-  const n = c.searchHi + 1;
-  const every = Math.max(1, Math.ceil((n - c.searchLo) / MAX_CURVE_POINTS));
-  const z: number[] = [];
-  const value: number[] = [];
-  for (let i = c.searchLo; i < n; i += every) {
-    // Keep the largest value in each stride so peaks survive the thinning.
-    let k = i;
-    for (let j = i; j < Math.min(n, i + every); j++) if (c.rho[j] > c.rho[k] || !(c.rho[k] === c.rho[k])) k = j;
-    const v = c.rho[k];
-    if (!(v === v)) continue;
-    z.push(Math.expm1((c.lagMin + k) * c.step));
-    value.push(v);
-  }
-  return { template: c.template.name, z, value };
 }

@@ -5,8 +5,10 @@ import { median } from '../../core/redshift/continuum.js';
 import { complexFft, forwardRealPair } from '../../core/redshift/fft.js';
 import { rebinFluxConserving, pixelEdges, type LogGrid } from '../../core/redshift/log-grid.js';
 import { describePeak, findPeaks } from '../../core/redshift/peaks.js';
-import { binnedInput, nativeInput, pixelSigmaKmS } from '../../core/redshift/coarse-grid.js';
+import { binnedInput, nativeInput, pixelSigmaKmS, type CorrelationInput } from '../../core/redshift/coarse-grid.js';
 import { describeOnNativeGrid, locateOnNativeGrid } from '../../core/redshift/fine-window.js';
+import { distinctPeaks } from '../../core/redshift/distinct-peaks.js';
+import { displayCurve } from '../../core/redshift/correlation-display.js';
 import { correlate, type CorrelationCurveData } from '../../core/redshift/correlate.js';
 import { preprocess } from '../../core/redshift/preprocess.js';
 import { measureRedshift } from '../../core/redshift/measure.js';
@@ -128,7 +130,9 @@ describe('Tonry–Davis r and σz', () => {
 });
 
 /** Overlap-normalised correlation at one lag of a grid, summed directly (the definition in correlate.ts). */
-function directRho(t: Template, grid: LogGrid, weight: Float64Array, resid: Float64Array, instKmS: number, lag: number): { rho: number; score: number; overlap: number } {
+function directRho(t: Template, input: CorrelationInput, lag: number): { rho: number; score: number; overlap: number } {
+  const { grid, weight, resid, energy, goodCount } = input;
+  const instKmS = pixelSigmaKmS(input);
   const [lo, hi] = t.restRangeAngstrom;
   const { step, start, length } = grid;
   const rest = Float64Array.from({ length }, (_, i) => Math.exp((start + i - lag) * step));
@@ -140,10 +144,11 @@ function directRho(t: Template, grid: LogGrid, weight: Float64Array, resid: Floa
     const w = weight[i];
     c += w * resid[i] * prof[i];
     t2 += w * prof[i] * prof[i];
-    if (w > 0) good++;
-    if (w > 0 && rest[i] >= lo && rest[i] <= hi) {
-      s2 += w * resid[i] * resid[i];
-      covered++;
+    // Σ w·s² and the good pixels are counted on the native pixels within each pixel.
+    good += goodCount[i];
+    if (rest[i] >= lo && rest[i] <= hi) {
+      s2 += energy[i];
+      covered += goodCount[i];
     }
   }
   const score = c / Math.sqrt(t2);
@@ -163,7 +168,7 @@ describe('FFT correlation', () => {
       expect(input.grid.step).toBeCloseTo(curve.step, 15);
       for (let k = curve.searchLo; k <= curve.searchHi; k += 23) {
         if (!Number.isFinite(curve.rho[k])) continue;
-        const d = directRho(curve.template, input.grid, input.weight, input.resid, pixelSigmaKmS(input), curve.lagMin + k);
+        const d = directRho(curve.template, input, curve.lagMin + k);
         expect(curve.rho[k]).toBeCloseTo(d.rho, 9);
         compared++;
       }
@@ -184,10 +189,29 @@ describe('FFT correlation', () => {
     // The whole native curve over a window wider than any σ_a window the peak can need.
     const half = 400, lagMin = at.lag - half, n = 2 * half + 1;
     const rho = new Float64Array(n), score = new Float64Array(n), overlap = new Float64Array(n);
-    for (let i = 0; i < n; i++) ({ rho: rho[i], score: score[i], overlap: overlap[i] } = directRho(sf, p.grid, p.weight, p.resid, pixelSigmaKmS(nativeInput(p)), lagMin + i));
+    for (let i = 0; i < n; i++) ({ rho: rho[i], score: score[i], overlap: overlap[i] } = directRho(sf, nativeInput(p), lagMin + i));
     const direct = describePeak({ template: sf, step: p.grid.step, binFactor: 1, minWindowLags: 100, describeNatively: false, lagMin, searchLo: 0, searchHi: n - 1, rho, score, overlap }, half);
     expect(Math.abs(peak.z - 0.3) / peak.zErr).toBeLessThan(4);
     for (const key of ['z', 'zErr', 'r', 'height', 'score', 'widthLags', 'overlap'] as const) expect(peak[key]).toBeCloseTo(direct[key], 9);
+  });
+});
+
+describe('correlation display', () => {
+  it('draws a narrow-line peak at its native-grid height, not the lower one of the binned spectrum', () => {
+    const sf = builtInTemplates().find((t) => t.name === 'star-forming')!;
+    const p = preprocess(synthetic(0.3, 1, 5, 60, sf), { maskTelluric: true, maskSky: true });
+    const uses = resolveTemplates({ templates: ['star-forming'] });
+    const [curve] = correlate(p, uses);
+    const [best] = distinctPeaks(p, curve ? [curve] : [], uses, 1);
+    const near = (z: number[], v: ArrayLike<number>) => Math.max(...z.map((zz, i) => (Math.abs(zz - best.peak.z) < 0.002 ? v[i] : -Infinity)));
+    const shown = displayCurve(curve);
+    const drawn = near(shown.z, shown.value);
+    const coarseZ = Array.from(curve.rho, (_, k) => Math.expm1((curve.lagMin + k) * curve.step));
+    // The drawn maximum is a native sample next to the interpolated peak height.
+    expect(drawn / best.peak.height).toBeGreaterThan(0.95);
+    expect(drawn).toBeLessThanOrEqual(best.peak.height + 1e-12);
+    expect(near(coarseZ, curve.rho)).toBeLessThan(drawn);
+    expect(shown.z.every((z, i) => i === 0 || z > shown.z[i - 1])).toBe(true);
   });
 });
 
