@@ -10,8 +10,8 @@ const powers = new Float64Array(1 << SLOT_BITS);
 const single = new Float32Array(1);
 const singleBits = new Uint32Array(single.buffer);
 
+/** Replaces every x of `xs` by 10^x, in place. */
 export function powersOfTen(xs: Float64Array): Float64Array {
-  const out = new Float64Array(xs.length);
   for (let i = 0; i < xs.length; i++) {
     const x = xs[i];
     single[0] = x;
@@ -21,7 +21,7 @@ export function powersOfTen(xs: Float64Array): Float64Array {
       exponents[slot] = x;
       powers[slot] = 10 ** x;
     }
-    out[i] = powers[slot];
+    xs[i] = powers[slot];
   }
-  return out;
+  return xs;
 }

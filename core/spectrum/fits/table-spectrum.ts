@@ -99,8 +99,7 @@ function readTable(
   // Array tables: the first row holds the spectrum; row tables: every row is a pixel.
   const get = (c: TableColumn) => (arrays ? table.rowValues(c, 0) : table.values(c));
   const isLog = findByRole('loglam', table.find) === waveCol;
-  const rawWave = get(waveCol);
-  const wave = isLog ? powersOfTen(rawWave) : rawWave;
+  const wave = isLog ? powersOfTen(get(waveCol)) : get(waveCol);
   let flux = get(fluxCol);
   const n = flux.length;
   const mask = new Uint8Array(n);
