@@ -2,19 +2,21 @@
  * Levenberg–Marquardt with Marquardt's diagonal scaling (Marquardt 1963, J. SIAM 11, 431; e.g.
  * Press et al., Numerical Recipes, §15.5), parameters clamped to their bounds, a bounded number
  * of iterations that stops when χ² improves by less than a relative tolerance. Parameters with
- * equal lower and upper bounds are held fixed. The problem linearises itself at a point (χ², the
- * normal matrix and the gradient, in place), so it can use its own sparsity; each trial point is
- * evaluated once, and an iteration allocates nothing.
+ * equal lower and upper bounds are held fixed. The problem evaluates χ² at a trial point and,
+ * only when the step is accepted, linearises itself there (the normal matrix and the gradient, in
+ * place), so it can use its own sparsity; an iteration allocates nothing.
  */
 
 export interface LmProblem {
   lower: Float64Array;
   upper: Float64Array;
+  /** χ² at p. */
+  chi2(p: Float64Array): number;
   /**
-   * χ² at p, with JᵀWJ over the parameters in `free` (row-major, free.length²) into `normal`
-   * and JᵀW(y − model) into `gradient`.
+   * At the point of the last chi2 call: JᵀWJ over the parameters in `free` (row-major,
+   * free.length²) into `normal` and JᵀW(y − model) into `gradient`.
    */
-  linearise(p: Float64Array, free: readonly number[], normal: Float64Array, gradient: Float64Array): number;
+  linearise(free: readonly number[], normal: Float64Array, gradient: Float64Array): void;
 }
 
 export interface LmResult {
@@ -43,13 +45,13 @@ export function lmFit(prob: LmProblem, start: Float64Array, maxIterations = LM_M
   const free: number[] = [];
   for (let j = 0; j < nP; j++) if (prob.upper[j] > prob.lower[j]) free.push(j);
   const nF = free.length;
-  // The normal matrix and gradient at p, and at the trial point (swapped in when it is accepted).
-  let a = new Float64Array(nF * nF), g = new Float64Array(nF);
-  let aTrial = new Float64Array(nF * nF), gTrial = new Float64Array(nF);
+  // The normal matrix and gradient at p.
+  const a = new Float64Array(nF * nF), g = new Float64Array(nF);
   const m = new Float64Array(nF * nF), rhs = new Float64Array(nF), step = new Float64Array(nF);
   const trial = new Float64Array(nP);
   const moving = new Int32Array(nF);
-  let chi2 = prob.linearise(p, free, a, g);
+  let chi2 = prob.chi2(p);
+  prob.linearise(free, a, g);
   let damping = 1e-3;
   let it = 0;
   for (; it < maxIterations; it++) {
@@ -80,15 +82,14 @@ export function lmFit(prob: LmProblem, start: Float64Array, maxIterations = LM_M
         const j = free[moving[u]];
         trial[j] = Math.min(prob.upper[j], Math.max(prob.lower[j], p[j] + step[u]));
       }
-      const c = prob.linearise(trial, free, aTrial, gTrial);
+      const c = prob.chi2(trial);
       if (c < chi2) {
         gain = (chi2 - c) / Math.max(c, 1e-300);
         stepSigmas2 = 0;
         for (let u = 0; u < nM; u++) for (let v = 0; v < nM; v++) stepSigmas2 += step[u] * a[moving[u] * nF + moving[v]] * step[v];
         p.set(trial);
         chi2 = c;
-        [a, aTrial] = [aTrial, a];
-        [g, gTrial] = [gTrial, g];
+        prob.linearise(free, a, g);
         damping = Math.max(damping / 10, 1e-7);
         accepted = true;
         break;

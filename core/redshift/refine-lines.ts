@@ -249,21 +249,27 @@ function lineProblem(profiles: LineProfiles, nGroups: number, ys: Float64Array, 
   return {
     lower,
     upper,
-    linearise(p, free, normal, gradient) {
+    chi2(p) {
       model.fill(0);
       dv.fill(0);
       dn.fill(0);
       db.fill(0);
       profiles.compute(p, sumsAt);
+      let chi2 = 0;
+      for (let k = 0; k < nY; k++) {
+        const r = ys[k] - model[k];
+        resid[k] = r;
+        chi2 += ws[k] * r * r;
+      }
+      return chi2;
+    },
+    linearise(free, normal, gradient) {
       const { phi, from, to } = profiles;
       const start = profiles.at;
-      // χ², and the v and width rows of JᵀWJ and JᵀW(y − model), in one pass.
-      let chi2 = 0;
+      // The v and width rows of JᵀWJ and JᵀW(y − model), in one pass.
       sums.fill(0);
       for (let k = 0; k < nY; k++) {
-        const r = ys[k] - model[k], w = ws[k];
-        resid[k] = r;
-        chi2 += w * r * r;
+        const r = resid[k], w = ws[k];
         const a = w * dv[k], b = w * dn[k], c = w * db[k];
         sums[0] += a * dv[k];
         sums[1] += a * dn[k];
@@ -308,7 +314,6 @@ function lineProblem(profiles: LineProfiles, nGroups: number, ys: Float64Array, 
         if (fg < 0) continue;
         for (let h = 0; h < nGroups; h++) if (at[3 + h] >= 0) normal[fg * nF + at[3 + h]] = gram[g * nGroups + h];
       }
-      return chi2;
     },
   };
 }
