@@ -65,7 +65,7 @@ export function lmFit(prob: LmProblem, start: Float64Array, maxIterations = LM_M
       moving[nM++] = i;
     }
     if (nM === 0) break;
-    let accepted = false, gain = 0, stepSigmas2 = Infinity;
+    let accepted = false, rejected = false, gain = 0, stepSigmas2 = Infinity;
     while (damping < 1e10) {
       for (let u = 0; u < nM; u++) {
         const i = moving[u];
@@ -77,6 +77,15 @@ export function lmFit(prob: LmProblem, start: Float64Array, maxIterations = LM_M
         damping *= 10;
         continue;
       }
+      // After a rejected step, a damped step too short to matter ends the fit: the rejections
+      // would otherwise go on until the damping reaches its cap.
+      let stepNorm2 = 0, predicted = 0;
+      for (let u = 0; u < nM; u++) {
+        predicted += 2 * rhs[u] * step[u];
+        for (let v = 0; v < nM; v++) stepNorm2 += step[u] * a[moving[u] * nF + moving[v]] * step[v];
+      }
+      predicted -= stepNorm2;
+      if (rejected && (stepNorm2 < LM_STEP_TOLERANCE ** 2 || predicted < relTol * chi2)) break;
       trial.set(p);
       for (let u = 0; u < nM; u++) {
         const j = free[moving[u]];
@@ -85,8 +94,7 @@ export function lmFit(prob: LmProblem, start: Float64Array, maxIterations = LM_M
       const c = prob.chi2(trial);
       if (c < chi2) {
         gain = (chi2 - c) / Math.max(c, 1e-300);
-        stepSigmas2 = 0;
-        for (let u = 0; u < nM; u++) for (let v = 0; v < nM; v++) stepSigmas2 += step[u] * a[moving[u] * nF + moving[v]] * step[v];
+        stepSigmas2 = stepNorm2;
         p.set(trial);
         chi2 = c;
         prob.linearise(free, a, g);
@@ -94,6 +102,7 @@ export function lmFit(prob: LmProblem, start: Float64Array, maxIterations = LM_M
         accepted = true;
         break;
       }
+      rejected = true;
       damping *= 10;
     }
     if (!accepted || gain < relTol || stepSigmas2 < LM_STEP_TOLERANCE ** 2) break;
