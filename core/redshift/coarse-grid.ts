@@ -3,7 +3,7 @@
  * (weights summed, residuals weight-averaged), so the FFTs over the full z range are a few times
  * shorter. A template whose narrowest line spans at least two native pixels (σ) is correlated
  * and described on a grid whose pixel is no wider than that σ; narrower-line templates are
- * searched on the coarsest grid and their peaks described on the native one (fine-window.ts).
+ * searched on the coarsest grid and their peaks described on the native one (native-description.ts).
  */
 import type { LogGrid } from './log-grid.js';
 import type { PreparedSpectrum } from './preprocess.js';

@@ -49,7 +49,7 @@ export interface CorrelationCurveData {
   binFactor: number;
   /** Least half-width of the Tonry–Davis σ_a window, lags (TD_MIN_WINDOW_LAGS native lags). */
   minWindowLags: number;
-  /** true when this curve only locates peaks, to be described on the native grid (fine-window.ts). */
+  /** true when this curve only locates peaks, to be described on the native grid (native-description.ts). */
   describeNatively: boolean;
   /** The native-grid windows its peaks were described on (for display), when describeNatively. */
   nativeWindows?: CorrelationCurveData[];

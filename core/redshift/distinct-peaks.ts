@@ -1,10 +1,10 @@
 /**
  * The best distinct correlation peaks over all templates, by score (√Δχ²). Coarse peaks of
- * narrow-line templates are described on the native grid as they come up (fine-window.ts),
+ * narrow-line templates are described on the native grid as they come up (native-description.ts),
  * before they compete.
  */
 import type { CorrelationCurveData } from './correlate.js';
-import { describeOnNativeGrid, locateOnNativeGrid, type NativeLocation } from './fine-window.js';
+import { describeOnNativeGrid, locateOnNativeGrid, type NativeLocation } from './native-description.js';
 import { findPeaks, type Peak } from './peaks.js';
 import type { PreparedSpectrum } from './preprocess.js';
 import type { TemplateUse } from './template-set.js';

@@ -6,7 +6,7 @@ import { complexFft, forwardRealPair } from '../../core/redshift/fft.js';
 import { rebinFluxConserving, pixelEdges, type LogGrid } from '../../core/redshift/log-grid.js';
 import { describePeak, findPeaks } from '../../core/redshift/peaks.js';
 import { binnedInput, nativeInput, pixelSigmaKmS, type CorrelationInput } from '../../core/redshift/coarse-grid.js';
-import { describeOnNativeGrid, locateOnNativeGrid } from '../../core/redshift/fine-window.js';
+import { describeOnNativeGrid, locateOnNativeGrid } from '../../core/redshift/native-description.js';
 import { distinctPeaks } from '../../core/redshift/distinct-peaks.js';
 import { displayCurve } from '../../core/redshift/correlation-display.js';
 import { correlate, type CorrelationCurveData } from '../../core/redshift/correlate.js';
