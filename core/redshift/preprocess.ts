@@ -4,7 +4,7 @@
  * and zero mean (Tonry & Davis 1979, AJ 84, 1511, §II, for the recipe).
  */
 import type { Spectrum } from '../spectrum/spectrum.js';
-import { robustContinuum, median } from './continuum.js';
+import { robustContinuum, median, medianInPlace } from './continuum.js';
 import { gridStepFor, rebinFluxConserving, type LogGrid } from './log-grid.js';
 import { applyObservedMasks } from './observed-masks.js';
 import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
@@ -139,9 +139,10 @@ function limitStrongFeatures(resid: Float64Array, variance: Float64Array, good: 
 function weightsFrom(variance: Float64Array, good: Uint8Array): Float64Array {
   const n = variance.length;
   const w = new Float64Array(n);
-  const inv: number[] = [];
-  for (let i = 0; i < n; i++) if (good[i] && variance[i] > 0 && Number.isFinite(variance[i])) inv.push(1 / variance[i]);
-  const med = median(inv);
+  const inv = new Float64Array(n);
+  let m = 0;
+  for (let i = 0; i < n; i++) if (good[i] && variance[i] > 0 && Number.isFinite(variance[i])) inv[m++] = 1 / variance[i];
+  const med = medianInPlace(inv, m);
   const scale = med > 0 ? 1 / med : 1;
   for (let i = 0; i < n; i++) {
     if (!good[i]) continue;
