@@ -50,14 +50,14 @@ export function nativeResidual(p: PreparedSpectrum, masks: readonly LineMask[]):
   const resid = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     const j = cell[i];
-    continuum[i] = j < 0 ? NaN : gridCont[j] + frac[i] * (gridCont[j + 1] - gridCont[j]);
+    continuum[i] = gridCont[j] + frac[i] * (gridCont[j + 1] - gridCont[j]);
     resid[i] = flux[i] - continuum[i];
   }
   const pixelKmS = SPEED_OF_LIGHT_KMS * grid.step;
   return { waveAngstrom, resid, continuum, sigma, good, pixelKmS, linesMasked };
 }
 
-/** Each native pixel's grid cell (−1 outside the grid) and position in it, for interpolating the grid continuum. */
+/** Each native pixel's grid cell and position in it (NaN outside the grid), for interpolating the grid continuum. */
 interface GridPositions {
   cell: Int32Array;
   frac: Float64Array;
@@ -75,8 +75,8 @@ function gridPositions(p: PreparedSpectrum): GridPositions {
   for (let i = 0; i < wave.length; i++) {
     const x = Math.log(wave[i]) / grid.step - grid.start;
     const j = Math.min(grid.length - 2, Math.max(0, Math.floor(x)));
-    cell[i] = x < -0.5 || x > grid.length - 0.5 ? -1 : j;
-    frac[i] = Math.min(1, Math.max(0, x - j));
+    cell[i] = j;
+    frac[i] = x < -0.5 || x > grid.length - 0.5 ? NaN : Math.min(1, Math.max(0, x - j));
   }
   const positions = { cell, frac };
   positionsOf.set(p, positions);
