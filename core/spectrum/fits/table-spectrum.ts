@@ -5,8 +5,8 @@
  * al. 2012, ApJS 200, 13). SDSS: λ = 10^loglam; σ = 1/√ivar, ivar = 0 bad; and_mask ≠ 0 bad
  * (SDSS data model, spec file HDU 1).
  */
-import { columnNames, openTable, type FitsTable, type TableColumn } from '../../fits/table.js';
-import { ERROR_KIND, ERROR_ROLES, findByRole, type ColumnRole, maskFrom, sdssMaskFrom, sigmaFrom } from '../columns.js';
+import { openTable, type FitsTable, type TableColumn } from '../../fits/table.js';
+import { ERROR_KIND, ERROR_ROLES, findByRole, maskFrom, sdssMaskFrom, sigmaFrom } from '../columns.js';
 import { mediumFromName } from '../medium.js';
 import { guessWaveUnit, parseWaveUnit, type WaveUnit } from '../units.js';
 import { powersOfTen } from './powers-of-ten.js';
@@ -17,15 +17,8 @@ import { mayNameWavelength } from './wave-column-screen.js';
 export function matchTable(ctx: HduContext): LayoutVerdict {
   const { hdu } = ctx;
   if (hdu.kind !== 'bintable' && hdu.kind !== 'ascii-table') return undefined;
-  // Tables that lack the columns by name (survey metadata, line fits) are passed over unopened.
+  // Tables without a wavelength column by name (survey metadata, line fits) are passed over unopened.
   if (!mayNameWavelength(hdu.header)) return 'table without a wavelength column';
-  const names = columnNames(hdu);
-  if (names) {
-    const lower = new Set(names.map((n) => n.toLowerCase()));
-    const named = (role: ColumnRole) => findByRole(role, (n) => (lower.has(n) ? n : undefined));
-    const wave = named('wave') ?? named('loglam');
-    if (!wave || !named('flux')) return `table without ${wave ? 'a flux' : 'a wavelength'} column`;
-  }
   const table = openTable(hdu);
   const waveCol = findByRole('wave', table.find) ?? findByRole('loglam', table.find);
   const fluxCol = findByRole('flux', table.find);
