@@ -34,10 +34,9 @@ export type ErrorRole = (typeof ERROR_ROLES)[number];
 
 /**
  * 1σ errors from the file's uncertainty column: σ as is, σ = 1/√ivar (ivar ≤ 0 or non-finite:
- * bad pixel, σ = NaN), σ = √variance. Marks bad pixels in `mask`.
+ * bad pixel, σ = NaN), σ = √variance. Marks bad pixels in `mask`. `out` may be `values` itself.
  */
-export function sigmaFrom(role: ErrorRole, values: Float64Array, mask: Uint8Array): Float64Array {
-  const out = new Float64Array(values.length);
+export function sigmaFrom(role: ErrorRole, values: Float64Array, mask: Uint8Array, out: Float64Array = new Float64Array(values.length)): Float64Array {
   for (let i = 0; i < values.length; i++) {
     const v = values[i];
     const s = role === 'sigma' ? v : role === 'ivar' ? (v > 0 ? 1 / Math.sqrt(v) : NaN) : v >= 0 ? Math.sqrt(v) : NaN;

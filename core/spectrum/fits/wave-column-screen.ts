@@ -16,6 +16,8 @@ export function mayNameWavelength(header: FitsHeader): boolean {
   const bytes = header.rawCards();
   if (bytes === undefined) return true;
   for (let at = 0; at < bytes.length; at += CARD_LENGTH) {
+    const first = bytes[at] & 0xdf;
+    if (first !== TTYPE[0] && first !== HIERARCH[0]) continue;
     const hierarch = startsWithWord(bytes, at, HIERARCH);
     if (!hierarch && !startsWithWord(bytes, at, TTYPE)) continue;
     if (at + CARD_LENGTH < bytes.length && isContinue(bytes, at + CARD_LENGTH)) return true;
