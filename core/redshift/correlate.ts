@@ -244,15 +244,13 @@ function correlateOne(p: CorrelationInput, template: Template, e: BankEntry, lay
   const { fft } = e;
   const n = fft.size;
   const [x, cx] = scratchFor(fft, p.binFactor).z;
-  for (let k = 0; k < n; k++) {
-    const re = 2 * k, im = re + 1;
+  const sw = st.sw, w = st.w, t = e.t, t2v = e.t2;
+  for (let re = 0; re < 2 * n; re += 2) {
+    const im = re + 1;
     // conj(SW)·T + i·conj(W)·T2
-    const ar = st.sw[re] * e.t[re] - st.sw[im] * e.t[im];
-    const ai = st.sw[re] * e.t[im] + st.sw[im] * e.t[re];
-    const br = st.w[re] * e.t2[re] - st.w[im] * e.t2[im];
-    const bi = st.w[re] * e.t2[im] + st.w[im] * e.t2[re];
-    x[re] = ar - bi;
-    x[im] = ai + br;
+    const swr = sw[re], swi = sw[im], tr = t[re], ti = t[im], wr = w[re], wi = w[im], ur = t2v[re], ui = t2v[im];
+    x[re] = swr * tr - swi * ti - (wr * ui + wi * ur);
+    x[im] = swr * ti + swi * tr + (wr * ur - wi * ui);
   }
   fft.inverse(cx, x);
   const nLag = lay.lagMax - lay.lagMin + 1;
