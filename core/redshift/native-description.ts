@@ -167,12 +167,12 @@ export function locateOnNativeGrid(p: PreparedSpectrum, coarse: CorrelationCurve
 }
 
 /**
- * The located peak described on the native grid (z, r, width, σz), over a window wide enough
- * for the Tonry–Davis σ_a window of a peak as wide as the template's lines; a wider peak (lines
- * broader than the template's) gets a second, wider window. Null when r cannot be measured.
+ * The located peak described on the native grid (z, r, width, σz), over a window as wide as the
+ * least Tonry–Davis σ_a window; a peak too wide for it (ten widths beyond that) gets a second,
+ * wider window. Null when r cannot be measured.
  */
 export function describeOnNativeGrid(p: PreparedSpectrum, coarse: CorrelationCurveData, use: TemplateUse, at: NativeLocation): Peak | null {
-  const half = sigmaAMarginLags(use.template, nativeInput(p)) + 2;
+  const half = TD_MIN_WINDOW_LAGS + 2;
   let win = nativeWindow(p, coarse, use, at.lag, half);
   let peak = describePeak(win, at.lag - win.lagMin);
   const needed = Math.ceil(TD_WINDOW_WIDTHS * peak.widthLags) + 2;
