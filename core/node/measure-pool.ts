@@ -57,6 +57,12 @@ interface Slot {
   inFlight: Map<number, Job>;
 }
 
+/**
+ * Young-generation cap per worker, MB: V8's default let two workers grow to about 300 MB resident
+ * over 10,000 spectra; at 16 MB it stays near 245 MB at no speed cost we could measure.
+ */
+const WORKER_YOUNG_GENERATION_MB = 16;
+
 /** Jobs sent ahead to each worker, so it never waits for the main thread. */
 const PER_WORKER_IN_FLIGHT = 2;
 
@@ -98,7 +104,7 @@ export class MeasurePool {
   }
 
   private spawn(): Slot {
-    const slot: Slot = { worker: new Worker(this.url), inFlight: new Map() };
+    const slot: Slot = { worker: new Worker(this.url, { resourceLimits: { maxYoungGenerationSizeMb: WORKER_YOUNG_GENERATION_MB } }), inFlight: new Map() };
     slot.worker.on('message', (reply: WorkerReply) => {
       const job = slot.inFlight.get(reply.id);
       if (!job) return;
