@@ -9,11 +9,9 @@ export function robustContinuum(flux: Float64Array, good: Uint8Array, blockPixel
   const n = flux.length;
   const use = Uint8Array.from(good);
   const scratch = new Float64Array(n);
-  const blocks = new BlockMedians(n, blockPixels);
+  const blocks = new BlockMedians(flux, use, blockPixels);
   const cont = new Float64Array(n);
-  blocks.update(flux, use, scratch, null);
   blocks.interpolate(cont);
-  const touched = new Uint8Array(blocks.count);
   for (let it = 0; it < iterations; it++) {
     let k = 0;
     for (let i = 0; i < n; i++) if (use[i]) scratch[k++] = Math.abs(flux[i] - cont[i]);
@@ -23,25 +21,28 @@ export function robustContinuum(flux: Float64Array, good: Uint8Array, blockPixel
     const limit = clipSigma * sigma;
     let changed = false;
     for (let b = 0; b < blocks.count; b++) {
-      let hit = 0;
+      let hit = false;
       for (let i = blocks.lo(b), end = blocks.lo(b + 1); i < end; i++) {
         if (use[i] && Math.abs(flux[i] - cont[i]) > limit) {
           use[i] = 0;
-          hit = 1;
+          blocks.remove(b, flux[i], i);
+          hit = true;
         }
       }
-      touched[b] = hit;
-      if (hit) changed = true;
+      // Only the blocks that lost pixels get a new median.
+      if (hit) blocks.refresh(b);
+      changed ||= hit;
     }
     if (!changed) break;
-    // Only the blocks that lost pixels get a new median.
-    blocks.update(flux, use, scratch, touched);
     blocks.interpolate(cont);
   }
   return cont;
 }
 
-/** Medians of equal blocks of pixels, kept per block so a clipping pass redoes only the blocks it changed. */
+/**
+ * Medians of equal blocks of pixels. Each block's usable values are sorted once; clipping then
+ * only marks values as removed, and a block's new median is read off by counting.
+ */
 class BlockMedians {
   readonly count: number;
   private readonly n: number;
@@ -49,13 +50,34 @@ class BlockMedians {
   private readonly y: Float64Array;
   /** 1 where the block has enough pixels to count. */
   private readonly valid: Uint8Array;
+  /** Block b's usable values ascending in sorted[lo(b) … lo(b) + size[b]), with a removed flag each. */
+  private readonly sorted: Float64Array;
+  private readonly removed: Uint8Array;
+  private readonly size: Int32Array;
+  private readonly left: Int32Array;
+  /** Σ of the pixel indices still in each block (exact in doubles). */
+  private readonly xsum: Float64Array;
 
-  constructor(n: number, blockPixels: number) {
-    this.n = n;
+  constructor(flux: Float64Array, use: Uint8Array, blockPixels: number) {
+    const n = (this.n = flux.length);
     this.count = Math.max(1, Math.round(n / blockPixels));
     this.x = new Float64Array(this.count);
     this.y = new Float64Array(this.count);
     this.valid = new Uint8Array(this.count);
+    this.sorted = new Float64Array(n);
+    this.removed = new Uint8Array(n);
+    this.size = new Int32Array(this.count);
+    this.left = new Int32Array(this.count);
+    this.xsum = new Float64Array(this.count);
+    for (let b = 0; b < this.count; b++) {
+      const lo = this.lo(b), hi = this.lo(b + 1);
+      let k = 0, xsum = 0;
+      for (let i = lo; i < hi; i++) if (use[i]) { this.sorted[lo + k++] = flux[i]; xsum += i; }
+      this.sorted.subarray(lo, lo + k).sort();
+      this.size[b] = this.left[b] = k;
+      this.xsum[b] = xsum;
+      this.refresh(b);
+    }
   }
 
   /** First pixel of block b (b = count gives n). */
@@ -63,18 +85,39 @@ class BlockMedians {
     return Math.floor((b * this.n) / this.count);
   }
 
-  /** Recomputes the blocks flagged in `which` (all when null). */
-  update(flux: Float64Array, use: Uint8Array, scratch: Float64Array, which: Uint8Array | null): void {
-    for (let b = 0; b < this.count; b++) {
-      if (which && !which[b]) continue;
-      const lo = this.lo(b), hi = this.lo(b + 1);
-      let k = 0, xsum = 0;
-      for (let i = lo; i < hi; i++) if (use[i]) { scratch[k++] = flux[i]; xsum += i; }
-      this.valid[b] = k >= Math.max(3, 0.2 * (hi - lo)) ? 1 : 0;
-      if (!this.valid[b]) continue;
-      this.y[b] = medianInPlace(scratch, k);
-      this.x[b] = xsum / k;
+  /** Takes pixel i, of the given value, out of block b. */
+  remove(b: number, value: number, i: number): void {
+    const from = this.lo(b);
+    let lo = from, hi = from + this.size[b];
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (this.sorted[mid] < value) lo = mid + 1;
+      else hi = mid;
     }
+    while (this.removed[lo]) lo++;
+    this.removed[lo] = 1;
+    this.left[b]--;
+    this.xsum[b] -= i;
+  }
+
+  /** Block b's median and mean pixel position from the values still in it. */
+  refresh(b: number): void {
+    const lo = this.lo(b), m = this.left[b];
+    this.valid[b] = m >= Math.max(3, 0.2 * (this.lo(b + 1) - lo)) ? 1 : 0;
+    if (!this.valid[b]) return;
+    // The values of ranks m/2 − 1 and m/2 (for odd m, (m − 1)/2 alone).
+    const upper = m >> 1;
+    let rank = 0, below = NaN;
+    for (let j = lo; ; j++) {
+      if (this.removed[j]) continue;
+      if (rank === upper) {
+        this.y[b] = m % 2 ? this.sorted[j] : 0.5 * (below + this.sorted[j]);
+        break;
+      }
+      below = this.sorted[j];
+      rank++;
+    }
+    this.x[b] = this.xsum[b] / m;
   }
 
   /** The block medians joined by straight lines into cont, flat beyond the outer ones (NaN when no block counts). */
