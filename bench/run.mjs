@@ -1,11 +1,14 @@
 // Benchmark of `zvet measure` on the open survey spectra (run by `npm run bench` after the
 // build): spectra per second with --jobs 1 and with all cores, the time per stage, and the peak
-// resident memory over a long batch. Prints figures against the targets; asserts nothing.
+// resident memory over a long batch; then the CPU time per spectrum of the engine run in this
+// process (steadier than wall-clock rates on a shared machine). Prints figures against the
+// targets; asserts nothing.
+import { build } from 'esbuild';
 import { spawn } from 'node:child_process';
 import { readdirSync, readFileSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 const sdss = resolve(root, '../shared/spectra-open/sdss');
@@ -60,3 +63,28 @@ for (const jobs of [1, cores]) {
 }
 const r = await run(repeated(long), cores);
 console.log(`${long} spectra, --jobs ${cores}: ${(long / r.seconds).toFixed(1)} spectra/s; peak RSS ${r.peakMb.toFixed(0)} MB (target < 300 MB)`);
+
+// The engine in this process: CPU time (user + system) per spectrum, read and measured, after a
+// warm-up pass, over 10 passes of the survey spectra.
+const engine = join(root, 'dist/bench-engine.mjs');
+await build({
+  stdin: { contents: "export { readSpectrum } from './core/spectrum/read.ts'; export { measureRedshift } from './core/redshift/measure.ts';", resolveDir: root, loader: 'ts' },
+  bundle: true, platform: 'node', format: 'esm', outfile: engine, logLevel: 'warning',
+});
+const { readSpectrum, measureRedshift } = await import(pathToFileURL(engine).href);
+const bytes = survey.map((f) => ({ name: f, data: new Uint8Array(readFileSync(f)) }));
+const cpuMs = () => { const u = process.cpuUsage(); return (u.user + u.system) / 1000; };
+for (const b of bytes) measureRedshift(readSpectrum(b.data, b.name));
+let readCpu = 0, measureCpu = 0;
+for (let pass = 0; pass < 10; pass++) {
+  for (const b of bytes) {
+    const t0 = cpuMs();
+    const spectrum = readSpectrum(b.data, b.name);
+    const t1 = cpuMs();
+    measureRedshift(spectrum);
+    measureCpu += cpuMs() - t1;
+    readCpu += t1 - t0;
+  }
+}
+const per = (ms) => ms / (10 * bytes.length);
+console.log(`engine in one thread: ${per(readCpu + measureCpu).toFixed(2)} ms CPU per spectrum (read ${per(readCpu).toFixed(2)}, measure ${per(measureCpu).toFixed(2)}), ≈ ${(1000 / per(readCpu + measureCpu)).toFixed(0)} spectra/s per core before file reading and worker overheads`);
