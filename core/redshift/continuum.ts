@@ -6,10 +6,30 @@
 
 /** Continuum of `flux` where good[i] = 1; blockPixels wide blocks, `iterations` clipping passes. */
 export function robustContinuum(flux: Float64Array, good: Uint8Array, blockPixels: number, iterations = 3, clipSigma = 2.5): Float64Array {
+  return clippedContinuum(BlockMedians.sortedOver(flux, good, blockPixels), good, iterations, clipSigma);
+}
+
+/** A flux array's blocks sorted once, for several continua over subsets of its good pixels. */
+export type ContinuumBlocks = BlockMedians;
+
+export function continuumBlocks(flux: Float64Array, good: Uint8Array, blockPixels: number): ContinuumBlocks {
+  return BlockMedians.sortedOver(flux, good, blockPixels);
+}
+
+/**
+ * robustContinuum of the blocks' flux where good[i] = 1, from blocks sorted once over a superset
+ * of `good`: the pixels left out are taken out of a copy instead of sorting again. Same result.
+ */
+export function robustContinuumOf(blocks: ContinuumBlocks, good: Uint8Array, iterations = 3, clipSigma = 2.5): Float64Array {
+  return clippedContinuum(blocks.without(good), good, iterations, clipSigma);
+}
+
+/** The iterative clipping on blocks holding exactly the pixels of `good` (the blocks are used up). */
+function clippedContinuum(blocks: BlockMedians, good: Uint8Array, iterations: number, clipSigma: number): Float64Array {
+  const { flux } = blocks;
   const n = flux.length;
   const use = Uint8Array.from(good);
   const scratch = new Float64Array(n);
-  const blocks = new BlockMedians(flux, use, blockPixels);
   const cont = new Float64Array(n);
   blocks.interpolate(cont);
   for (let it = 0; it < iterations; it++) {
@@ -25,7 +45,7 @@ export function robustContinuum(flux: Float64Array, good: Uint8Array, blockPixel
       for (let i = blocks.lo(b), end = blocks.lo(b + 1); i < end; i++) {
         if (use[i] && Math.abs(flux[i] - cont[i]) > limit) {
           use[i] = 0;
-          blocks.remove(b, flux[i], i);
+          blocks.remove(b, i);
           hit = true;
         }
       }
@@ -39,93 +59,117 @@ export function robustContinuum(flux: Float64Array, good: Uint8Array, blockPixel
   return cont;
 }
 
+/** What a continuum fit changes in its blocks. */
+interface BlockState {
+  /** Mean pixel position and median of each block, and 1 where the block has enough pixels to count. */
+  x: Float64Array;
+  y: Float64Array;
+  valid: Uint8Array;
+  /** Flag per sorted value, values left and Σ of their pixel indices (exact in doubles) per block. */
+  removed: Uint8Array;
+  left: Int32Array;
+  xsum: Float64Array;
+}
+
 /**
  * Medians of equal blocks of pixels. Each block's usable values are sorted once; clipping then
  * only marks values as removed, and a block's new median is read off by counting.
  */
 class BlockMedians {
-  readonly count: number;
-  private readonly n: number;
-  private readonly x: Float64Array;
-  private readonly y: Float64Array;
-  /** 1 where the block has enough pixels to count. */
-  private readonly valid: Uint8Array;
-  /** Block b's usable values ascending in sorted[lo(b) … lo(b) + size[b]), with a removed flag each. */
-  private readonly sorted: Float64Array;
-  private readonly removed: Uint8Array;
-  private readonly size: Int32Array;
-  private readonly left: Int32Array;
-  /** Σ of the pixel indices still in each block (exact in doubles). */
-  private readonly xsum: Float64Array;
+  private constructor(
+    readonly flux: Float64Array,
+    readonly count: number,
+    /** The pixels the blocks were sorted over. */
+    private readonly base: Uint8Array,
+    /** Block b's values ascending in sorted[lo(b) … lo(b) + size[b]). */
+    private readonly sorted: Float64Array,
+    private readonly size: Int32Array,
+    private readonly s: BlockState,
+  ) {}
 
-  constructor(flux: Float64Array, use: Uint8Array, blockPixels: number) {
-    const n = (this.n = flux.length);
-    this.count = Math.max(1, Math.round(n / blockPixels));
-    this.x = new Float64Array(this.count);
-    this.y = new Float64Array(this.count);
-    this.valid = new Uint8Array(this.count);
-    this.sorted = new Float64Array(n);
-    this.removed = new Uint8Array(n);
-    this.size = new Int32Array(this.count);
-    this.left = new Int32Array(this.count);
-    this.xsum = new Float64Array(this.count);
-    for (let b = 0; b < this.count; b++) {
-      const lo = this.lo(b), hi = this.lo(b + 1);
+  static sortedOver(flux: Float64Array, use: Uint8Array, blockPixels: number): BlockMedians {
+    const n = flux.length, count = Math.max(1, Math.round(n / blockPixels));
+    const state: BlockState = { x: new Float64Array(count), y: new Float64Array(count), valid: new Uint8Array(count), removed: new Uint8Array(n), left: new Int32Array(count), xsum: new Float64Array(count) };
+    const blocks = new BlockMedians(flux, count, Uint8Array.from(use), new Float64Array(n), new Int32Array(count), state);
+    for (let b = 0; b < count; b++) {
+      const lo = blocks.lo(b), hi = blocks.lo(b + 1);
       let k = 0, xsum = 0;
-      for (let i = lo; i < hi; i++) if (use[i]) { this.sorted[lo + k++] = flux[i]; xsum += i; }
-      this.sorted.subarray(lo, lo + k).sort();
-      this.size[b] = this.left[b] = k;
-      this.xsum[b] = xsum;
-      this.refresh(b);
+      for (let i = lo; i < hi; i++) if (use[i]) { blocks.sorted[lo + k++] = flux[i]; xsum += i; }
+      blocks.sorted.subarray(lo, lo + k).sort();
+      blocks.size[b] = state.left[b] = k;
+      state.xsum[b] = xsum;
+      blocks.refresh(b);
     }
+    return blocks;
+  }
+
+  /** A copy holding only the pixels of `use`; sorted afresh when `use` has pixels these blocks were not sorted over. */
+  without(use: Uint8Array): BlockMedians {
+    const n = this.flux.length;
+    for (let i = 0; i < n; i++) if (use[i] && !this.base[i]) return BlockMedians.sortedOver(this.flux, use, n / this.count);
+    const { x, y, valid, removed, left, xsum } = this.s;
+    const copy = new BlockMedians(this.flux, this.count, this.base, this.sorted, this.size, { x: x.slice(), y: y.slice(), valid: valid.slice(), removed: removed.slice(), left: left.slice(), xsum: xsum.slice() });
+    for (let b = 0; b < this.count; b++) {
+      let hit = false;
+      for (let i = this.lo(b), end = this.lo(b + 1); i < end; i++) {
+        if (this.base[i] && !use[i]) {
+          copy.remove(b, i);
+          hit = true;
+        }
+      }
+      if (hit) copy.refresh(b);
+    }
+    return copy;
   }
 
   /** First pixel of block b (b = count gives n). */
   lo(b: number): number {
-    return Math.floor((b * this.n) / this.count);
+    return Math.floor((b * this.flux.length) / this.count);
   }
 
-  /** Takes pixel i, of the given value, out of block b. */
-  remove(b: number, value: number, i: number): void {
-    const from = this.lo(b);
-    let lo = from, hi = from + this.size[b];
+  /** Takes pixel i out of block b. */
+  remove(b: number, i: number): void {
+    const value = this.flux[i], { removed } = this.s;
+    let lo = this.lo(b), hi = lo + this.size[b];
     while (lo < hi) {
       const mid = (lo + hi) >> 1;
       if (this.sorted[mid] < value) lo = mid + 1;
       else hi = mid;
     }
-    while (this.removed[lo]) lo++;
-    this.removed[lo] = 1;
-    this.left[b]--;
-    this.xsum[b] -= i;
+    while (removed[lo]) lo++;
+    removed[lo] = 1;
+    this.s.left[b]--;
+    this.s.xsum[b] -= i;
   }
 
   /** Block b's median and mean pixel position from the values still in it. */
   refresh(b: number): void {
-    const lo = this.lo(b), m = this.left[b];
-    this.valid[b] = m >= Math.max(3, 0.2 * (this.lo(b + 1) - lo)) ? 1 : 0;
-    if (!this.valid[b]) return;
+    const { s } = this;
+    const lo = this.lo(b), m = s.left[b];
+    s.valid[b] = m >= Math.max(3, 0.2 * (this.lo(b + 1) - lo)) ? 1 : 0;
+    if (!s.valid[b]) return;
     // The values of ranks m/2 − 1 and m/2 (for odd m, (m − 1)/2 alone).
     const upper = m >> 1;
     let rank = 0, below = NaN;
     for (let j = lo; ; j++) {
-      if (this.removed[j]) continue;
+      if (s.removed[j]) continue;
       if (rank === upper) {
-        this.y[b] = m % 2 ? this.sorted[j] : 0.5 * (below + this.sorted[j]);
+        s.y[b] = m % 2 ? this.sorted[j] : 0.5 * (below + this.sorted[j]);
         break;
       }
       below = this.sorted[j];
       rank++;
     }
-    this.x[b] = this.xsum[b] / m;
+    s.x[b] = s.xsum[b] / m;
   }
 
   /** The block medians joined by straight lines into cont, flat beyond the outer ones (NaN when no block counts). */
   interpolate(cont: Float64Array): void {
+    const { x, y, valid } = this.s;
     const xs = new Float64Array(this.count), ys = new Float64Array(this.count);
     let m = 0;
-    for (let b = 0; b < this.count; b++) if (this.valid[b]) { xs[m] = this.x[b]; ys[m] = this.y[b]; m++; }
-    const n = this.n;
+    for (let b = 0; b < this.count; b++) if (valid[b]) { xs[m] = x[b]; ys[m] = y[b]; m++; }
+    const n = this.flux.length;
     if (m <= 1) {
       cont.fill(m === 1 ? ys[0] : NaN);
       return;

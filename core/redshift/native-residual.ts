@@ -3,8 +3,8 @@
  * known redshifts the continuum is re-estimated with the templates' lines masked, so that broad
  * lines do not pull it up; one estimate can mask the lines of several candidates at once.
  */
-import { robustContinuum } from './continuum.js';
-import { continuumBlockPixels, type PreparedSpectrum } from './preprocess.js';
+import { robustContinuumOf } from './continuum.js';
+import type { PreparedSpectrum } from './preprocess.js';
 import { lowerBound, type ProfileLine, type Template } from './templates.js';
 import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
 
@@ -42,7 +42,7 @@ export function nativeResidual(p: PreparedSpectrum, masks: readonly LineMask[]):
   let kept = 0;
   for (let i = 0; i < use.length; i++) kept += use[i];
   const linesMasked = masks.length > 0 && kept > 0.3 * p.nGood;
-  const gridCont = linesMasked ? robustContinuum(p.flux, use, continuumBlockPixels(grid.step, grid.length)) : p.continuum;
+  const gridCont = linesMasked ? robustContinuumOf(p.continuumBlocks, use) : p.continuum;
   const { waveAngstrom, flux, sigma, good } = p.native;
   const n = waveAngstrom.length;
   const { cell, frac } = gridPositions(p);

@@ -4,7 +4,7 @@
  * and zero mean (Tonry & Davis 1979, AJ 84, 1511, §II, for the recipe).
  */
 import type { Spectrum } from '../spectrum/spectrum.js';
-import { robustContinuum, median, medianInPlace } from './continuum.js';
+import { continuumBlocks, median, medianInPlace, robustContinuumOf, type ContinuumBlocks } from './continuum.js';
 import { gridStepFor, rebinFluxConserving, type LogGrid } from './log-grid.js';
 import { applyObservedMasks } from './observed-masks.js';
 import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
@@ -34,6 +34,8 @@ export interface PreparedSpectrum {
   weight: Float64Array;
   good: Uint8Array;
   continuum: Float64Array;
+  /** The flux's continuum blocks, sorted over the pixels good before spike clipping. */
+  continuumBlocks: ContinuumBlocks;
   native: NativePixels;
   /** Whether σ came from the file. */
   hasErrors: boolean;
@@ -93,7 +95,9 @@ export function preprocess(spectrum: Spectrum, opts: PreprocessOptions): Prepare
   for (let i = 0; i < sigma.length; i++) variance[i] = sigma[i] * sigma[i];
   const rb = rebinFluxConserving(waveAngstrom, flux, variance, good, grid);
   const m = grid.length;
-  const continuum = robustContinuum(rb.flux, rb.good, continuumBlockPixels(step, m));
+  // Sorted once here; the refits with lines masked (native-residual.ts) reuse the blocks.
+  const blocks = continuumBlocks(rb.flux, rb.good, continuumBlockPixels(step, m));
+  const continuum = robustContinuumOf(blocks, rb.good);
   const resid = new Float64Array(m);
   for (let i = 0; i < m; i++) resid[i] = rb.good[i] ? rb.flux[i] - continuum[i] : 0;
   clipSpikes(resid, rb.variance, rb.good);
@@ -104,7 +108,7 @@ export function preprocess(spectrum: Spectrum, opts: PreprocessOptions): Prepare
   for (let i = 0; i < m; i++) { sw += weight[i]; s += weight[i] * resid[i]; nGood += rb.good[i]; }
   const mean = sw > 0 ? s / sw : 0;
   for (let i = 0; i < m; i++) resid[i] = rb.good[i] ? resid[i] - mean : 0;
-  return { grid, flux: rb.flux, resid, weight, good: rb.good, continuum, native, hasErrors, nGood };
+  return { grid, flux: rb.flux, resid, weight, good: rb.good, continuum, continuumBlocks: blocks, native, hasErrors, nGood };
 }
 
 /**
