@@ -27,8 +27,12 @@ import type { Template } from './templates.js';
 import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
 import { LruCache } from '../util/lru-cache.js';
 
-/** Spectrum ranges are rounded out to multiples of this many pixels to share cached templates. */
-const RANGE_QUANTUM = 256;
+/**
+ * Spectrum ranges are rounded out to multiples of this many pixels to share cached templates;
+ * small, because the FFT length follows the rounded range (at 256 a BOSS spectrum's passive
+ * correlation on the two-pixel grid needed 8192 points instead of 4096).
+ */
+const RANGE_QUANTUM = 32;
 /** Lags where the template covers less than this fraction of the spectrum are not searched. */
 export const MIN_OVERLAP = 0.1;
 /** Lags where the template holds less than this fraction of its best window's energy are not searched. */
