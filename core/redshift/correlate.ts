@@ -228,20 +228,45 @@ function spectrumTransforms(p: CorrelationInput, lay: Layout, fft: ComplexFft): 
 /** Correlates the spectrum with each template over its z range, each on its grid (coarse-grid.ts). */
 export function correlate(p: PreparedSpectrum, templates: TemplateUse[]): CorrelationCurveData[] {
   const inputs = new Map<number, CorrelationInput>();
-  const specCache = new Map<string, SpectrumTransforms>();
-  return templates.map(({ template, zMin, zMax }) => {
+  const plans = templates.map(({ template, zMin, zMax }) => {
     const choice = gridChoiceFor(template, p.grid.step);
     let input = inputs.get(choice.binFactor);
     if (!input) inputs.set(choice.binFactor, (input = binnedInput(p, choice.binFactor)));
     const margin = sigmaAMarginLags(template, input);
     const lay = layoutFor(input, zMin, zMax, margin);
-    const e = bankEntry(template, input, lay);
-    const skey = `${input.binFactor}|${lay.specOrigin}|${e.fft.size}`;
-    let st = specCache.get(skey);
-    if (!st) specCache.set(skey, (st = spectrumTransforms(input, lay, e.fft)));
-    const curve = correlateOne(input, template, e, lay, st, margin);
+    return { template, choice, input, margin, lay, entry: bankEntry(template, input, lay) };
+  });
+  // One forward transform per grid, at its longest FFT; shorter ones are every k-th bin of it.
+  const transforms = new Map<string, SpectrumTransforms>();
+  const transformsFor = (input: CorrelationInput, lay: Layout, fft: ComplexFft): SpectrumTransforms => {
+    const key = (size: number) => `${input.binFactor}|${size}`;
+    let st = transforms.get(key(fft.size));
+    if (st) return st;
+    const longest = plans.filter((q) => q.input === input).reduce((m, q) => (q.entry.fft.size > m.size ? q.entry.fft : m), fft);
+    let full = transforms.get(key(longest.size));
+    if (!full) transforms.set(key(longest.size), (full = spectrumTransforms(input, lay, longest)));
+    if (longest !== fft) transforms.set(key(fft.size), (st = everyKthBin(full, longest.size / fft.size, fft, input.binFactor)));
+    return st ?? full;
+  };
+  return plans.map(({ template, choice, input, margin, lay, entry }) => {
+    const curve = correlateOne(input, template, entry, lay, transformsFor(input, lay, entry.fft), margin);
     return choice.describeNatively ? { ...curve, describeNatively: true, nativeWindows: [] } : curve;
   });
+}
+
+/**
+ * The transforms at a k times shorter FFT: the spectrum buffer is zero beyond the shorter length,
+ * so its N-point DFT is every k-th bin of the kN-point one. The running sums are shared.
+ */
+function everyKthBin(full: SpectrumTransforms, k: number, fft: ComplexFft, binFactor: number): SpectrumTransforms {
+  const [, , , sw, w] = scratchFor(fft, binFactor).z;
+  for (let j = 0; j < fft.size; j++) {
+    sw[2 * j] = full.sw[2 * j * k];
+    sw[2 * j + 1] = full.sw[2 * j * k + 1];
+    w[2 * j] = full.w[2 * j * k];
+    w[2 * j + 1] = full.w[2 * j * k + 1];
+  }
+  return { sw, w, s2Sum: full.s2Sum, goodSum: full.goodSum, nGood: full.nGood };
 }
 
 function correlateOne(p: CorrelationInput, template: Template, e: BankEntry, lay: Layout, st: SpectrumTransforms, margin: number): CorrelationCurveData {
