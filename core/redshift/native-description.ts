@@ -16,6 +16,8 @@ import { LruCache } from '../util/lru-cache.js';
 
 /** Profile evaluated to this many line σ beyond the outer lines (the lines are cut at ±5σ). */
 const PROFILE_SIGMAS = 6;
+/** Windows up to this many lags are summed lag by lag (the locating ones); longer ones pixel by pixel. */
+const FEW_LAGS = 16;
 /** Sparse profiles kept (least recently used dropped). */
 const PROFILE_CACHE_SIZE = 24;
 
@@ -105,12 +107,26 @@ function nativeWindow(p: PreparedSpectrum, coarse: CorrelationCurveData, use: Te
   const nGood = sums.goodSum[length];
   const c = new Float64Array(nLag), t2 = new Float64Array(nLag);
   const { ws } = sums, w = p.weight;
+  // At lag la + i, rest index runStart + u meets native pixel runStart + u + la + i − start.
+  // Few lags: sum over each run's pixels per lag; many: add each pixel's share over the lags.
+  const fewLags = nLag <= FEW_LAGS;
   for (let r = 0; r < sp.runStart.length; r++) {
-    const tv = sp.t[r], t2v = sp.t2[r];
+    const tv = sp.t[r], t2v = sp.t2[r], base = sp.runStart[r] + la - start;
+    if (fewLags) {
+      for (let i = 0; i < nLag; i++) {
+        const off = base + i, uLo = Math.max(0, -off), uHi = Math.min(tv.length, length - off);
+        let a = 0, b = 0;
+        for (let u = uLo; u < uHi; u++) {
+          a += ws[off + u] * tv[u];
+          b += w[off + u] * t2v[u];
+        }
+        c[i] += a;
+        t2[i] += b;
+      }
+      continue;
+    }
     for (let u = 0; u < tv.length; u++) {
-      // At lag la + i, rest index runStart + u meets native pixel off + i.
-      const off = sp.runStart[r] + u + la - start;
-      const tu = tv[u], t2u = t2v[u];
+      const off = base + u, tu = tv[u], t2u = t2v[u];
       const iLo = Math.max(0, -off), iHi = Math.min(nLag, length - off);
       for (let i = iLo; i < iHi; i++) c[i] += ws[off + i] * tu;
       for (let i = iLo; i < iHi; i++) t2[i] += w[off + i] * t2u;
