@@ -57,7 +57,7 @@ const MAX_COARSE_PIXEL_KMS = 300;
 const MAX_BIN_FACTOR = 4;
 
 /** The largest power of two up to MAX_BIN_FACTOR whose binned pixel stays within MAX_COARSE_PIXEL_KMS. */
-export function coarseBinFactor(step: number): number {
+function coarseBinFactor(step: number): number {
   let k = 1;
   while (2 * k <= MAX_BIN_FACTOR && 2 * k * SPEED_OF_LIGHT_KMS * step <= MAX_COARSE_PIXEL_KMS) k *= 2;
   return k;
