@@ -6,29 +6,29 @@
 
 /** Continuum of `flux` where good[i] = 1; blockPixels wide blocks, `iterations` clipping passes. */
 export function robustContinuum(flux: Float64Array, good: Uint8Array, blockPixels: number, iterations = 3, clipSigma = 2.5): Float64Array {
-  return clippedContinuum(BlockMedians.sortedOver(flux, good, blockPixels), good, iterations, clipSigma);
+  return clippedContinuum(BlockMedians.over(flux, good, blockPixels), good, iterations, clipSigma);
 }
 
-/** A flux array's blocks sorted once, for several continua over subsets of its good pixels. */
+/** A flux array's block medians, taken once for several continua over subsets of its good pixels. */
 export type ContinuumBlocks = BlockMedians;
 
 export function continuumBlocks(flux: Float64Array, good: Uint8Array, blockPixels: number): ContinuumBlocks {
-  return BlockMedians.sortedOver(flux, good, blockPixels);
+  return BlockMedians.over(flux, good, blockPixels);
 }
 
 /**
- * robustContinuum of the blocks' flux where good[i] = 1, from blocks sorted once over a superset
- * of `good`: the pixels left out are taken out of a copy instead of sorting again. Same result.
+ * robustContinuum of the blocks' flux where good[i] = 1, from blocks measured over a superset of
+ * `good`: only the blocks that lose pixels get a new median. Same result.
  */
 export function robustContinuumOf(blocks: ContinuumBlocks, good: Uint8Array, iterations = 3, clipSigma = 2.5): Float64Array {
-  return clippedContinuum(blocks.without(good), good, iterations, clipSigma);
+  return clippedContinuum(blocks.restrictedTo(good), good, iterations, clipSigma);
 }
 
 /** The iterative clipping on blocks holding exactly the pixels of `good` (the blocks are used up). */
 function clippedContinuum(blocks: BlockMedians, good: Uint8Array, iterations: number, clipSigma: number): Float64Array {
   const { flux } = blocks;
   const n = flux.length;
-  const use = Uint8Array.from(good);
+  const use = good.slice();
   const scratch = new Float64Array(n);
   const cont = new Float64Array(n);
   blocks.interpolate(cont);
@@ -42,15 +42,14 @@ function clippedContinuum(blocks: BlockMedians, good: Uint8Array, iterations: nu
     let changed = false;
     for (let b = 0; b < blocks.count; b++) {
       let hit = false;
-      for (let i = blocks.lo(b), end = blocks.lo(b + 1); i < end; i++) {
+      for (let i = blocks.starts[b], end = blocks.starts[b + 1]; i < end; i++) {
         if (use[i] && Math.abs(flux[i] - cont[i]) > limit) {
           use[i] = 0;
-          blocks.remove(b, i);
           hit = true;
         }
       }
       // Only the blocks that lost pixels get a new median.
-      if (hit) blocks.refresh(b);
+      if (hit) blocks.refresh(b, use, scratch);
       changed ||= hit;
     }
     if (!changed) break;
@@ -59,113 +58,65 @@ function clippedContinuum(blocks: BlockMedians, good: Uint8Array, iterations: nu
   return cont;
 }
 
-/** What a continuum fit changes in its blocks. */
-interface BlockState {
-  /** Mean pixel position and median of each block, and 1 where the block has enough pixels to count. */
-  x: Float64Array;
-  y: Float64Array;
-  valid: Uint8Array;
-  /** Flag per sorted value, values left and Σ of their pixel indices (exact in doubles) per block. */
-  removed: Uint8Array;
-  left: Int32Array;
-  xsum: Float64Array;
-}
-
-/**
- * Medians of equal blocks of pixels. Each block's usable values are sorted once; clipping then
- * only marks values as removed, and a block's new median is read off by counting.
- */
+/** Medians of equal blocks of pixels over a set of them (each by selection, not sorting). */
 class BlockMedians {
   private constructor(
     readonly flux: Float64Array,
-    readonly count: number,
-    /** The pixels the blocks were sorted over. */
+    /** Block b holds pixels starts[b] … starts[b + 1] − 1. */
+    readonly starts: Int32Array,
+    /** The pixels the medians were taken over. */
     private readonly base: Uint8Array,
-    /** Block b's values ascending in sorted[lo(b) … lo(b) + size[b]). */
-    private readonly sorted: Float64Array,
-    private readonly size: Int32Array,
-    private readonly s: BlockState,
+    /** Mean pixel position and median of each block, and 1 where the block has enough pixels to count. */
+    private readonly x: Float64Array,
+    private readonly y: Float64Array,
+    private readonly valid: Uint8Array,
   ) {}
 
-  static sortedOver(flux: Float64Array, use: Uint8Array, blockPixels: number): BlockMedians {
+  get count(): number {
+    return this.starts.length - 1;
+  }
+
+  static over(flux: Float64Array, use: Uint8Array, blockPixels: number): BlockMedians {
     const n = flux.length, count = Math.max(1, Math.round(n / blockPixels));
-    const state: BlockState = { x: new Float64Array(count), y: new Float64Array(count), valid: new Uint8Array(count), removed: new Uint8Array(n), left: new Int32Array(count), xsum: new Float64Array(count) };
-    const blocks = new BlockMedians(flux, count, Uint8Array.from(use), new Float64Array(n), new Int32Array(count), state);
-    for (let b = 0; b < count; b++) {
-      const lo = blocks.lo(b), hi = blocks.lo(b + 1);
-      let k = 0, xsum = 0;
-      for (let i = lo; i < hi; i++) if (use[i]) { blocks.sorted[lo + k++] = flux[i]; xsum += i; }
-      blocks.sorted.subarray(lo, lo + k).sort();
-      blocks.size[b] = state.left[b] = k;
-      state.xsum[b] = xsum;
-      blocks.refresh(b);
-    }
+    const starts = new Int32Array(count + 1);
+    for (let b = 0; b <= count; b++) starts[b] = Math.floor((b * n) / count);
+    const blocks = new BlockMedians(flux, starts, use.slice(), new Float64Array(count), new Float64Array(count), new Uint8Array(count));
+    const scratch = new Float64Array(n);
+    for (let b = 0; b < count; b++) blocks.refresh(b, use, scratch);
     return blocks;
   }
 
-  /** A copy holding only the pixels of `use`; sorted afresh when `use` has pixels these blocks were not sorted over. */
-  without(use: Uint8Array): BlockMedians {
+  /** A copy holding only the pixels of `use`; measured afresh when `use` has pixels these blocks were not taken over. */
+  restrictedTo(use: Uint8Array): BlockMedians {
     const n = this.flux.length;
-    for (let i = 0; i < n; i++) if (use[i] && !this.base[i]) return BlockMedians.sortedOver(this.flux, use, n / this.count);
-    const { x, y, valid, removed, left, xsum } = this.s;
-    const copy = new BlockMedians(this.flux, this.count, this.base, this.sorted, this.size, { x: x.slice(), y: y.slice(), valid: valid.slice(), removed: removed.slice(), left: left.slice(), xsum: xsum.slice() });
+    for (let i = 0; i < n; i++) if (use[i] && !this.base[i]) return BlockMedians.over(this.flux, use, n / this.count);
+    const copy = new BlockMedians(this.flux, this.starts, this.base, this.x.slice(), this.y.slice(), this.valid.slice());
+    const scratch = new Float64Array(n);
     for (let b = 0; b < this.count; b++) {
-      let hit = false;
-      for (let i = this.lo(b), end = this.lo(b + 1); i < end; i++) {
+      for (let i = this.starts[b], end = this.starts[b + 1]; i < end; i++) {
         if (this.base[i] && !use[i]) {
-          copy.remove(b, i);
-          hit = true;
+          copy.refresh(b, use, scratch);
+          break;
         }
       }
-      if (hit) copy.refresh(b);
     }
     return copy;
   }
 
-  /** First pixel of block b (b = count gives n). */
-  lo(b: number): number {
-    return Math.floor((b * this.flux.length) / this.count);
-  }
-
-  /** Takes pixel i out of block b. */
-  remove(b: number, i: number): void {
-    const value = this.flux[i], { removed } = this.s;
-    let lo = this.lo(b), hi = lo + this.size[b];
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if (this.sorted[mid] < value) lo = mid + 1;
-      else hi = mid;
-    }
-    while (removed[lo]) lo++;
-    removed[lo] = 1;
-    this.s.left[b]--;
-    this.s.xsum[b] -= i;
-  }
-
-  /** Block b's median and mean pixel position from the values still in it. */
-  refresh(b: number): void {
-    const { s } = this;
-    const lo = this.lo(b), m = s.left[b];
-    s.valid[b] = m >= Math.max(3, 0.2 * (this.lo(b + 1) - lo)) ? 1 : 0;
-    if (!s.valid[b]) return;
-    // The values of ranks m/2 − 1 and m/2 (for odd m, (m − 1)/2 alone).
-    const upper = m >> 1;
-    let rank = 0, below = NaN;
-    for (let j = lo; ; j++) {
-      if (s.removed[j]) continue;
-      if (rank === upper) {
-        s.y[b] = m % 2 ? this.sorted[j] : 0.5 * (below + this.sorted[j]);
-        break;
-      }
-      below = this.sorted[j];
-      rank++;
-    }
-    s.x[b] = s.xsum[b] / m;
+  /** Block b's median and mean pixel position over the pixels of `use` in it. */
+  refresh(b: number, use: Uint8Array, scratch: Float64Array): void {
+    const lo = this.starts[b], hi = this.starts[b + 1];
+    let m = 0, xsum = 0;
+    for (let i = lo; i < hi; i++) if (use[i]) { scratch[m++] = this.flux[i]; xsum += i; }
+    this.valid[b] = m >= Math.max(3, 0.2 * (hi - lo)) ? 1 : 0;
+    if (!this.valid[b]) return;
+    this.y[b] = medianInPlace(scratch, m);
+    this.x[b] = xsum / m;
   }
 
   /** The block medians joined by straight lines into cont, flat beyond the outer ones (NaN when no block counts). */
   interpolate(cont: Float64Array): void {
-    const { x, y, valid } = this.s;
+    const { x, y, valid } = this;
     const xs = new Float64Array(this.count), ys = new Float64Array(this.count);
     let m = 0;
     for (let b = 0; b < this.count; b++) if (valid[b]) { xs[m] = x[b]; ys[m] = y[b]; m++; }

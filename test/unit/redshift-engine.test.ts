@@ -1,7 +1,7 @@
 // Unit checks of the redshift engine on synthetic data with known answers.
 import { describe, expect, it } from 'vitest';
 import { apodise } from '../../core/redshift/preprocess.js';
-import { median } from '../../core/redshift/continuum.js';
+import { continuumBlocks, median, robustContinuum, robustContinuumOf } from '../../core/redshift/continuum.js';
 import { complexFft, forwardRealPair } from '../../core/redshift/fft.js';
 import { rebinFluxConserving, pixelEdges, type LogGrid } from '../../core/redshift/log-grid.js';
 import { describePeak, findPeaks } from '../../core/redshift/peaks.js';
@@ -319,6 +319,25 @@ describe('templateModelFlux', () => {
 
   it('names the template it does not know', () => {
     expect(() => templateModelFlux('no-such-template', 0.1, synthetic(0.1, 1, 9))).toThrow(/no-such-template/);
+  });
+});
+
+describe('robust continuum', () => {
+  it('from blocks measured once over more pixels equals the continuum measured afresh on the subset', () => {
+    const g = rng(5);
+    const n = 3000;
+    // A sloped continuum with emission and absorption lines and a few spikes.
+    const flux = Float64Array.from({ length: n }, (_, i) => 10 + 0.002 * i + g() + (i % 397 < 4 ? 30 : 0) - (i % 211 < 3 ? 6 : 0));
+    const all = new Uint8Array(n).fill(1);
+    const subset = all.slice();
+    for (let i = 700; i < 760; i++) subset[i] = 0;
+    for (let i = 2100; i < 2112; i++) subset[i] = 0;
+    const blocks = continuumBlocks(flux, all, 150);
+    expect(robustContinuumOf(blocks, subset)).toEqual(robustContinuum(flux, subset, 150));
+    expect(robustContinuumOf(blocks, all)).toEqual(robustContinuum(flux, all, 150));
+    // The continuum follows the slope, not the lines: within 0.5 of 10 + 0.002·i away from the ends.
+    const cont = robustContinuum(flux, all, 150);
+    for (let i = 200; i < n - 200; i += 50) expect(Math.abs(cont[i] - (10 + 0.002 * i))).toBeLessThan(0.5);
   });
 });
 
