@@ -16,8 +16,6 @@ import { LruCache } from '../util/lru-cache.js';
 
 /** Profile evaluated to this many line σ beyond the outer lines (the lines are cut at ±5σ). */
 const PROFILE_SIGMAS = 6;
-/** Windows up to this many lags are summed lag by lag (the locating ones); longer ones pixel by pixel. */
-const FEW_LAGS = 16;
 /** Sparse profiles kept (least recently used dropped). */
 const PROFILE_CACHE_SIZE = 24;
 
@@ -106,32 +104,8 @@ function nativeWindow(p: PreparedSpectrum, coarse: CorrelationCurveData, use: Te
   const sums = spectrumSums(p);
   const nGood = sums.goodSum[length];
   const c = new Float64Array(nLag), t2 = new Float64Array(nLag);
-  const { ws } = sums, w = p.weight;
   // At lag la + i, rest index runStart + u meets native pixel runStart + u + la + i − start.
-  // Few lags: sum over each run's pixels per lag; many: add each pixel's share over the lags.
-  const fewLags = nLag <= FEW_LAGS;
-  for (let r = 0; r < sp.runStart.length; r++) {
-    const tv = sp.t[r], t2v = sp.t2[r], base = sp.runStart[r] + la - start;
-    if (fewLags) {
-      for (let i = 0; i < nLag; i++) {
-        const off = base + i, uLo = Math.max(0, -off), uHi = Math.min(tv.length, length - off);
-        let a = 0, b = 0;
-        for (let u = uLo; u < uHi; u++) {
-          a += ws[off + u] * tv[u];
-          b += w[off + u] * t2v[u];
-        }
-        c[i] += a;
-        t2[i] += b;
-      }
-      continue;
-    }
-    for (let u = 0; u < tv.length; u++) {
-      const off = base + u, tu = tv[u], t2u = t2v[u];
-      const iLo = Math.max(0, -off), iHi = Math.min(nLag, length - off);
-      for (let i = iLo; i < iHi; i++) c[i] += ws[off + i] * tu;
-      for (let i = iLo; i < iHi; i++) t2[i] += w[off + i] * t2u;
-    }
-  }
+  for (let r = 0; r < sp.runStart.length; r++) addRunSums(sums.ws, p.weight, sp.t[r], sp.t2[r], sp.runStart[r] + la - start, c, t2);
   const rho = new Float64Array(nLag), score = new Float64Array(nLag), overlap = new Float64Array(nLag);
   for (let i = 0; i < nLag; i++) {
     const lag = la + i;
@@ -150,6 +124,58 @@ function nativeWindow(p: PreparedSpectrum, coarse: CorrelationCurveData, use: Te
     rho[i] = score[i] / Math.sqrt(s2);
   }
   return { template, step, binFactor: 1, minWindowLags: TD_MIN_WINDOW_LAGS, describeNatively: false, lagMin: la, searchLo: Math.max(0, searchMin - la), searchHi: Math.min(nLag - 1, searchMax - la), rho, score, overlap };
+}
+
+/**
+ * c[i] += Σ_u ws[base + i + u]·t[u] and t2[i] += Σ_u w[base + i + u]·tSq[u] for every lag i of
+ * c, pixels outside the spectrum counting as zero. Four lags at a time, so that each template
+ * value is loaded once per four lags and the sums stay in registers (about twice as fast as
+ * pixel by pixel over the lags).
+ */
+function addRunSums(ws: Float64Array, w: Float64Array, t: Float64Array, tSq: Float64Array, base: number, c: Float64Array, t2: Float64Array): void {
+  const nLag = c.length, len = t.length, length = ws.length;
+  let i = 0;
+  for (; i < nLag; i++) {
+    const off = base + i;
+    if (off >= 0 && off + 3 + len <= length && i + 3 < nLag) break;
+    addOneLag(ws, w, t, tSq, off, c, t2, i);
+  }
+  for (; i + 3 < nLag && base + i + 3 + len <= length; i += 4) {
+    const off = base + i;
+    let a0 = 0, a1 = 0, a2 = 0, a3 = 0, b0 = 0, b1 = 0, b2 = 0, b3 = 0;
+    for (let u = 0; u < len; u++) {
+      const tu = t[u], qu = tSq[u], o = off + u;
+      a0 += ws[o] * tu;
+      a1 += ws[o + 1] * tu;
+      a2 += ws[o + 2] * tu;
+      a3 += ws[o + 3] * tu;
+      b0 += w[o] * qu;
+      b1 += w[o + 1] * qu;
+      b2 += w[o + 2] * qu;
+      b3 += w[o + 3] * qu;
+    }
+    c[i] += a0;
+    c[i + 1] += a1;
+    c[i + 2] += a2;
+    c[i + 3] += a3;
+    t2[i] += b0;
+    t2[i + 1] += b1;
+    t2[i + 2] += b2;
+    t2[i + 3] += b3;
+  }
+  for (; i < nLag; i++) addOneLag(ws, w, t, tSq, base + i, c, t2, i);
+}
+
+/** One lag of addRunSums, clipped to the spectrum. */
+function addOneLag(ws: Float64Array, w: Float64Array, t: Float64Array, tSq: Float64Array, off: number, c: Float64Array, t2: Float64Array, i: number): void {
+  const uLo = Math.max(0, -off), uHi = Math.min(t.length, ws.length - off);
+  let a = 0, b = 0;
+  for (let u = uLo; u < uHi; u++) {
+    a += ws[off + u] * t[u];
+    b += w[off + u] * tSq[u];
+  }
+  c[i] += a;
+  t2[i] += b;
 }
 
 /** A coarse peak's position on the native grid. */
