@@ -27,39 +27,47 @@ export function finishSpectrum(draft: SpectrumDraft, fileName: string, override?
   if (n === 0) fail('the spectrum has no pixels');
   const medium = override ?? draft.medium;
   // The draft's arrays are its own (every reader makes them fresh): converted in place, kept, not copied.
-  const wave = draft.wave;
+  const { wave, flux } = draft;
+  const error = draft.error ?? new Float64Array(n).fill(NaN);
+  const mask = draft.mask ?? new Uint8Array(n);
+  const hasError = draft.error !== undefined;
   const toAngstrom = draft.waveUnit.toAngstrom;
   const air = medium.medium === 'air';
-  for (let i = 0; i < n; i++) {
-    const w = wave[i] * toAngstrom;
-    if (!Number.isFinite(w) || w <= 0) fail(`wavelength of pixel ${i + 1} is ${wave[i]}, not a positive number`);
-    wave[i] = air ? airToVacuum(w) : w;
-  }
-  const order = wavelengthOrder(wave);
-  if (order.kind === 'scrambled') {
-    fail(`the wavelengths are not in order (pixel ${order.at + 1} breaks the sequence)`);
-  }
-  const flipped = order.kind === 'descending';
-  const pick = <T extends Float64Array | Uint8Array>(a: T): T => (flipped ? (a.reverse() as T) : a);
-  const flux = pick(draft.flux);
-  const error = draft.error ? pick(draft.error) : new Float64Array(n).fill(NaN);
-  const mask = draft.mask ? pick(draft.mask) : new Uint8Array(n);
+  // One pass over the pixels; the first failure of each kind is kept and reported in this order:
+  // a wavelength that is not a positive number, wavelengths out of order, no finite flux, too few usable pixels.
+  let badWave = -1;
+  let badWaveValue = 0;
+  let outOfOrder = -1;
+  let up = true;
   let finite = 0;
   let usable = 0;
   for (let i = 0; i < n; i++) {
+    const w = wave[i] * toAngstrom;
+    if (badWave < 0 && !(Number.isFinite(w) && w > 0)) {
+      badWave = i;
+      badWaveValue = wave[i];
+    }
+    wave[i] = air ? airToVacuum(w) : w;
+    // Strictly ascending or strictly descending, by the first two pixels (repeated values break both).
+    if (i === 1) up = wave[1] > wave[0];
+    if (i > 0 && outOfOrder < 0 && (up ? !(wave[i] > wave[i - 1]) : !(wave[i] < wave[i - 1]))) outOfOrder = i;
     if (Number.isFinite(flux[i])) finite++;
     else mask[i] = 1;
-    if (draft.error && !(Number.isFinite(error[i]) && error[i] > 0)) mask[i] = 1;
+    if (hasError && !(Number.isFinite(error[i]) && error[i] > 0)) mask[i] = 1;
     if (!mask[i]) usable++;
   }
+  if (badWave >= 0) fail(`wavelength of pixel ${badWave + 1} is ${badWaveValue}, not a positive number`);
+  if (outOfOrder >= 0) fail(`the wavelengths are not in order (pixel ${outOfOrder + 1} breaks the sequence)`);
   if (finite === 0) fail('the flux is NaN or infinite in every pixel');
   if (usable < MIN_USABLE_PIXELS) fail(`only ${usable} usable pixels (at least ${MIN_USABLE_PIXELS} are needed)`);
+  const flipped = !up;
+  const pick = <T extends Float64Array | Uint8Array>(a: T): T => (flipped ? (a.reverse() as T) : a);
   return {
     fileName,
-    waveAngstrom: flipped ? wave.reverse() : wave,
-    flux,
-    error,
-    mask,
+    waveAngstrom: pick(wave),
+    flux: pick(flux),
+    error: pick(error),
+    mask: pick(mask),
     ...(draft.sky ? { sky: pick(draft.sky) } : {}),
     fluxUnit: draft.fluxUnit,
     meta: draft.meta,
@@ -78,16 +86,4 @@ export function finishSpectrum(draft: SpectrumDraft, fileName: string, override?
       header: draft.header,
     },
   };
-}
-
-type Order = { kind: 'ascending' | 'descending' } | { kind: 'scrambled'; at: number };
-
-/** Strictly ascending, strictly descending, or neither (repeated values count as neither). */
-export function wavelengthOrder(wave: Float64Array): Order {
-  if (wave.length < 2) return { kind: 'ascending' };
-  const up = wave[1] > wave[0];
-  for (let i = 1; i < wave.length; i++) {
-    if (up ? !(wave[i] > wave[i - 1]) : !(wave[i] < wave[i - 1])) return { kind: 'scrambled', at: i };
-  }
-  return { kind: up ? 'ascending' : 'descending' };
 }

@@ -40,10 +40,12 @@ export interface SurveyDefaults {
 }
 
 export function headerParts(ctx: HduContext, defaults: SurveyDefaults = {}): Pick<LayoutDraft, 'medium' | 'meta' | 'header'> {
+  // Every card is parsed for the header display first; the keyword look-ups then use those cards.
+  const header = headerCards(ctx);
   return {
     medium: mediumFromKeywords(ctx.keywords) ?? defaults.medium ?? ASSUMED_AIR,
     meta: metadataOf(ctx.keywords, defaults.frame),
-    header: headerCards(ctx),
+    header,
   };
 }
 
