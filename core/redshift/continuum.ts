@@ -41,15 +41,20 @@ function clippedContinuum(blocks: BlockMedians, good: Uint8Array, iterations: nu
     const limit = clipSigma * sigma;
     let changed = false;
     for (let b = 0; b < blocks.count; b++) {
-      let hit = false;
+      let hit = false, m = 0, xsum = 0;
+      // The pixels kept are gathered as the others are clipped.
       for (let i = blocks.starts[b], end = blocks.starts[b + 1]; i < end; i++) {
-        if (use[i] && Math.abs(flux[i] - cont[i]) > limit) {
+        if (!use[i]) continue;
+        if (Math.abs(flux[i] - cont[i]) > limit) {
           use[i] = 0;
           hit = true;
+        } else {
+          scratch[m++] = flux[i];
+          xsum += i;
         }
       }
       // Only the blocks that lost pixels get a new median.
-      if (hit) blocks.refresh(b, use, scratch);
+      if (hit) blocks.set(b, scratch, m, xsum);
       changed ||= hit;
     }
     if (!changed) break;
@@ -105,12 +110,16 @@ class BlockMedians {
 
   /** Block b's median and mean pixel position over the pixels of `use` in it. */
   refresh(b: number, use: Uint8Array, scratch: Float64Array): void {
-    const lo = this.starts[b], hi = this.starts[b + 1];
     let m = 0, xsum = 0;
-    for (let i = lo; i < hi; i++) if (use[i]) { scratch[m++] = this.flux[i]; xsum += i; }
-    this.valid[b] = m >= Math.max(3, 0.2 * (hi - lo)) ? 1 : 0;
+    for (let i = this.starts[b], end = this.starts[b + 1]; i < end; i++) if (use[i]) { scratch[m++] = this.flux[i]; xsum += i; }
+    this.set(b, scratch, m, xsum);
+  }
+
+  /** Block b from the flux of its m pixels (values[0…m−1], reordered) and Σ of their indices. */
+  set(b: number, values: Float64Array, m: number, xsum: number): void {
+    this.valid[b] = m >= Math.max(3, 0.2 * (this.starts[b + 1] - this.starts[b])) ? 1 : 0;
     if (!this.valid[b]) return;
-    this.y[b] = medianInPlace(scratch, m);
+    this.y[b] = medianInPlace(values, m);
     this.x[b] = xsum / m;
   }
 
