@@ -4,7 +4,7 @@
  * single source). Emission and absorption lines narrower than a block barely move it.
  */
 
-/** Continuum of `flux` where good[i] = 1; blockPixels wide blocks, `iterations` clipping passes. */
+/** Continuum of `flux` where good[i] = 1 (good holds 0 or 1); blockPixels wide blocks, `iterations` clipping passes. */
 export function robustContinuum(flux: Float64Array, good: Uint8Array, blockPixels: number, iterations = 3, clipSigma = 2.5): Float64Array {
   return clippedContinuum(BlockMedians.over(flux, good, blockPixels), good, iterations, clipSigma);
 }
@@ -34,7 +34,11 @@ function clippedContinuum(blocks: BlockMedians, good: Uint8Array, iterations: nu
   blocks.interpolate(cont);
   for (let it = 0; it < iterations; it++) {
     let k = 0;
-    for (let i = 0; i < n; i++) if (use[i]) scratch[k++] = Math.abs(flux[i] - cont[i]);
+    // Written at every pixel and kept where used: no branch in the loop.
+    for (let i = 0; i < n; i++) {
+      scratch[k] = Math.abs(flux[i] - cont[i]);
+      k += use[i];
+    }
     if (k < 10) break;
     const sigma = 1.4826 * medianInPlace(scratch, k);
     if (!(sigma > 0)) break;
@@ -136,9 +140,11 @@ class BlockMedians {
     }
     let i = 0;
     for (; i < n && i <= xs[0]; i++) cont[i] = ys[0];
+    // Pixels up to the last one before the last block's centre are interpolated.
+    const last = Math.min(n - 1, Math.ceil(xs[m - 1]) - 1);
     for (let s = 0; s < m - 1; s++) {
       const x0 = xs[s], dx = xs[s + 1] - x0, y0 = ys[s], dy = ys[s + 1] - y0;
-      for (; i < n && i <= xs[s + 1] && i < xs[m - 1]; i++) cont[i] = y0 + ((i - x0) / dx) * dy;
+      for (const end = Math.min(last, Math.floor(xs[s + 1])); i <= end; i++) cont[i] = y0 + ((i - x0) / dx) * dy;
     }
     for (; i < n; i++) cont[i] = ys[m - 1];
   }

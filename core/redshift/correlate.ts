@@ -274,12 +274,19 @@ function correlateOne(p: CorrelationInput, template: Template, e: BankEntry, lay
   const n = fft.size;
   const [x, cx] = scratchFor(fft, p.binFactor).z;
   const sw = st.sw, w = st.w, t = e.t, t2v = e.t2;
-  for (let re = 0; re < 2 * n; re += 2) {
-    const im = re + 1;
-    // conj(SW)·T + i·conj(W)·T2
+  // X = A + i·B with A = conj(SW)·T and B = conj(W)·T2, both spectra of real correlations and
+  // so Hermitian (exactly, as forwardPackedPair unpacks them): bins k ≤ N/2 give bin N − k as
+  // conj(A) + i·conj(B).
+  for (let k = 0; k <= n >> 1; k++) {
+    const re = 2 * k, im = re + 1;
     const swr = sw[re], swi = sw[im], tr = t[re], ti = t[im], wr = w[re], wi = w[im], ur = t2v[re], ui = t2v[im];
-    x[re] = swr * tr - swi * ti - (wr * ui + wi * ur);
-    x[im] = swr * ti + swi * tr + (wr * ur - wi * ui);
+    const ar = swr * tr - swi * ti, ai = swr * ti + swi * tr, br = wr * ur - wi * ui, bi = wr * ui + wi * ur;
+    x[re] = ar - bi;
+    x[im] = ai + br;
+    if (k === 0 || 2 * k === n) continue;
+    const mr = 2 * (n - k);
+    x[mr] = ar + bi;
+    x[mr + 1] = br - ai;
   }
   fft.inverse(cx, x);
   const nLag = lay.lagMax - lay.lagMin + 1;
