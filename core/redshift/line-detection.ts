@@ -3,6 +3,7 @@
  * template width, continuum removed) by weighted least squares; seen when its S/N ≥ 3 with the
  * template's sign (common practice, no source).
  */
+import { unitGaussian } from './gaussian.js';
 import { lineRun, usable, type NativeResidual } from './native-residual.js';
 import type { Template } from './templates.js';
 import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
@@ -20,12 +21,12 @@ export function detectLines(nr: NativeResidual, template: Template, z: number): 
     const [from, to] = lineRun(nr, l, z, 2.5);
     const centre = l.waveRestAngstrom * (1 + z);
     const sigmaA = (centre * Math.hypot(l.sigmaKmS, nr.pixelKmS)) / SPEED_OF_LIGHT_KMS;
+    const invSigmaA = 1 / sigmaA;
     let sty = 0, stt = 0, used = 0;
     for (let i = from; i < to; i++) {
       if (!usable(nr, i)) continue;
       used++;
-      const u = (nr.waveAngstrom[i] - centre) / sigmaA;
-      const t = Math.exp(-0.5 * u * u);
+      const t = unitGaussian((nr.waveAngstrom[i] - centre) * invSigmaA);
       const w = 1 / (nr.sigma[i] * nr.sigma[i]);
       sty += w * t * nr.resid[i];
       stt += w * t * t;

@@ -6,6 +6,7 @@
  * Recipes, §15.5), scaled by √χ²_red when that exceeds 1; when χ²_red is large the spread of the
  * lines' own velocities is a floor (centroidScatterKmS).
  */
+import { unitGaussian } from './gaussian.js';
 import { lineGroups } from './line-groups.js';
 import { choleskySolve, inverseDiagonal, lmFit, type LmProblem } from './lm-fit.js';
 import { lineRun, pixelArrays, pixelsNearLines, usable, type NativeResidual } from './native-residual.js';
@@ -78,7 +79,7 @@ export function fitEmissionLines(nr: NativeResidual, template: Template, z0: num
     const f = fit.free.indexOf(3 + g);
     return f >= 0 && variance[f] > 0 ? Math.sqrt(variance[f] * Math.max(1, chi2Red)) : Infinity;
   };
-  const scatterKmS = chi2Red > SCATTER_FLOOR_CHI2RED ? centroidScatterKmS({ comps, nGroups, z0, inst, xs, ys, ws, lower, upper }, p, ampErr) : 0;
+  const scatterKmS = chi2Red > SCATTER_FLOOR_CHI2RED ? centroidScatterKmS({ profiles, nGroups, ys, ws, lower, upper }, p, ampErr) : 0;
   const sigmaV = Math.max(covarianceKmS, scatterKmS);
   const z = (1 + z0) * (1 + p[0] / SPEED_OF_LIGHT_KMS) - 1;
   return { z, zErr: ((1 + z0) * sigmaV) / SPEED_OF_LIGHT_KMS, chi2Red, nLinesFitted: inRange.length };
@@ -112,8 +113,8 @@ class LineProfiles {
   readonly to: Int32Array;
   readonly at: Int32Array;
   phi = new Float64Array(0);
-  private readonly z0: number;
-  private readonly inst: number;
+  readonly z0: number;
+  readonly inst: number;
   private readonly centre: Float64Array;
   private readonly width: Float64Array;
   /** v, σ_narrow, σ_broad the profiles in phi are for (NaN before the first compute). */
@@ -164,19 +165,30 @@ class LineProfiles {
       // ∂φ/∂c = φ·u/s, ∂c/∂v = λ_rest(1+z0)/C; ∂φ/∂s = φ(u² − 1)/s, ∂s/∂σv = c·σv/(C·stot)
       const dcdv = (comp.line.waveRestAngstrom * (1 + z0)) / SPEED_OF_LIGHT_KMS / sA;
       const dsdsv = (centre * sv) / (SPEED_OF_LIGHT_KMS * stot) / sA;
-      const from = this.from[c], to = this.to[c], at = this.at[c];
+      const from = this.from[c], to = this.to[c], invS = 1 / sA;
+      let q = this.at[c];
       if (!sums) {
         if (known) continue;
-        for (let k = from; k < to; k++) {
-          const u = (xs[k] - centre) / sA;
-          phi[at + k - from] = norm * Math.exp(-0.5 * u * u);
+        for (let k = from; k < to; k++, q++) {
+          const u = (xs[k] - centre) * invS;
+          phi[q] = norm * unitGaussian(u);
         }
         continue;
       }
       const amp = p[3 + comp.group], { model, dv } = sums, ds = comp.broad ? sums.dBroad : sums.dNarrow;
-      for (let k = from; k < to; k++) {
-        const u = (xs[k] - centre) / sA;
-        const g = known ? phi[at + k - from] : (phi[at + k - from] = norm * Math.exp(-0.5 * u * u));
+      if (known) {
+        for (let k = from; k < to; k++, q++) {
+          const u = (xs[k] - centre) * invS;
+          const ag = amp * phi[q];
+          model[k] += ag;
+          dv[k] += ag * u * dcdv;
+          ds[k] += ag * (u * u - 1) * dsdsv;
+        }
+        continue;
+      }
+      for (let k = from; k < to; k++, q++) {
+        const u = (xs[k] - centre) * invS;
+        const g = (phi[q] = norm * unitGaussian(u));
         const ag = amp * g;
         model[k] += ag;
         dv[k] += ag * u * dcdv;
@@ -267,20 +279,21 @@ function lineProblem(profiles: LineProfiles, nGroups: number, ys: Float64Array, 
       const { phi, from, to } = profiles;
       const start = profiles.at;
       // The v and width rows of JᵀWJ and JᵀW(y − model), in one pass.
-      sums.fill(0);
+      let s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, s5 = 0, s6 = 0, s7 = 0, s8 = 0;
       for (let k = 0; k < nY; k++) {
-        const r = resid[k], w = ws[k];
-        const a = w * dv[k], b = w * dn[k], c = w * db[k];
-        sums[0] += a * dv[k];
-        sums[1] += a * dn[k];
-        sums[2] += a * db[k];
-        sums[3] += b * dn[k];
-        sums[4] += b * db[k];
-        sums[5] += c * db[k];
-        sums[6] += a * r;
-        sums[7] += b * r;
-        sums[8] += c * r;
+        const r = resid[k], w = ws[k], dvk = dv[k], dnk = dn[k], dbk = db[k];
+        const a = w * dvk, b = w * dnk, c = w * dbk;
+        s0 += a * dvk;
+        s1 += a * dnk;
+        s2 += a * dbk;
+        s3 += b * dnk;
+        s4 += b * dbk;
+        s5 += c * dbk;
+        s6 += a * r;
+        s7 += b * r;
+        s8 += c * r;
       }
+      sums[0] = s0; sums[1] = s1; sums[2] = s2; sums[3] = s3; sums[4] = s4; sums[5] = s5; sums[6] = s6; sums[7] = s7; sums[8] = s8;
       const nF = free.length;
       normal.fill(0);
       gradient.fill(0);
@@ -325,11 +338,8 @@ const SCATTER_MIN_SNR = 5;
 const SCATTER_MIN_LINES = 3;
 
 interface JointFit {
-  comps: Component[];
+  profiles: LineProfiles;
   nGroups: number;
-  z0: number;
-  inst: number;
-  xs: Float64Array;
   ys: Float64Array;
   ws: Float64Array;
   lower: Float64Array;
@@ -345,34 +355,37 @@ interface JointFit {
  * SCATTER_MIN_LINES lines are strong enough.
  */
 function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) => number): number {
-  const full = new Float64Array(j.xs.length);
-  const all = new LineProfiles(j.comps, j.z0, j.inst, j.xs);
-  all.compute(p);
-  all.addModel(p, full);
+  const { comps, z0, inst, xs: allXs } = j.profiles;
+  const nAll = allXs.length;
+  const full = new Float64Array(nAll);
+  // The joint fit's own profiles: recomputed only when its last evaluation was not at p.
+  j.profiles.compute(p);
+  j.profiles.addModel(p, full);
+  const near = new Uint8Array(nAll), idx = new Int32Array(nAll);
   const velocities: number[] = [];
   for (let g = 0; g < j.nGroups; g++) {
     if (!(Math.abs(p[3 + g]) >= SCATTER_MIN_SNR * ampErr(g))) continue;
-    const own = j.comps.filter((c) => c.group === g);
-    const near = new Uint8Array(j.xs.length);
+    const own = comps.filter((c) => c.group === g);
+    near.fill(0);
     for (const c of own) {
-      const centre = c.line.waveRestAngstrom * (1 + j.z0) * (1 + p[0] / SPEED_OF_LIGHT_KMS);
-      const half = (3 * centre * Math.hypot(c.broad ? p[2] : p[1], j.inst)) / SPEED_OF_LIGHT_KMS;
-      for (let k = lowerBound(j.xs, centre - half); k < j.xs.length && j.xs[k] <= centre + half; k++) near[k] = 1;
+      const centre = c.line.waveRestAngstrom * (1 + z0) * (1 + p[0] / SPEED_OF_LIGHT_KMS);
+      const half = (3 * centre * Math.hypot(c.broad ? p[2] : p[1], inst)) / SPEED_OF_LIGHT_KMS;
+      for (let k = lowerBound(allXs, centre - half); k < nAll && allXs[k] <= centre + half; k++) near[k] = 1;
     }
-    const idx: number[] = [];
-    near.forEach((v, k) => v && idx.push(k));
-    if (idx.length < 4) continue;
-    const xs = new Float64Array(idx.length), ys = new Float64Array(idx.length), ws = new Float64Array(idx.length);
-    idx.forEach((k, i) => {
-      xs[i] = j.xs[k];
-      ws[i] = j.ws[k];
-    });
-    const mine = new Float64Array(xs.length);
-    const profiles = new LineProfiles(own, j.z0, j.inst, xs);
+    let n = 0;
+    for (let k = 0; k < nAll; k++) if (near[k]) idx[n++] = k;
+    if (n < 4) continue;
+    const xs = new Float64Array(n), ys = new Float64Array(n), ws = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      xs[i] = allXs[idx[i]];
+      ws[i] = j.ws[idx[i]];
+    }
+    const mine = new Float64Array(n);
+    const profiles = new LineProfiles(own, z0, inst, xs);
     profiles.compute(p);
     profiles.addModel(p, mine);
     // The other lines' share of the joint model stays subtracted.
-    idx.forEach((k, i) => (ys[i] = j.ys[k] - (full[k] - mine[i])));
+    for (let i = 0; i < n; i++) ys[i] = j.ys[idx[i]] - (full[idx[i]] - mine[i]);
     const lower = Float64Array.from(p), upper = Float64Array.from(p);
     lower[0] = j.lower[0];
     upper[0] = j.upper[0];
