@@ -98,8 +98,8 @@ export function binnedInput(p: PreparedSpectrum, k: number): CorrelationInput {
   const { step, start, length } = p.grid;
   const cStart = Math.floor(start / k);
   const cLength = Math.floor((start + length - 1) / k) - cStart + 1;
-  const weight = new Float64Array(cLength), resid = new Float64Array(cLength);
-  const energy = new Float64Array(cLength), goodCount = new Float64Array(cLength);
+  const all = new Float64Array(4 * cLength);
+  const [weight, resid, energy, goodCount] = [0, 1, 2, 3].map((q) => all.subarray(q * cLength, (q + 1) * cLength));
   for (let j = 0; j < length; j++) {
     const w = p.weight[j];
     if (!(w > 0)) continue;

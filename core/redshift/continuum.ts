@@ -24,12 +24,20 @@ export function robustContinuumOf(blocks: ContinuumBlocks, good: Uint8Array, ite
   return clippedContinuum(blocks.restrictedTo(good), good, iterations, clipSigma);
 }
 
+let workBuffer = new Float64Array(0);
+
+/** A work buffer of at least n values, shared by the calls here (none holds it across another). */
+function scratchOf(n: number): Float64Array {
+  if (workBuffer.length < n) workBuffer = new Float64Array(n);
+  return workBuffer;
+}
+
 /** The iterative clipping on blocks holding exactly the pixels of `good` (the blocks are used up). */
 function clippedContinuum(blocks: BlockMedians, good: Uint8Array, iterations: number, clipSigma: number): Float64Array {
   const { flux } = blocks;
   const n = flux.length;
   const use = good.slice();
-  const scratch = new Float64Array(n);
+  const scratch = scratchOf(n);
   const cont = new Float64Array(n);
   blocks.interpolate(cont);
   for (let it = 0; it < iterations; it++) {
@@ -90,7 +98,7 @@ class BlockMedians {
     const starts = new Int32Array(count + 1);
     for (let b = 0; b <= count; b++) starts[b] = Math.floor((b * n) / count);
     const blocks = new BlockMedians(flux, starts, use.slice(), new Float64Array(count), new Float64Array(count), new Uint8Array(count));
-    const scratch = new Float64Array(n);
+    const scratch = scratchOf(n);
     for (let b = 0; b < count; b++) blocks.refresh(b, use, scratch);
     return blocks;
   }
@@ -100,7 +108,7 @@ class BlockMedians {
     const n = this.flux.length;
     for (let i = 0; i < n; i++) if (use[i] && !this.base[i]) return BlockMedians.over(this.flux, use, n / this.count);
     const copy = new BlockMedians(this.flux, this.starts, this.base, this.x.slice(), this.y.slice(), this.valid.slice());
-    const scratch = new Float64Array(n);
+    const scratch = scratchOf(n);
     for (let b = 0; b < this.count; b++) {
       for (let i = this.starts[b], end = this.starts[b + 1]; i < end; i++) {
         if (this.base[i] && !use[i]) {

@@ -269,6 +269,12 @@ function everyKthBin(full: SpectrumTransforms, k: number, fft: ComplexFft, binFa
   return { sw, w, s2Sum: full.s2Sum, goodSum: full.goodSum, nGood: full.nGood };
 }
 
+/** ρ, score and overlap of a curve of nLag lags, as views of one allocation. */
+export function curveArrays(nLag: number): [Float64Array, Float64Array, Float64Array] {
+  const all = new Float64Array(3 * nLag);
+  return [all.subarray(0, nLag), all.subarray(nLag, 2 * nLag), all.subarray(2 * nLag)];
+}
+
 function correlateOne(p: CorrelationInput, template: Template, e: BankEntry, lay: Layout, st: SpectrumTransforms, margin: number): CorrelationCurveData {
   const { fft } = e;
   const n = fft.size;
@@ -293,7 +299,7 @@ function correlateOne(p: CorrelationInput, template: Template, e: BankEntry, lay
   let t2Max = 0;
   for (let i = 0; i < nLag; i++) t2Max = Math.max(t2Max, cx[2 * (lay.lagMax - lay.lagMin - i) + 1]);
   const t2Floor = MIN_TEMPLATE_ENERGY * t2Max;
-  const rho = new Float64Array(nLag), score = new Float64Array(nLag), overlap = new Float64Array(nLag);
+  const [rho, score, overlap] = curveArrays(nLag);
   // Buffer position m pairs spectrum origin with template origin + m, i.e. lag L = lagMax − m.
   for (let i = 0; i < nLag; i++) {
     const m = lay.lagMax - (lay.lagMin + i);

@@ -5,7 +5,7 @@
  * Tonry–Davis σ_a window, so z, r, the width and σz are those of the native-grid curve. The
  * template is sparse (lines over ±5σ), so the direct sums cost (window lags) × (template pixels).
  */
-import { CORRELATION_STRENGTH_POWER, coveredRange, MIN_OVERLAP, sigmaAMarginLags, type CorrelationCurveData } from './correlate.js';
+import { CORRELATION_STRENGTH_POWER, coveredRange, curveArrays, MIN_OVERLAP, sigmaAMarginLags, type CorrelationCurveData } from './correlate.js';
 import { nativeInput, pixelSigmaKmS, type CorrelationInput } from './coarse-grid.js';
 import { describePeak, TD_MIN_WINDOW_LAGS, TD_WINDOW_WIDTHS, type Peak } from './peaks.js';
 import type { PreparedSpectrum } from './preprocess.js';
@@ -106,7 +106,7 @@ function nativeWindow(p: PreparedSpectrum, coarse: CorrelationCurveData, use: Te
   const c = new Float64Array(nLag), t2 = new Float64Array(nLag);
   // At lag la + i, rest index runStart + u meets native pixel runStart + u + la + i − start.
   for (let r = 0; r < sp.runStart.length; r++) addRunSums(sums.ws, p.weight, sp.t[r], sp.t2[r], sp.runStart[r] + la - start, c, t2);
-  const rho = new Float64Array(nLag), score = new Float64Array(nLag), overlap = new Float64Array(nLag);
+  const [rho, score, overlap] = curveArrays(nLag);
   for (let i = 0; i < nLag; i++) {
     const lag = la + i;
     const jLo = Math.max(0, sp.coverLo + lag - start), jHi = Math.min(length - 1, sp.coverHi + lag - start);
