@@ -130,9 +130,12 @@ function choleskyFactor(mat: Float64Array, n: number, minPivot = 0): boolean {
   return true;
 }
 
-/** Solves M·x = b for symmetric positive-definite M (n×n, overwritten by its Cholesky factor). */
-export function choleskySolve(mat: Float64Array, b: Float64Array, x: Float64Array, n: number): boolean {
-  if (!choleskyFactor(mat, n)) return false;
+/**
+ * Solves M·x = b for symmetric positive-definite M (n×n, overwritten by its Cholesky factor);
+ * false when a pivot is not above minPivot.
+ */
+export function choleskySolve(mat: Float64Array, b: Float64Array, x: Float64Array, n: number, minPivot = 0): boolean {
+  if (!choleskyFactor(mat, n, minPivot)) return false;
   for (let i = 0; i < n; i++) {
     let s = b[i];
     for (let k = 0; k < i; k++) s -= mat[i * n + k] * x[k];

@@ -3,8 +3,8 @@
  * spectrum template is one profile), and their weighted least-squares amplitudes with the
  * template's signs. Used to draw a template on a spectrum and to refine absorption redshifts.
  */
-import { invert } from '../math/linear-algebra.js';
 import { lineGroups } from './line-groups.js';
+import { choleskySolve } from './lm-fit.js';
 import { addLineProfile, type Template } from './templates.js';
 
 /**
@@ -43,39 +43,45 @@ export function profileSupports(basis: Float64Array[], w: Float64Array): number[
  * Weighted least-squares amplitudes ≥ 0 of the profiles in `groups` (the others stay 0): the
  * unconstrained solution, then the most negative amplitude fixed at 0 and the rest refitted
  * until none is negative (an active-set reduction, after Lawson & Hanson 1974, Solving Least
- * Squares Problems, ch. 23).
+ * Squares Problems, ch. 23), each by a Cholesky solve of its normal equations.
  */
 export function nonNegativeFit(basis: Float64Array[], y: Float64Array, w: Float64Array, groups: number[], support = profileSupports(basis, w)): Float64Array {
   const m = basis.length;
   const a = new Float64Array(m);
-  const ata = Array.from({ length: m }, () => new Array<number>(m).fill(0));
-  const aty = new Array<number>(m).fill(0);
+  const ata = new Float64Array(m * m), aty = new Float64Array(m);
   for (let g = 0; g < m; g++) {
-    const sg = support[g];
-    for (const i of sg) aty[g] += w[i] * basis[g][i] * y[i];
+    const sg = support[g], bg = basis[g];
+    let sy = 0;
+    for (const i of sg) sy += w[i] * bg[i] * y[i];
+    aty[g] = sy;
     for (let h = g; h < m; h++) {
       // Only where both profiles are non-zero: the other terms are exactly 0.
-      const sh = support[h];
+      const sh = support[h], bh = basis[h];
       if (!sg.length || !sh.length || sg[sg.length - 1] < sh[0] || sh[sh.length - 1] < sg[0]) continue;
+      const first = sh[0], last = sh[sh.length - 1];
       let s = 0;
-      for (const i of sg) if (i >= sh[0] && i <= sh[sh.length - 1]) s += w[i] * basis[g][i] * basis[h][i];
-      ata[g][h] = ata[h][g] = s;
+      for (const i of sg) if (i >= first && i <= last) s += w[i] * bg[i] * bh[i];
+      ata[g * m + h] = ata[h * m + g] = s;
     }
   }
-  const active = groups.filter((g) => ata[g][g] > 0);
+  const active = groups.filter((g) => ata[g * m + g] > 0);
+  const normal = new Float64Array(m * m), rhs = new Float64Array(m), sol = new Float64Array(m);
   while (active.length) {
-    const inv = invert(active.map((g) => active.map((h) => ata[g][h])));
-    if (!inv) {
+    const n = active.length;
+    let scale = 0;
+    for (let u = 0; u < n; u++) {
+      for (let v = 0; v < n; v++) scale = Math.max(scale, Math.abs((normal[u * n + v] = ata[active[u] * m + active[v]])));
+      rhs[u] = aty[active[u]];
+    }
+    // Singular to working precision (a pivot below 1e-14 of the largest entry): the last profile goes.
+    if (!choleskySolve(normal, rhs, sol, n, 1e-14 * scale)) {
       active.pop();
       continue;
     }
-    const sol = inv.map((row) => row.reduce((s, v, j) => s + v * aty[active[j]], 0));
     let worst = -1;
-    sol.forEach((v, k) => {
-      if (v < 0 && (worst < 0 || v < sol[worst])) worst = k;
-    });
+    for (let k = 0; k < n; k++) if (sol[k] < 0 && (worst < 0 || sol[k] < sol[worst])) worst = k;
     if (worst < 0) {
-      active.forEach((g, k) => (a[g] = sol[k]));
+      for (let k = 0; k < n; k++) a[active[k]] = sol[k];
       break;
     }
     active.splice(worst, 1);
