@@ -31,7 +31,7 @@ export interface LineMask {
 
 export function nativeResidual(p: PreparedSpectrum, masks: readonly LineMask[]): NativeResidual {
   const { grid } = p;
-  const use = Uint8Array.from(p.good);
+  const use = p.good.slice();
   for (const { template, z } of masks) {
     for (const l of template.lines) {
       const c = Math.log(l.waveRestAngstrom * (1 + z)) / grid.step - grid.start;
