@@ -47,8 +47,11 @@ export class CardIndex {
   /** First card (not HIERARCH) with the key, by looking at every card in turn; -1 when none. */
   private scan(w0: number, w1: number): number {
     if (this.lookups === SCANNED_LOOKUPS) this.build();
+    // Most cards differ in their first byte: that one byte is looked at before the words are worked out.
+    const first = w0 >>> 24;
     for (let i = 0; i < this.count; i++) {
       const at = i * CARD_LENGTH;
+      if (NORMALISED[this.bytes[at]] !== first) continue;
       if (word(this.bytes, at) === w0 && word(this.bytes, at + 4) === w1 && !isHierarchCard(this.bytes, at)) return i;
     }
     return -1;

@@ -130,13 +130,12 @@ export class FitsHeader {
 
   private parseOne(i: number, printable = false): FitsCard {
     const at = i * CARD_LENGTH;
-    if (this.text === undefined && this.bytes!.length > WHOLE_TEXT_MAX_BYTES) {
-      // A large header of which a few cards are looked up (survey metadata tables): decode just the card.
+    if (this.text === undefined) {
+      // Until all cards are asked for, a look-up decodes just its card: most headers see a few look-ups.
       const card = this.bytes!.subarray(at, at + CARD_LENGTH);
       const text = LATIN1.decode(card);
       return cardFromBytes(card, text, 0) ?? parseCard(printableText(text));
     }
-    this.text ??= LATIN1.decode(this.bytes);
     return cardFromBytes(this.bytes!, this.text, at, printable) ?? parseCard(this.cardImages(i, i + 1)[0]);
   }
 
@@ -156,12 +155,6 @@ export class FitsHeader {
 
 // windows-1252 (WHATWG 'latin1') maps every byte outside 0x20–0x7e outside that range too.
 const LATIN1 = new TextDecoder('latin1');
-
-/**
- * Headers up to this size are decoded whole at the first look-up; larger ones card by card
- * until all cards are asked for (decoding one card took 0.33 µs, a 40 kB header 20 µs).
- */
-const WHOLE_TEXT_MAX_BYTES = 8 * BLOCK_LENGTH;
 
 const NOT_PRINTABLE = /[^\x20-\x7e]/;
 
