@@ -209,20 +209,22 @@ class LineProfiles {
 /**
  * Σ w·φ_c·φ_d over the points two lines share, summed into their groups' entry of `out`
  * (row-major, nGroups²): the amplitude block of JᵀWJ, as the model is linear in the amplitudes.
+ * Each line's own Σ w·φ_c² comes in `self`, from the caller's pass over its points.
  */
-function amplitudeGram(profiles: LineProfiles, ws: Float64Array, nGroups: number, out: Float64Array): void {
+function amplitudeGram(profiles: LineProfiles, ws: Float64Array, nGroups: number, self: Float64Array, out: Float64Array): void {
   const { comps, phi, from, to, at } = profiles;
   out.fill(0);
   for (let c = 0; c < comps.length; c++) {
     const gc = comps[c].group;
-    for (let d = c; d < comps.length; d++) {
+    out[gc * nGroups + gc] += self[c];
+    for (let d = c + 1; d < comps.length; d++) {
       const lo = Math.max(from[c], from[d]), hi = Math.min(to[c], to[d]);
       if (lo >= hi) continue;
       let s = 0;
       for (let k = lo, qc = at[c] + lo - from[c], qd = at[d] + lo - from[d]; k < hi; k++, qc++, qd++) s += ws[k] * phi[qc] * phi[qd];
       const gd = comps[d].group;
       out[gc * nGroups + gd] += s;
-      if (d !== c) out[gd * nGroups + gc] += s;
+      out[gd * nGroups + gc] += s;
     }
   }
 }
@@ -235,12 +237,18 @@ function setInitialAmplitudes(profiles: LineProfiles, nGroups: number, ys: Float
   profiles.compute(p);
   const { comps, phi, from, to, at } = profiles;
   const a = new Float64Array(nGroups * nGroups), b = new Float64Array(nGroups), amp = new Float64Array(nGroups);
-  amplitudeGram(profiles, ws, nGroups, a);
+  const self = new Float64Array(comps.length);
   for (let c = 0; c < comps.length; c++) {
-    let s = 0;
-    for (let k = from[c], q = at[c]; k < to[c]; k++, q++) s += ws[k] * phi[q] * ys[k];
+    let s = 0, ss = 0;
+    for (let k = from[c], q = at[c]; k < to[c]; k++, q++) {
+      const wg = ws[k] * phi[q];
+      s += wg * ys[k];
+      ss += wg * phi[q];
+    }
     b[comps[c].group] += s;
+    self[c] = ss;
   }
+  amplitudeGram(profiles, ws, nGroups, self, a);
   for (let i = 0; i < nGroups; i++) a[i * nGroups + i] += 1e-12 * (a[i * nGroups + i] || 1);
   if (choleskySolve(a, b, amp, nGroups)) p.set(amp, 3);
 }
@@ -257,7 +265,7 @@ function lineProblem(profiles: LineProfiles, nGroups: number, ys: Float64Array, 
   const sumsAt: ModelSums = { model, dv, dNarrow: dn, dBroad: db };
   const gram = new Float64Array(nGroups * nGroups);
   const at = new Int32Array(3 + nGroups);
-  const sums = new Float64Array(9);
+  const sums = new Float64Array(9), self = new Float64Array(comps.length);
   return {
     lower,
     upper,
@@ -278,27 +286,48 @@ function lineProblem(profiles: LineProfiles, nGroups: number, ys: Float64Array, 
     linearise(free, normal, gradient) {
       const { phi, from, to } = profiles;
       const start = profiles.at;
-      // The v and width rows of JᵀWJ and JᵀW(y − model), in one pass.
-      let s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, s5 = 0, s6 = 0, s7 = 0, s8 = 0;
-      for (let k = 0; k < nY; k++) {
-        const r = resid[k], w = ws[k], dvk = dv[k], dnk = dn[k], dbk = db[k];
-        const a = w * dvk, b = w * dnk, c = w * dbk;
-        s0 += a * dvk;
-        s1 += a * dnk;
-        s2 += a * dbk;
-        s3 += b * dnk;
-        s4 += b * dbk;
-        s5 += c * dbk;
-        s6 += a * r;
-        s7 += b * r;
-        s8 += c * r;
-      }
-      sums[0] = s0; sums[1] = s1; sums[2] = s2; sums[3] = s3; sums[4] = s4; sums[5] = s5; sums[6] = s6; sums[7] = s7; sums[8] = s8;
       const nF = free.length;
       normal.fill(0);
       gradient.fill(0);
       at.fill(-1);
       for (let i = 0; i < nF; i++) at[free[i]] = i;
+      // The v and width rows of JᵀWJ and JᵀW(y − model), in one pass. Most fits have one width
+      // free (narrow lines alone, or a quasar's broad ones): its column alone is summed then.
+      const both = at[1] >= 0 && at[2] >= 0, wi = at[2] >= 0 && !both ? 2 : 1, dw = wi === 2 ? db : dn;
+      sums.fill(0);
+      if (both) {
+        let s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, s5 = 0, s6 = 0, s7 = 0, s8 = 0;
+        for (let k = 0; k < nY; k++) {
+          const r = resid[k], w = ws[k], dvk = dv[k], dnk = dn[k], dbk = db[k];
+          const a = w * dvk, b = w * dnk, c = w * dbk;
+          s0 += a * dvk;
+          s1 += a * dnk;
+          s2 += a * dbk;
+          s3 += b * dnk;
+          s4 += b * dbk;
+          s5 += c * dbk;
+          s6 += a * r;
+          s7 += b * r;
+          s8 += c * r;
+        }
+        sums[0] = s0; sums[1] = s1; sums[2] = s2; sums[3] = s3; sums[4] = s4; sums[5] = s5; sums[6] = s6; sums[7] = s7; sums[8] = s8;
+      } else {
+        let svv = 0, svw = 0, sww = 0, svr = 0, swr = 0;
+        for (let k = 0; k < nY; k++) {
+          const r = resid[k], w = ws[k], dvk = dv[k], dwk = dw[k];
+          const a = w * dvk, b = w * dwk;
+          svv += a * dvk;
+          svw += a * dwk;
+          sww += b * dwk;
+          svr += a * r;
+          swr += b * r;
+        }
+        sums[0] = svv;
+        sums[wi] = svw;
+        sums[wi === 1 ? 3 : 5] = sww;
+        sums[6] = svr;
+        sums[6 + wi] = swr;
+      }
       for (let i = 0, t = 0; i < 3; i++) {
         for (let j = i; j < 3; j++, t++) {
           if (at[i] >= 0 && at[j] >= 0) normal[at[i] * nF + at[j]] = normal[at[j] * nF + at[i]] = sums[t];
@@ -307,21 +336,24 @@ function lineProblem(profiles: LineProfiles, nGroups: number, ys: Float64Array, 
       }
       for (let c = 0; c < comps.length; c++) {
         const fa = at[3 + comps[c].group];
+        self[c] = 0;
         if (fa < 0) continue;
-        let sr = 0, sv = 0, sn = 0, sb = 0;
+        let sr = 0, sv = 0, sn = 0, sb = 0, ss = 0;
         for (let k = from[c], q = start[c]; k < to[c]; k++, q++) {
           const wg = ws[k] * phi[q];
+          ss += wg * phi[q];
           sr += wg * resid[k];
           sv += wg * dv[k];
           sn += wg * dn[k];
           sb += wg * db[k];
         }
+        self[c] = ss;
         gradient[fa] += sr;
         if (at[0] >= 0) normal[at[0] * nF + fa] = normal[fa * nF + at[0]] += sv;
         if (at[1] >= 0) normal[at[1] * nF + fa] = normal[fa * nF + at[1]] += sn;
         if (at[2] >= 0) normal[at[2] * nF + fa] = normal[fa * nF + at[2]] += sb;
       }
-      amplitudeGram(profiles, ws, nGroups, gram);
+      amplitudeGram(profiles, ws, nGroups, self, gram);
       for (let g = 0; g < nGroups; g++) {
         const fg = at[3 + g];
         if (fg < 0) continue;
