@@ -393,19 +393,26 @@ function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) =>
   // The joint fit's own profiles: recomputed only when its last evaluation was not at p.
   j.profiles.compute(p);
   j.profiles.addModel(p, full);
-  const near = new Uint8Array(nAll), idx = new Int32Array(nAll);
+  const idx = new Int32Array(nAll);
   const velocities: number[] = [];
   for (let g = 0; g < j.nGroups; g++) {
     if (!(Math.abs(p[3 + g]) >= SCATTER_MIN_SNR * ampErr(g))) continue;
     const own = comps.filter((c) => c.group === g);
-    near.fill(0);
-    for (const c of own) {
+    // The points within 3σ of the group's lines: one run per line, their union in order.
+    const runs = own.map((c) => {
       const centre = c.line.waveRestAngstrom * (1 + z0) * (1 + p[0] / SPEED_OF_LIGHT_KMS);
       const half = (3 * centre * Math.hypot(c.broad ? p[2] : p[1], inst)) / SPEED_OF_LIGHT_KMS;
-      for (let k = lowerBound(allXs, centre - half); k < nAll && allXs[k] <= centre + half; k++) near[k] = 1;
+      const from = lowerBound(allXs, centre - half);
+      let to = from;
+      while (to < nAll && allXs[to] <= centre + half) to++;
+      return [from, to];
+    });
+    runs.sort((a, b) => a[0] - b[0]);
+    let n = 0, next = 0;
+    for (const [from, to] of runs) {
+      for (let k = Math.max(from, next); k < to; k++) idx[n++] = k;
+      next = Math.max(next, to);
     }
-    let n = 0;
-    for (let k = 0; k < nAll; k++) if (near[k]) idx[n++] = k;
     if (n < 4) continue;
     const xs = new Float64Array(n), ys = new Float64Array(n), ws = new Float64Array(n);
     for (let i = 0; i < n; i++) {
