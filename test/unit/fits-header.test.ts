@@ -35,6 +35,31 @@ describe('parseCard', () => {
   });
 });
 
+describe('parseFitsNumber', () => {
+  // The reference is ECMAScript Number(), which rounds a decimal string correctly (ECMA-262
+  // §7.1.4.1.1); parseFitsNumber works short numbers out itself (Clinger's fast path) and
+  // must give the very same double, sign of zero included.
+  const same = (text: string) => expect(Object.is(parseFitsNumber(text), Number(text.replace(/[Dd]/, 'E')))).toBe(true);
+  it('equals Number() inside the fast path and at its edges', () => {
+    for (const t of ['0', '-0', '+0', '-0.0', '.5', '5.', '0.1', '0.3', '-12.5e+01', '4.35', '3.14159265358979', '123456789012345', '1e22', '1e-22', '7.5D-3', '56.3742820000000']) same(t);
+  });
+  it('equals Number() past the fast path (16+ digits, exponents beyond ±22)', () => {
+    for (const t of ['1234567890123456', '9007199254740993', '1e23', '1e-23', '0.1e-22', '2.2250738585072014e-308', '00000000000000000001']) same(t);
+  });
+  it('equals Number() on random decimals', () => {
+    let seed = 7;
+    const random = () => (seed = (Math.imul(seed, 1103515245) + 12345) >>> 0) / 2 ** 32;
+    const digits = (n: number) => Array.from({ length: n }, () => Math.floor(random() * 10)).join('');
+    for (let k = 0; k < 20000; k++) {
+      const exponent = random() < 0.5 ? `E${random() < 0.5 ? '-' : ''}${Math.floor(random() * 30)}` : '';
+      same(`${random() < 0.3 ? '-' : ''}${digits(1 + Math.floor(random() * 9))}.${digits(Math.floor(random() * 10))}${exponent}`);
+    }
+  });
+  it('refuses what is not a number, and infinities', () => {
+    for (const t of ['', '.', '-', '1e', '1e+', 'E5', '1.2.3', ' 1', '0x10', 'NaN', 'Infinity', '1e400']) expect(parseFitsNumber(t)).toBeNull();
+  });
+});
+
 describe('CONTINUE long strings', () => {
   it('joins the pieces, dropping each trailing &', () => {
     const cards = [

@@ -49,11 +49,15 @@ export function headerParts(ctx: HduContext, defaults: SurveyDefaults = {}): Pic
   };
 }
 
-/** The primary header's cards, then the extension's own when an extension was read. */
+/**
+ * The primary header's cards, then the extension's own when an extension was read. The parsed
+ * cards are handed over as they are (nothing uses the headers after reading), but for
+ * commentary cards that carry `comment: undefined`, which leave the key out.
+ */
 function headerCards(ctx: HduContext): HeaderCard[] {
   const own = ctx.hdu.header.cards;
   const cards = ctx.hdu.index === 0 ? own : [...ctx.file.hdus[0].header.cards, ...own];
-  return cards.map((c) => (c.comment === undefined ? { key: c.key, value: c.value } : { key: c.key, value: c.value, comment: c.comment }));
+  return cards.map((c) => ('comment' in c && c.comment === undefined ? { key: c.key, value: c.value } : c));
 }
 
 /** Flux unit from BUNIT (the HDU's, then the primary's). */

@@ -10,9 +10,10 @@ const exponents = new Float64Array(1 << SLOT_BITS).fill(NaN); // NaN equals noth
 const powers = new Float64Array(1 << SLOT_BITS);
 
 export function powerOfTen(x: number): number {
-  // The slot is the grid step: neighbouring pixels use neighbouring slots (memory stays local),
-  // and the 16384 steps of 1e-4 dex hold any optical-to-infrared grid without two values sharing one.
-  const slot = Math.round(x * 1e4) & SLOT_MASK;
+  // The slot is the grid step, so neighbouring pixels use neighbouring slots (memory stays local)
+  // and 16384 steps of 1e-4 dex hold an optical-to-infrared grid with one value per slot. Rounded
+  // by + 0.5 and | 0, several times faster than Math.round here; any slot gives the right result.
+  const slot = ((x * 1e4 + 0.5) | 0) & SLOT_MASK;
   if (exponents[slot] !== x) {
     exponents[slot] = x;
     powers[slot] = 10 ** x;
