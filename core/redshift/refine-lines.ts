@@ -138,11 +138,15 @@ class LineProfiles {
     const { comps, xs, z0 } = this;
     // The amplitudes alone changed (the first step after the start): the profiles stand.
     const known = p[0] === this.at3[0] && p[1] === this.at3[1] && p[2] === this.at3[2];
-    this.at3.set(p.subarray(0, 3));
+    this.at3[0] = p[0];
+    this.at3[1] = p[1];
+    this.at3[2] = p[2];
     const zf = (1 + z0) * (1 + p[0] / SPEED_OF_LIGHT_KMS);
+    // Line σ and the pixel width in quadrature, km/s, for the narrow and the broad lines.
+    const totalNarrow = Math.hypot(p[1], this.inst), totalBroad = Math.hypot(p[2], this.inst);
     for (let c = 0; c < comps.length; c++) {
       const centre = comps[c].line.waveRestAngstrom * zf;
-      const sA = (centre * Math.hypot(comps[c].broad ? p[2] : p[1], this.inst)) / SPEED_OF_LIGHT_KMS;
+      const sA = (centre * (comps[c].broad ? totalBroad : totalNarrow)) / SPEED_OF_LIGHT_KMS;
       const end = centre + PROFILE_REACH * sA;
       const from = lowerBound(xs, centre - PROFILE_REACH * sA);
       let to = lowerBound(xs, end);
@@ -160,7 +164,7 @@ class LineProfiles {
       const comp = comps[c];
       const centre = this.centre[c], sA = this.width[c];
       const sv = comp.broad ? p[2] : p[1];
-      const stot = Math.hypot(sv, this.inst);
+      const stot = comp.broad ? totalBroad : totalNarrow;
       const norm = comp.ratio / (sA * SQRT_2PI);
       // ∂φ/∂c = φ·u/s, ∂c/∂v = λ_rest(1+z0)/C; ∂φ/∂s = φ(u² − 1)/s, ∂s/∂σv = c·σv/(C·stot)
       const dcdv = (comp.line.waveRestAngstrom * (1 + z0)) / SPEED_OF_LIGHT_KMS / sA;
