@@ -23,8 +23,15 @@ export interface LogGrid {
 export function gridStepFor(waveAngstrom: Float64Array): number {
   const n = waveAngstrom.length;
   const d = new Float64Array(n - 1);
-  for (let i = 1; i < n; i++) d[i - 1] = Math.log(waveAngstrom[i] / waveAngstrom[i - 1]);
-  const median = selectInPlace(d, d.length, (d.length - 1) >> 1);
+  // The median of the ratios λ[i]/λ[i−1], then its log: one log instead of one per pixel.
+  let positive = true;
+  for (let i = 1; i < n; i++) {
+    d[i - 1] = waveAngstrom[i] / waveAngstrom[i - 1];
+    if (!(d[i - 1] > 0)) positive = false;
+  }
+  if (!positive) for (let i = 1; i < n; i++) d[i - 1] = Math.log(waveAngstrom[i] / waveAngstrom[i - 1]);
+  const mid = selectInPlace(d, d.length, (d.length - 1) >> 1);
+  const median = positive ? Math.log(mid) : mid;
   const k = Math.round(4 * Math.log2(median / SDSS_LN_STEP));
   return SDSS_LN_STEP * Math.pow(2, k / 4);
 }

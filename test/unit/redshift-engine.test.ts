@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { apodise } from '../../core/redshift/preprocess.js';
 import { continuumBlocks, median, robustContinuum, robustContinuumOf } from '../../core/redshift/continuum.js';
 import { complexFft, forwardRealPair } from '../../core/redshift/fft.js';
-import { rebinFluxConserving, pixelEdges, type LogGrid } from '../../core/redshift/log-grid.js';
+import { gridStepFor, rebinFluxConserving, pixelEdges, SDSS_LN_STEP, type LogGrid } from '../../core/redshift/log-grid.js';
 import { describePeak, findPeaks } from '../../core/redshift/peaks.js';
 import { binnedInput, nativeInput, pixelSigmaKmS, type CorrelationInput } from '../../core/redshift/coarse-grid.js';
 import { describeOnNativeGrid, locateOnNativeGrid } from '../../core/redshift/native-description.js';
@@ -51,6 +51,20 @@ function synthetic(z: number | null, sigma: number, seed: number, amplitude = 40
     provenance: { format: 'synthetic', hdu: null, spectrumHdus: [], medium: 'vacuum', mediumReason: '', dispersion: 'log10', errorKind: 'sigma', waveUnitInFile: 'Angstrom', hasMask: false, hasSky: false, flipped: false, header: [] },
   };
 }
+
+describe('grid step', () => {
+  it('is the median native Δ ln λ snapped to the ladder SDSS_LN_STEP·2^(k/4)', () => {
+    // SDSS: log10 λ in steps of 1e-4 (SDSS DR data model, loglam) gives the ladder's k = 0.
+    const sdss = Float64Array.from({ length: 3000 }, (_, i) => 10 ** (3.5798 + 1e-4 * i));
+    expect(gridStepFor(sdss)).toBe(SDSS_LN_STEP);
+    // Linear 2 Å pixels over 4000–10000 Å: median Δ ln λ ≈ 2/7000 Å = 1.24 × SDSS's, 4·log2 = 1.25, so k = 1.
+    const linear = Float64Array.from({ length: 3001 }, (_, i) => 4000 + 2 * i);
+    const logs = Array.from({ length: 3000 }, (_, i) => Math.log(linear[i + 1] / linear[i])).sort((a, b) => a - b);
+    const k = Math.round(4 * Math.log2(logs[1499] / SDSS_LN_STEP));
+    expect(k).toBe(1);
+    expect(gridStepFor(linear)).toBe(SDSS_LN_STEP * 2 ** (k / 4));
+  });
+});
 
 describe('flux-conserving rebinning', () => {
   it('keeps Σ f·Δλ over the covered range', () => {
