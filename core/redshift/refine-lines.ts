@@ -401,7 +401,9 @@ function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) =>
   const velocities: number[] = [];
   for (let g = 0; g < j.nGroups; g++) {
     if (!(Math.abs(p[3 + g]) >= SCATTER_MIN_SNR * ampErr(g))) continue;
-    const own = comps.filter((c) => c.group === g);
+    // The group's lines alone, their amplitude the only one of the refit: [v, σ_narrow, σ_broad, A].
+    const own = comps.filter((c) => c.group === g).map((c) => ({ ...c, group: 0 }));
+    const start = Float64Array.of(p[0], p[1], p[2], p[3 + g]);
     // The points within 3σ of the group's lines: one run per line, their union in order.
     const runs = own.map((c) => {
       const centre = c.line.waveRestAngstrom * (1 + z0) * (1 + p[0] / SPEED_OF_LIGHT_KMS);
@@ -425,16 +427,13 @@ function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) =>
     }
     const mine = new Float64Array(n);
     const profiles = new LineProfiles(own, z0, inst, xs);
-    profiles.compute(p);
-    profiles.addModel(p, mine);
+    profiles.compute(start);
+    profiles.addModel(start, mine);
     // The other lines' share of the joint model stays subtracted.
     for (let i = 0; i < n; i++) ys[i] = j.ys[idx[i]] - (full[idx[i]] - mine[i]);
-    const lower = Float64Array.from(p), upper = Float64Array.from(p);
-    lower[0] = j.lower[0];
-    upper[0] = j.upper[0];
-    lower[3 + g] = -Infinity;
-    upper[3 + g] = Infinity;
-    const v = lmFit(lineProblem(profiles, j.nGroups, ys, ws, lower, upper), p).p[0];
+    // v and the amplitude free, the widths held.
+    const lower = Float64Array.of(j.lower[0], p[1], p[2], -Infinity), upper = Float64Array.of(j.upper[0], p[1], p[2], Infinity);
+    const v = lmFit(lineProblem(profiles, 1, ys, ws, lower, upper), start).p[0];
     if (Math.abs(v) <= MAX_SHIFT_KMS) velocities.push(v);
   }
   const n = velocities.length;
