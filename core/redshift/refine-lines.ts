@@ -66,7 +66,8 @@ export function fitEmissionLines(nr: NativeResidual, template: Template, z0: num
   const upper = Float64Array.from([MAX_SHIFT_KMS * 2, fixedNarrow ? narrow0 : BROAD_KMS, fixedBroad ? broad0 : 6000, ...new Array<number>(nGroups).fill(Infinity)]);
   const profiles = new LineProfiles(comps, z0, inst, xs);
   setInitialAmplitudes(profiles, nGroups, ys, ws, start);
-  const fit = lmFit(lineProblem(profiles, nGroups, ys, ws, lower, upper), start);
+  const work = lineWork(xs.length);
+  const fit = lmFit(lineProblem(profiles, nGroups, ys, ws, lower, upper, work), start);
   const p = fit.p;
   if (!p.every(Number.isFinite) || Math.abs(p[0]) > MAX_SHIFT_KMS) return null;
   const nF = fit.free.length;
@@ -79,7 +80,7 @@ export function fitEmissionLines(nr: NativeResidual, template: Template, z0: num
     const f = fit.free.indexOf(3 + g);
     return f >= 0 && variance[f] > 0 ? Math.sqrt(variance[f] * Math.max(1, chi2Red)) : Infinity;
   };
-  const scatterKmS = chi2Red > SCATTER_FLOOR_CHI2RED ? centroidScatterKmS({ profiles, nGroups, ys, ws, lower, upper }, p, ampErr) : 0;
+  const scatterKmS = chi2Red > SCATTER_FLOOR_CHI2RED ? centroidScatterKmS({ profiles, nGroups, ys, ws, lower, upper, work }, p, ampErr) : 0;
   const sigmaV = Math.max(covarianceKmS, scatterKmS);
   const z = (1 + z0) * (1 + p[0] / SPEED_OF_LIGHT_KMS) - 1;
   return { z, zErr: ((1 + z0) * sigmaV) / SPEED_OF_LIGHT_KMS, chi2Red, nLinesFitted: inRange.length };
@@ -257,15 +258,28 @@ function setInitialAmplitudes(profiles: LineProfiles, nGroups: number, ys: Float
   if (choleskySolve(a, b, amp, nGroups)) p.set(amp, 3);
 }
 
+/** A line problem's work arrays (its model, residuals and their derivatives), at least as long as its points; one fit's serve the refits after it. */
+interface LineWork {
+  model: Float64Array;
+  resid: Float64Array;
+  dv: Float64Array;
+  dn: Float64Array;
+  db: Float64Array;
+}
+
+function lineWork(n: number): LineWork {
+  return { model: new Float64Array(n), resid: new Float64Array(n), dv: new Float64Array(n), dn: new Float64Array(n), db: new Float64Array(n) };
+}
+
 /**
  * The weighted least-squares problem of fitting `profiles` to ys (weights ws), for lmFit. JᵀWJ
  * is built from the lines' own points: the v and width columns are dense, an amplitude's column
  * is its lines' profiles.
  */
-function lineProblem(profiles: LineProfiles, nGroups: number, ys: Float64Array, ws: Float64Array, lower: Float64Array, upper: Float64Array): LmProblem {
+function lineProblem(profiles: LineProfiles, nGroups: number, ys: Float64Array, ws: Float64Array, lower: Float64Array, upper: Float64Array, work: LineWork): LmProblem {
   const nY = ys.length, { comps } = profiles;
-  const model = new Float64Array(nY), resid = new Float64Array(nY);
-  const dv = new Float64Array(nY), dn = new Float64Array(nY), db = new Float64Array(nY);
+  const model = work.model.subarray(0, nY), resid = work.resid.subarray(0, nY);
+  const dv = work.dv.subarray(0, nY), dn = work.dn.subarray(0, nY), db = work.db.subarray(0, nY);
   const sumsAt: ModelSums = { model, dv, dNarrow: dn, dBroad: db };
   const gram = new Float64Array(nGroups * nGroups);
   const at = new Int32Array(3 + nGroups);
@@ -380,6 +394,7 @@ interface JointFit {
   ws: Float64Array;
   lower: Float64Array;
   upper: Float64Array;
+  work: LineWork;
 }
 
 /**
@@ -397,7 +412,8 @@ function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) =>
   // The joint fit's own profiles: recomputed only when its last evaluation was not at p.
   j.profiles.compute(p);
   j.profiles.addModel(p, full);
-  const idx = new Int32Array(nAll);
+  // The refits' points, values and weights, and their lines' model: views of these.
+  const idx = new Int32Array(nAll), subXs = new Float64Array(nAll), subYs = new Float64Array(nAll), subWs = new Float64Array(nAll), subModel = new Float64Array(nAll);
   const velocities: number[] = [];
   for (let g = 0; g < j.nGroups; g++) {
     if (!(Math.abs(p[3 + g]) >= SCATTER_MIN_SNR * ampErr(g))) continue;
@@ -420,12 +436,11 @@ function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) =>
       next = Math.max(next, to);
     }
     if (n < 4) continue;
-    const xs = new Float64Array(n), ys = new Float64Array(n), ws = new Float64Array(n);
+    const xs = subXs.subarray(0, n), ys = subYs.subarray(0, n), ws = subWs.subarray(0, n), mine = subModel.fill(0, 0, n).subarray(0, n);
     for (let i = 0; i < n; i++) {
       xs[i] = allXs[idx[i]];
       ws[i] = j.ws[idx[i]];
     }
-    const mine = new Float64Array(n);
     const profiles = new LineProfiles(own, z0, inst, xs);
     profiles.compute(start);
     profiles.addModel(start, mine);
@@ -433,7 +448,7 @@ function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) =>
     for (let i = 0; i < n; i++) ys[i] = j.ys[idx[i]] - (full[idx[i]] - mine[i]);
     // v and the amplitude free, the widths held.
     const lower = Float64Array.of(j.lower[0], p[1], p[2], -Infinity), upper = Float64Array.of(j.upper[0], p[1], p[2], Infinity);
-    const v = lmFit(lineProblem(profiles, 1, ys, ws, lower, upper), start).p[0];
+    const v = lmFit(lineProblem(profiles, 1, ys, ws, lower, upper, j.work), start).p[0];
     if (Math.abs(v) <= MAX_SHIFT_KMS) velocities.push(v);
   }
   const n = velocities.length;
