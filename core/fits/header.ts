@@ -77,23 +77,12 @@ export class FitsHeader {
     return this.card(key)?.comment;
   }
 
-  /** String value, trimmed of trailing blanks (FITS 4.0 §4.2.1: they are not significant). */
   string(key: string): string | undefined {
-    const v = this.value(key);
-    if (typeof v === 'string') return v.trimEnd();
-    if (typeof v === 'number') return String(v);
-    return undefined;
+    return stringOf(this.value(key));
   }
 
-  /** Number value; a quoted string holding only a number is accepted too (common in the wild). */
   number(key: string): number | undefined {
-    const v = this.value(key);
-    if (typeof v === 'number') return Number.isFinite(v) ? v : undefined;
-    if (typeof v === 'string') {
-      const n = parseFitsNumber(v.trim());
-      return n === null ? undefined : n;
-    }
-    return undefined;
+    return numberOf(this.value(key));
   }
 
   integer(key: string): number | undefined {
@@ -102,12 +91,11 @@ export class FitsHeader {
   }
 
   bool(key: string): boolean | undefined {
-    const v = this.value(key);
-    return typeof v === 'boolean' ? v : undefined;
+    return boolOf(this.value(key));
   }
 
   /** The first card of a keyword (commentary keywords excepted), CONTINUE cards joined to it. */
-  private card(key: string): FitsCard | undefined {
+  card(key: string): FitsCard | undefined {
     const k = upperCased(key);
     // A CONTINUE card may stand alone or belong to the card before it: the full parse knows.
     if (this.bytes === undefined || this.parsed || k === 'CONTINUE') {
@@ -152,6 +140,25 @@ export class FitsHeader {
     return out;
   }
 }
+
+/** A string value, trimmed of trailing blanks (FITS 4.0 §4.2.1: they are not significant). */
+export function stringOf(v: CardValue | undefined): string | undefined {
+  if (typeof v === 'string') return v.trimEnd();
+  if (typeof v === 'number') return String(v);
+  return undefined;
+}
+
+/** A number value; a quoted string holding only a number is accepted too (common in the wild). */
+export function numberOf(v: CardValue | undefined): number | undefined {
+  if (typeof v === 'number') return Number.isFinite(v) ? v : undefined;
+  if (typeof v === 'string') {
+    const n = parseFitsNumber(v.trim());
+    return n === null ? undefined : n;
+  }
+  return undefined;
+}
+
+export const boolOf = (v: CardValue | undefined): boolean | undefined => (typeof v === 'boolean' ? v : undefined);
 
 // windows-1252 (WHATWG 'latin1') maps every byte outside 0x20–0x7e outside that range too.
 const LATIN1 = new TextDecoder('latin1');

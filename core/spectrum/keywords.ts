@@ -2,7 +2,7 @@
  * Header keywords looked up through several headers in turn (an extension's own header first,
  * then the primary header it inherits from), so that metadata can sit in either.
  */
-import { FitsHeader, type CardValue } from '../fits/header.js';
+import { boolOf, numberOf, stringOf, type CardValue, type FitsHeader } from '../fits/header.js';
 
 export interface Keywords {
   has(key: string): boolean;
@@ -14,14 +14,21 @@ export interface Keywords {
 }
 
 export function stackKeywords(...headers: FitsHeader[]): Keywords {
-  const owner = (key: string) => headers.find((h) => h.has(key));
+  // The card of the first header that has the key: one look-up per header visited.
+  const cardOf = (key: string) => {
+    for (const h of headers) {
+      const card = h.card(key);
+      if (card) return card;
+    }
+    return undefined;
+  };
   return {
-    has: (key) => owner(key) !== undefined,
-    value: (key) => owner(key)?.value(key),
-    string: (key) => owner(key)?.string(key),
-    number: (key) => owner(key)?.number(key),
-    bool: (key) => owner(key)?.bool(key),
-    comment: (key) => owner(key)?.comment(key),
+    has: (key) => cardOf(key) !== undefined,
+    value: (key) => cardOf(key)?.value,
+    string: (key) => stringOf(cardOf(key)?.value),
+    number: (key) => numberOf(cardOf(key)?.value),
+    bool: (key) => boolOf(cardOf(key)?.value),
+    comment: (key) => cardOf(key)?.comment,
   };
 }
 
