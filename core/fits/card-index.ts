@@ -103,6 +103,8 @@ export class CardIndex {
 }
 
 function isUnindexed(w0: number, w1: number): boolean {
+  const first = w0 >>> 24;
+  if (first !== 0x43 && first !== 0x48 && first !== 0x20) return false; // not C(OMMENT, ONTINUE), H(ISTORY) or blank
   for (let u = 0; u < UNINDEXED.length; u++) if (UNINDEXED[u][0] === w0 && UNINDEXED[u][1] === w1) return true;
   return false;
 }
