@@ -12,7 +12,7 @@
  * falls in the window and makes false peaks at the ends of the lag range.
  *
  * Lag L (whole grid pixels) means z = exp(L·step) − 1. Templates are transformed once per grid
- * and cached; the spectrum is transformed once per FFT size. The FFT is only as long as the
+ * and cached; the spectrum is transformed once per grid. The FFT is only as long as the
  * searched lags need without wrap-around given where the template profile is non-zero
  * (templateFftSize), not as long as the whole template window. A template's coverage m_t is one
  * interval of rest wavelengths, so the sums over it are differences of running sums, not
@@ -163,9 +163,10 @@ export function coveredRange(waveAngstrom: Float64Array, [lo, hi]: [number, numb
 }
 
 interface SpectrumTransforms {
-  /** conj(FT(w·s)) and conj(FT(w)). */
+  /** FT(w·s) and FT(w) at an FFT `stride` times longer: bin k of this size is bin k·stride there. */
   sw: Float64Array;
   w: Float64Array;
+  stride: number;
   /** Running sums over the spectrum buffer: s2Sum[j] = Σ_{i<j} w·s², goodSum[j] = Σ_{i<j} good. */
   s2Sum: Float64Array;
   goodSum: Float64Array;
@@ -218,11 +219,7 @@ function spectrumTransforms(p: CorrelationInput, lay: Layout, fft: ComplexFft): 
   s2Sum.fill(s2Sum[off + p.grid.length], off + p.grid.length + 1);
   goodSum.fill(goodSum[off + p.grid.length], off + p.grid.length + 1);
   forwardPackedPair(fft, packed, sw, ww);
-  for (let k = 0; k < n; k++) {
-    sw[2 * k + 1] = -sw[2 * k + 1];
-    ww[2 * k + 1] = -ww[2 * k + 1];
-  }
-  return { sw, w: ww, s2Sum, goodSum, nGood };
+  return { sw, w: ww, stride: 1, s2Sum, goodSum, nGood };
 }
 
 /** Correlates the spectrum with each template over its z range, each on its grid (coarse-grid.ts). */
@@ -245,28 +242,13 @@ export function correlate(p: PreparedSpectrum, templates: TemplateUse[]): Correl
     const longest = plans.filter((q) => q.input === input).reduce((m, q) => (q.entry.fft.size > m.size ? q.entry.fft : m), fft);
     let full = transforms.get(key(longest.size));
     if (!full) transforms.set(key(longest.size), (full = spectrumTransforms(input, lay, longest)));
-    if (longest !== fft) transforms.set(key(fft.size), (st = everyKthBin(full, longest.size / fft.size, fft, input.binFactor)));
+    if (longest !== fft) transforms.set(key(fft.size), (st = { ...full, stride: longest.size / fft.size }));
     return st ?? full;
   };
   return plans.map(({ template, choice, input, margin, lay, entry }) => {
     const curve = correlateOne(input, template, entry, lay, transformsFor(input, lay, entry.fft), margin);
     return choice.describeNatively ? { ...curve, describeNatively: true, nativeWindows: [] } : curve;
   });
-}
-
-/**
- * The transforms at a k times shorter FFT: the spectrum buffer is zero beyond the shorter length,
- * so its N-point DFT is every k-th bin of the kN-point one. The running sums are shared.
- */
-function everyKthBin(full: SpectrumTransforms, k: number, fft: ComplexFft, binFactor: number): SpectrumTransforms {
-  const [, , , sw, w] = scratchFor(fft, binFactor).z;
-  for (let j = 0; j < fft.size; j++) {
-    sw[2 * j] = full.sw[2 * j * k];
-    sw[2 * j + 1] = full.sw[2 * j * k + 1];
-    w[2 * j] = full.w[2 * j * k];
-    w[2 * j + 1] = full.w[2 * j * k + 1];
-  }
-  return { sw, w, s2Sum: full.s2Sum, goodSum: full.goodSum, nGood: full.nGood };
 }
 
 /** ρ, score and overlap of a curve of nLag lags, as views of one allocation. */
@@ -282,11 +264,12 @@ function correlateOne(p: CorrelationInput, template: Template, e: BankEntry, lay
   const sw = st.sw, w = st.w, t = e.t, t2v = e.t2;
   // X = A + i·B with A = conj(SW)·T and B = conj(W)·T2, both spectra of real correlations and
   // so Hermitian (exactly, as forwardPackedPair unpacks them): bins k ≤ N/2 give bin N − k as
-  // conj(A) + i·conj(B).
+  // conj(A) + i·conj(B). A shorter FFT reads every stride-th bin of the spectrum's longer one:
+  // its buffer is zero beyond this length, so its N-point DFT is those bins.
   for (let k = 0; k <= n >> 1; k++) {
-    const re = 2 * k, im = re + 1;
-    const swr = sw[re], swi = sw[im], tr = t[re], ti = t[im], wr = w[re], wi = w[im], ur = t2v[re], ui = t2v[im];
-    const ar = swr * tr - swi * ti, ai = swr * ti + swi * tr, br = wr * ur - wi * ui, bi = wr * ui + wi * ur;
+    const re = 2 * k, im = re + 1, sre = re * st.stride, sim = sre + 1;
+    const swr = sw[sre], swi = sw[sim], tr = t[re], ti = t[im], wr = w[sre], wi = w[sim], ur = t2v[re], ui = t2v[im];
+    const ar = swr * tr + swi * ti, ai = swr * ti - swi * tr, br = wr * ur + wi * ui, bi = wr * ui - wi * ur;
     x[re] = ar - bi;
     x[im] = ai + br;
     if (k === 0 || 2 * k === n) continue;
