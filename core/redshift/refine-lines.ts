@@ -62,8 +62,9 @@ export function fitEmissionLines(nr: NativeResidual, template: Template, z0: num
   start[2] = broad0;
   const fixedBroad = broadLines.length === 0;
   const fixedNarrow = inRange.every((l) => l.sigmaKmS > BROAD_KMS);
-  const lower = Float64Array.from([-MAX_SHIFT_KMS * 2, fixedNarrow ? narrow0 : 5, fixedBroad ? broad0 : 300, ...new Array<number>(nGroups).fill(-Infinity)]);
-  const upper = Float64Array.from([MAX_SHIFT_KMS * 2, fixedNarrow ? narrow0 : BROAD_KMS, fixedBroad ? broad0 : 6000, ...new Array<number>(nGroups).fill(Infinity)]);
+  const lower = new Float64Array(nP).fill(-Infinity), upper = new Float64Array(nP).fill(Infinity);
+  lower.set([-MAX_SHIFT_KMS * 2, fixedNarrow ? narrow0 : 5, fixedBroad ? broad0 : 300]);
+  upper.set([MAX_SHIFT_KMS * 2, fixedNarrow ? narrow0 : BROAD_KMS, fixedBroad ? broad0 : 6000]);
   const profiles = new LineProfiles(comps, z0, inst, xs);
   setInitialAmplitudes(profiles, nGroups, ys, ws, start);
   const work = lineWork(xs.length);
