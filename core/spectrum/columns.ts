@@ -38,20 +38,13 @@ export type ErrorRole = (typeof ERROR_ROLES)[number];
  */
 export function sigmaFrom(role: ErrorRole, values: Float64Array, mask: Uint8Array, out: Float64Array = new Float64Array(values.length)): Float64Array {
   for (let i = 0; i < values.length; i++) {
-    const s = sigmaOf(role, values[i]);
+    const v = values[i];
+    const s = role === 'sigma' ? v : role === 'ivar' ? (v > 0 ? 1 / Math.sqrt(v) : NaN) : v >= 0 ? Math.sqrt(v) : NaN;
     out[i] = s;
-    if (!isGoodSigma(s)) mask[i] = 1;
+    if (!(Number.isFinite(s) && s > 0)) mask[i] = 1;
   }
   return out;
 }
-
-/** One value of sigmaFrom. */
-export function sigmaOf(role: ErrorRole, v: number): number {
-  return role === 'sigma' ? v : role === 'ivar' ? (v > 0 ? 1 / Math.sqrt(v) : NaN) : v >= 0 ? Math.sqrt(v) : NaN;
-}
-
-/** A usable 1σ: finite and positive. */
-export const isGoodSigma = (s: number): boolean => Number.isFinite(s) && s > 0;
 
 export const ERROR_KIND: Record<ErrorRole, 'sigma' | 'ivar' | 'variance'> = { sigma: 'sigma', ivar: 'ivar', variance: 'variance' };
 
@@ -71,8 +64,5 @@ export function maskFrom(values: Float64Array, mask: Uint8Array): void {
 export const SDSS_BAD_PIXEL_BITS = (1 << 18) | (1 << 22) | (1 << 23) | (1 << 24) | (1 << 25) | (1 << 26) | (1 << 27);
 
 export function sdssMaskFrom(values: Float64Array, mask: Uint8Array): void {
-  for (let i = 0; i < values.length; i++) if (isSdssBadPixel(values[i])) mask[i] = 1;
+  for (let i = 0; i < values.length; i++) if (!Number.isFinite(values[i]) || (values[i] & SDSS_BAD_PIXEL_BITS) !== 0) mask[i] = 1;
 }
-
-/** One value of sdssMaskFrom. */
-export const isSdssBadPixel = (v: number): boolean => !Number.isFinite(v) || (v & SDSS_BAD_PIXEL_BITS) !== 0;

@@ -6,10 +6,10 @@
  * (SDSS data model, spec file HDU 1).
  */
 import { openTable, type FitsTable, type TableColumn } from '../../fits/table.js';
-import { ERROR_KIND, ERROR_ROLES, findByRole, isGoodSigma, isSdssBadPixel, sigmaOf, type ErrorRole } from '../columns.js';
+import { ERROR_KIND, ERROR_ROLES, findByRole, maskFrom, sdssMaskFrom, sigmaFrom } from '../columns.js';
 import { mediumFromName } from '../medium.js';
 import { guessWaveUnit, parseWaveUnit, type WaveUnit } from '../units.js';
-import { powerOfTen } from './powers-of-ten.js';
+import { powersOfTen } from './powers-of-ten.js';
 import { bunit, headerParts, type HduContext, type LayoutDraft, type LayoutVerdict } from './layout.js';
 import { GRISM_DEFAULTS, sdssDefaults } from './surveys.js';
 import { mayNameWavelength } from './wave-column-screen.js';
@@ -42,32 +42,28 @@ function readTable(
   // Array tables: the first row holds the spectrum; row tables: every row is a pixel.
   const get = (c: TableColumn) => (arrays ? table.rowValues(c, 0) : table.values(c));
   const isLog = findByRole('loglam', table.find) === waveCol;
-  const wave = get(waveCol);
+  const wave = isLog ? powersOfTen(get(waveCol)) : get(waveCol);
   let flux = get(fluxCol);
   const n = flux.length;
   const mask = new Uint8Array(n);
   let error: Float64Array | undefined;
-  let errorRole: ErrorRole | undefined;
+  let errorKind: LayoutDraft['errorKind'] = 'none';
   for (const role of ERROR_ROLES) {
     const col = findByRole(role, table.find);
     if (col && !col.isText) {
-      error = get(col);
-      if (error.length === n) errorRole = role; // a length mismatch is reported by finish
+      const values = get(col);
+      if (values.length === n) {
+        error = sigmaFrom(role, values, mask, values);
+        errorKind = ERROR_KIND[role];
+      } else error = values; // length mismatch is reported by finish
       break;
     }
   }
   const maskCol = findByRole('mask', table.find);
-  const maskValues = maskCol && !maskCol.isText ? get(maskCol) : undefined;
-  convertPixels({
-    n,
-    logWave: isLog ? wave : undefined,
-    error: errorRole ? error : undefined,
-    errorRole,
-    maskValues: maskValues?.length === n ? maskValues : undefined,
-    sdssMask: maskCol?.name.toLowerCase() === 'and_mask',
-    mask,
-  });
-  const errorKind: LayoutDraft['errorKind'] = errorRole ? ERROR_KIND[errorRole] : 'none';
+  if (maskCol && !maskCol.isText) {
+    const values = get(maskCol);
+    if (values.length === n) (maskCol.name.toLowerCase() === 'and_mask' ? sdssMaskFrom : maskFrom)(values, mask);
+  }
   const skyCol = findByRole('sky', table.find);
   const sky = skyCol && !skyCol.isText ? get(skyCol) : undefined;
   let fluxUnit = fluxCol.unit ?? bunit(ctx.keywords) ?? 'unknown';
@@ -97,34 +93,6 @@ function readTable(
     ...parts,
     medium: parts.medium.reason.startsWith('assumed') && named ? named : parts.medium,
   };
-}
-
-interface PixelColumns {
-  n: number;
-  /** log10 wavelengths, replaced by 10^x (in a pass of their own when their count is not n). */
-  logWave?: Float64Array;
-  /** The error column, replaced by 1σ (columns.ts sigmaFrom). */
-  error?: Float64Array;
-  errorRole?: ErrorRole;
-  maskValues?: Float64Array;
-  /** SDSS and_mask (only its bad-data bits count) rather than a plain non-zero-is-bad mask. */
-  sdssMask: boolean;
-  mask: Uint8Array;
-}
-
-/** The per-pixel conversions of a table spectrum in one pass: 10^loglam, 1σ, bad pixels (rules of columns.ts). */
-function convertPixels({ n, logWave, error, errorRole, maskValues, sdssMask, mask }: PixelColumns): void {
-  const log = logWave !== undefined && logWave.length === n;
-  for (let i = 0; i < n; i++) {
-    if (log) logWave[i] = powerOfTen(logWave[i]);
-    if (error) {
-      const s = sigmaOf(errorRole!, error[i]);
-      error[i] = s;
-      if (!isGoodSigma(s)) mask[i] = 1;
-    }
-    if (maskValues && (sdssMask ? isSdssBadPixel(maskValues[i]) : maskValues[i] !== 0)) mask[i] = 1;
-  }
-  if (logWave && !log) for (let i = 0; i < logWave.length; i++) logWave[i] = powerOfTen(logWave[i]);
 }
 
 /** 'E/S / 1E-17 CGS' (3D-HST) → the flux density unit the division gives. */
