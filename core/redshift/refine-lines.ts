@@ -45,7 +45,7 @@ export function fitEmissionLines(nr: NativeResidual, template: Template, z0: num
     (l) => l.strength > 0 && l.waveRestAngstrom * (1 + z0) > lo && l.waveRestAngstrom * (1 + z0) < hi && usablePixels(nr, l, z0) >= MIN_LINE_PIXELS,
   );
   const { members, nGroups } = lineGroups(inRange);
-  const comps: Component[] = inRange.map((line, k) => ({ line, ...members[k], broad: line.sigmaKmS > BROAD_KMS }));
+  const comps = inRange.map((line, k) => component(line, members[k].group, members[k].ratio));
   if (nGroups === 0) return null;
   const sub = { ...template, lines: inRange };
   const idx = pixelsNearLines(nr, sub, z0, 4);
@@ -87,6 +87,11 @@ export function fitEmissionLines(nr: NativeResidual, template: Template, z0: num
   return { z, zErr: ((1 + z0) * sigmaV) / SPEED_OF_LIGHT_KMS, chi2Red, nLinesFitted: inRange.length };
 }
 
+/** Every component is made here, so that all have one shape and the fits' loops see one kind of object. */
+function component(line: ProfileLine, group: number, ratio: number): Component {
+  return { line, group, ratio, broad: line.sigmaKmS > BROAD_KMS };
+}
+
 function usablePixels(nr: NativeResidual, line: ProfileLine, z: number): number {
   const [from, to] = lineRun(nr, line, z, 4);
   let k = 0;
@@ -109,6 +114,11 @@ interface ModelSums {
  */
 class LineProfiles {
   readonly comps: Component[];
+  /** Per line, for the loops: its rest wavelength (Å), group, ratio in the group, and 1 when broad. */
+  readonly rest: Float64Array;
+  readonly group: Int32Array;
+  readonly ratio: Float64Array;
+  readonly broad: Uint8Array;
   readonly xs: Float64Array;
   /** Per line: its points [from, to) and where they start in the packed arrays. */
   readonly from: Int32Array;
@@ -124,6 +134,10 @@ class LineProfiles {
 
   constructor(comps: Component[], z0: number, inst: number, xs: Float64Array) {
     this.comps = comps;
+    this.rest = Float64Array.from(comps, (c) => c.line.waveRestAngstrom);
+    this.group = Int32Array.from(comps, (c) => c.group);
+    this.ratio = Float64Array.from(comps, (c) => c.ratio);
+    this.broad = Uint8Array.from(comps, (c) => (c.broad ? 1 : 0));
     this.z0 = z0;
     this.inst = inst;
     this.xs = xs;
@@ -137,7 +151,8 @@ class LineProfiles {
 
   /** The profiles at p; with `sums` (zeroed), also adds the model and its derivatives there. */
   compute(p: Float64Array, sums?: ModelSums): void {
-    const { comps, xs, z0 } = this;
+    const { rest, group, ratio, broad, xs, z0 } = this;
+    const nC = rest.length;
     // The amplitudes alone changed (the first step after the start): the profiles stand.
     const known = p[0] === this.at3[0] && p[1] === this.at3[1] && p[2] === this.at3[2];
     this.at3[0] = p[0];
@@ -146,9 +161,9 @@ class LineProfiles {
     const zf = (1 + z0) * (1 + p[0] / SPEED_OF_LIGHT_KMS);
     // Line σ and the pixel width in quadrature, km/s, for the narrow and the broad lines.
     const totalNarrow = Math.hypot(p[1], this.inst), totalBroad = Math.hypot(p[2], this.inst);
-    for (let c = 0; c < comps.length; c++) {
-      const centre = comps[c].line.waveRestAngstrom * zf;
-      const sA = (centre * (comps[c].broad ? totalBroad : totalNarrow)) / SPEED_OF_LIGHT_KMS;
+    for (let c = 0; c < nC; c++) {
+      const centre = rest[c] * zf;
+      const sA = (centre * (broad[c] ? totalBroad : totalNarrow)) / SPEED_OF_LIGHT_KMS;
       const end = centre + PROFILE_REACH * sA;
       const from = lowerBound(xs, centre - PROFILE_REACH * sA);
       let to = lowerBound(xs, end);
@@ -159,17 +174,16 @@ class LineProfiles {
       this.to[c] = to;
       this.at[c + 1] = this.at[c] + to - from;
     }
-    const total = this.at[comps.length];
+    const total = this.at[nC];
     if (this.phi.length < total) this.phi = new Float64Array(2 * total);
     const { phi } = this;
-    for (let c = 0; c < comps.length; c++) {
-      const comp = comps[c];
+    for (let c = 0; c < nC; c++) {
       const centre = this.centre[c], sA = this.width[c];
-      const sv = comp.broad ? p[2] : p[1];
-      const stot = comp.broad ? totalBroad : totalNarrow;
-      const norm = comp.ratio / (sA * SQRT_2PI);
+      const sv = broad[c] ? p[2] : p[1];
+      const stot = broad[c] ? totalBroad : totalNarrow;
+      const norm = ratio[c] / (sA * SQRT_2PI);
       // ∂φ/∂c = φ·u/s, ∂c/∂v = λ_rest(1+z0)/C; ∂φ/∂s = φ(u² − 1)/s, ∂s/∂σv = c·σv/(C·stot)
-      const dcdv = (comp.line.waveRestAngstrom * (1 + z0)) / SPEED_OF_LIGHT_KMS / sA;
+      const dcdv = (rest[c] * (1 + z0)) / SPEED_OF_LIGHT_KMS / sA;
       const dsdsv = (centre * sv) / (SPEED_OF_LIGHT_KMS * stot) / sA;
       const from = this.from[c], to = this.to[c], invS = 1 / sA;
       let q = this.at[c];
@@ -181,7 +195,7 @@ class LineProfiles {
         }
         continue;
       }
-      const amp = p[3 + comp.group], { model, dv } = sums, ds = comp.broad ? sums.dBroad : sums.dNarrow;
+      const amp = p[3 + group[c]], { model, dv } = sums, ds = broad[c] ? sums.dBroad : sums.dNarrow;
       if (known) {
         for (let k = from; k < to; k++, q++) {
           const u = (xs[k] - centre) * invS;
@@ -205,8 +219,8 @@ class LineProfiles {
 
   /** Adds Σ A_g·profile to out, with the amplitudes of p (after compute). */
   addModel(p: Float64Array, out: Float64Array): void {
-    for (let c = 0; c < this.comps.length; c++) {
-      const amp = p[3 + this.comps[c].group];
+    for (let c = 0; c < this.group.length; c++) {
+      const amp = p[3 + this.group[c]];
       for (let k = this.from[c], q = this.at[c]; k < this.to[c]; k++, q++) out[k] += amp * this.phi[q];
     }
   }
@@ -218,17 +232,17 @@ class LineProfiles {
  * Each line's own Σ w·φ_c² comes in `self`, from the caller's pass over its points.
  */
 function amplitudeGram(profiles: LineProfiles, ws: Float64Array, nGroups: number, self: Float64Array, out: Float64Array): void {
-  const { comps, phi, from, to, at } = profiles;
+  const { group, phi, from, to, at } = profiles;
   out.fill(0);
-  for (let c = 0; c < comps.length; c++) {
-    const gc = comps[c].group;
+  for (let c = 0; c < group.length; c++) {
+    const gc = group[c];
     out[gc * nGroups + gc] += self[c];
-    for (let d = c + 1; d < comps.length; d++) {
+    for (let d = c + 1; d < group.length; d++) {
       const lo = Math.max(from[c], from[d]), hi = Math.min(to[c], to[d]);
       if (lo >= hi) continue;
       let s = 0;
       for (let k = lo, qc = at[c] + lo - from[c], qd = at[d] + lo - from[d]; k < hi; k++, qc++, qd++) s += ws[k] * phi[qc] * phi[qd];
-      const gd = comps[d].group;
+      const gd = group[d];
       out[gc * nGroups + gd] += s;
       out[gd * nGroups + gc] += s;
     }
@@ -241,17 +255,17 @@ function amplitudeGram(profiles: LineProfiles, ws: Float64Array, nGroups: number
  */
 function setInitialAmplitudes(profiles: LineProfiles, nGroups: number, ys: Float64Array, ws: Float64Array, p: Float64Array): void {
   profiles.compute(p);
-  const { comps, phi, from, to, at } = profiles;
+  const { group, phi, from, to, at } = profiles;
   const a = new Float64Array(nGroups * nGroups), b = new Float64Array(nGroups), amp = new Float64Array(nGroups);
-  const self = new Float64Array(comps.length);
-  for (let c = 0; c < comps.length; c++) {
+  const self = new Float64Array(group.length);
+  for (let c = 0; c < group.length; c++) {
     let s = 0, ss = 0;
     for (let k = from[c], q = at[c]; k < to[c]; k++, q++) {
       const wg = ws[k] * phi[q];
       s += wg * ys[k];
       ss += wg * phi[q];
     }
-    b[comps[c].group] += s;
+    b[group[c]] += s;
     self[c] = ss;
   }
   amplitudeGram(profiles, ws, nGroups, self, a);
@@ -278,13 +292,13 @@ function lineWork(n: number): LineWork {
  * is its lines' profiles.
  */
 function lineProblem(profiles: LineProfiles, nGroups: number, ys: Float64Array, ws: Float64Array, lower: Float64Array, upper: Float64Array, work: LineWork): LmProblem {
-  const nY = ys.length, { comps } = profiles;
+  const nY = ys.length, { group } = profiles;
   const model = work.model.subarray(0, nY), resid = work.resid.subarray(0, nY);
   const dv = work.dv.subarray(0, nY), dn = work.dn.subarray(0, nY), db = work.db.subarray(0, nY);
   const sumsAt: ModelSums = { model, dv, dNarrow: dn, dBroad: db };
   const gram = new Float64Array(nGroups * nGroups);
   const at = new Int32Array(3 + nGroups);
-  const sums = new Float64Array(9), self = new Float64Array(comps.length);
+  const sums = new Float64Array(9), self = new Float64Array(group.length);
   return {
     lower,
     upper,
@@ -353,8 +367,8 @@ function lineProblem(profiles: LineProfiles, nGroups: number, ys: Float64Array, 
         }
         if (at[i] >= 0) gradient[at[i]] = sums[6 + i];
       }
-      for (let c = 0; c < comps.length; c++) {
-        const fa = at[3 + comps[c].group];
+      for (let c = 0; c < group.length; c++) {
+        const fa = at[3 + group[c]];
         self[c] = 0;
         if (fa < 0) continue;
         let sr = 0, sv = 0, sn = 0, sb = 0, ss = 0;
@@ -419,7 +433,7 @@ function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) =>
   for (let g = 0; g < j.nGroups; g++) {
     if (!(Math.abs(p[3 + g]) >= SCATTER_MIN_SNR * ampErr(g))) continue;
     // The group's lines alone, their amplitude the only one of the refit: [v, σ_narrow, σ_broad, A].
-    const own = comps.filter((c) => c.group === g).map((c) => ({ ...c, group: 0 }));
+    const own = comps.filter((c) => c.group === g).map((c) => component(c.line, 0, c.ratio));
     const start = Float64Array.of(p[0], p[1], p[2], p[3 + g]);
     // The points within 3σ of the group's lines: one run per line, their union in order.
     const runs = own.map((c) => {
