@@ -6,6 +6,7 @@
 import { restLine } from './line-list.js';
 import { LINE_TEMPLATES, type LineTemplateSpec } from './class-templates.js';
 import { robustContinuum } from './continuum.js';
+import { unitGaussian } from './gaussian.js';
 import type { TemplateClass, UserLineTemplate, UserSpectrumTemplate } from './types.js';
 import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
 
@@ -66,11 +67,10 @@ function lineTemplate(name: string, templateClass: TemplateClass, zMin: number, 
 export function addLineProfile(line: ProfileLine, waveRest: Float64Array, instSigmaKmS: number, out: Float64Array, scale: number): void {
   const n = waveRest.length;
   const sigmaA = (line.waveRestAngstrom * Math.hypot(line.sigmaKmS, instSigmaKmS)) / SPEED_OF_LIGHT_KMS;
-  const peak = scale / (sigmaA * SQRT_2PI);
+  const peak = scale / (sigmaA * SQRT_2PI), inverseSigma = 1 / sigmaA;
   const b = line.waveRestAngstrom + 5 * sigmaA;
   for (let i = lowerBound(waveRest, line.waveRestAngstrom - 5 * sigmaA); i < n && waveRest[i] <= b; i++) {
-    const u = (waveRest[i] - line.waveRestAngstrom) / sigmaA;
-    out[i] += peak * Math.exp(-0.5 * u * u);
+    out[i] += peak * unitGaussian((waveRest[i] - line.waveRestAngstrom) * inverseSigma);
   }
 }
 
