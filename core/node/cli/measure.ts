@@ -21,6 +21,7 @@ import { LineListError, parseUserLineList } from '../../redshift/user-line-list.
 import { MeasurePool, type MeasureFileResult } from '../measure-pool.js';
 import { readSpectrumFile } from '../read-spectrum-file.js';
 import { listSpectrumFiles } from '../spectrum-files.js';
+import { ChunkedLines } from './chunked-lines.js';
 import { modelFromOptions, withCosmologyOptions } from './cosmo.js';
 import { SITE_OPTION_HELP, siteOption } from './site-option.js';
 import { EXIT_OK, EXIT_SOME_FAILED, runAction } from './run-action.js';
@@ -101,13 +102,8 @@ async function measure(paths: string[], opts: MeasureCliOptions, baseColumns: Me
   if (files.length === 0) throw new UsageError('no spectrum files found in the paths given');
 
   const out = opts.out === undefined || opts.out === '-' ? process.stdout : createWriteStream(opts.out);
-  let outError: Error | null = null;
-  out.on('error', (err) => (outError = err));
-  const write = (line: string) => new Promise<void>((resolve, reject) => {
-    if (outError) return reject(outError);
-    if (out.write(`${line}\n`)) resolve();
-    else out.once('drain', resolve);
-  });
+  const lines = new ChunkedLines(out);
+  const write = (line: string) => lines.write(line);
   const bar = process.stderr.isTTY ? new SingleBar({ format: 'measuring [{bar}] {value}/{total} spectra', stream: process.stderr, hideCursor: true }) : null;
   bar?.start(files.length, 0);
 
@@ -131,6 +127,7 @@ async function measure(paths: string[], opts: MeasureCliOptions, baseColumns: Me
       process.stderr.write(`stage_times_ms ${JSON.stringify({ files: t.files, read_ms: t.readMs, preprocess_ms: t.preprocessMs, correlate_ms: t.correlateMs, refine_ms: t.refineMs })}\n`);
     }
     await pool.close();
+    await lines.end();
     if (out !== process.stdout) await new Promise<void>((resolve) => (out as NodeJS.WritableStream).end(resolve));
   }
   // The last line on standard error says how the batch went, so a long run ends with its tally.
