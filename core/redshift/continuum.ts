@@ -24,12 +24,12 @@ export function robustContinuumOf(blocks: ContinuumBlocks, good: Uint8Array, ite
   return clippedContinuum(blocks.restrictedTo(good), good, iterations, clipSigma);
 }
 
-let workBuffer = new Float64Array(0);
+const workBuffers = [new Float64Array(0), new Float64Array(0), new Float64Array(0)];
 
-/** A work buffer of at least n values, shared by the calls here (none holds it across another). */
-function scratchOf(n: number): Float64Array {
-  if (workBuffer.length < n) workBuffer = new Float64Array(n);
-  return workBuffer;
+/** Work buffer `which` (0: values to select from, 1 and 2: block centres and medians) of at least n values, shared by the calls here. */
+function scratchOf(n: number, which = 0): Float64Array {
+  if (workBuffers[which].length < n) workBuffers[which] = new Float64Array(n);
+  return workBuffers[which];
 }
 
 /** The iterative clipping on blocks holding exactly the pixels of `good` (the blocks are used up). */
@@ -138,7 +138,7 @@ class BlockMedians {
   /** The block medians joined by straight lines into cont, flat beyond the outer ones (NaN when no block counts). */
   interpolate(cont: Float64Array): void {
     const { x, y, valid } = this;
-    const xs = new Float64Array(this.count), ys = new Float64Array(this.count);
+    const xs = scratchOf(this.count, 1), ys = scratchOf(this.count, 2);
     let m = 0;
     for (let b = 0; b < this.count; b++) if (valid[b]) { xs[m] = x[b]; ys[m] = y[b]; m++; }
     const n = this.flux.length;

@@ -103,7 +103,7 @@ function nativeWindow(p: PreparedSpectrum, coarse: CorrelationCurveData, use: Te
   const sp = sparseProfile(template, native);
   const sums = spectrumSums(p);
   const nGood = sums.goodSum[length];
-  const c = new Float64Array(nLag), t2 = new Float64Array(nLag);
+  const work = windowSums(nLag), c = work.subarray(0, nLag), t2 = work.subarray(nLag);
   // At lag la + i, rest index runStart + u meets native pixel runStart + u + la + i − start.
   for (let r = 0; r < sp.runStart.length; r++) addRunSums(sums.ws, p.weight, sp.t[r], sp.t2[r], sp.runStart[r] + la - start, c, t2);
   const [rho, score, overlap] = curveArrays(nLag);
@@ -176,6 +176,16 @@ function addOneLag(ws: Float64Array, w: Float64Array, t: Float64Array, tSq: Floa
   }
   c[i] += a;
   t2[i] += b;
+}
+
+let sumsBuffer = new Float64Array(0);
+
+/** A zeroed work buffer for a window's two sums (reused: the sums do not outlive nativeWindow). */
+function windowSums(nLag: number): Float64Array {
+  if (sumsBuffer.length < 2 * nLag) sumsBuffer = new Float64Array(2 * nLag);
+  const work = sumsBuffer.subarray(0, 2 * nLag);
+  work.fill(0);
+  return work;
 }
 
 /** A coarse peak's position on the native grid. */
