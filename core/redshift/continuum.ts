@@ -3,6 +3,7 @@
  * interpolation (a running-median continuum evaluated on block centres; common practice, no
  * single source). Emission and absorption lines narrower than a block barely move it.
  */
+import { WorkBuffer } from '../util/work-buffer.js';
 
 /** Continuum of `flux` where good[i] = 1 (good holds 0 or 1); blockPixels wide blocks, `iterations` clipping passes. */
 export function robustContinuum(flux: Float64Array, good: Uint8Array, blockPixels: number, iterations = 3, clipSigma = 2.5): Float64Array {
@@ -24,20 +25,15 @@ export function robustContinuumOf(blocks: ContinuumBlocks, good: Uint8Array, ite
   return clippedContinuum(blocks.restrictedTo(good), good, iterations, clipSigma);
 }
 
-const workBuffers = [new Float64Array(0), new Float64Array(0), new Float64Array(0)];
-
-/** Work buffer `which` (0: values to select from, 1 and 2: block centres and medians) of at least n values, shared by the calls here. */
-function scratchOf(n: number, which = 0): Float64Array {
-  if (workBuffers[which].length < n) workBuffers[which] = new Float64Array(n);
-  return workBuffers[which];
-}
+/** Work buffers shared by the calls here: values to select from, and the block centres and medians of an interpolation. */
+const selectionBuffer = new WorkBuffer(), centresBuffer = new WorkBuffer(), mediansBuffer = new WorkBuffer();
 
 /** The iterative clipping on blocks holding exactly the pixels of `good` (the blocks are used up). */
 function clippedContinuum(blocks: BlockMedians, good: Uint8Array, iterations: number, clipSigma: number): Float64Array {
   const { flux } = blocks;
   const n = flux.length;
   const use = good.slice();
-  const scratch = scratchOf(n);
+  const scratch = selectionBuffer.take(n);
   const cont = new Float64Array(n);
   blocks.interpolate(cont);
   for (let it = 0; it < iterations; it++) {
@@ -98,7 +94,7 @@ class BlockMedians {
     const starts = new Int32Array(count + 1);
     for (let b = 0; b <= count; b++) starts[b] = Math.floor((b * n) / count);
     const blocks = new BlockMedians(flux, starts, use.slice(), new Float64Array(count), new Float64Array(count), new Uint8Array(count));
-    const scratch = scratchOf(n);
+    const scratch = selectionBuffer.take(n);
     for (let b = 0; b < count; b++) blocks.refresh(b, use, scratch);
     return blocks;
   }
@@ -108,7 +104,7 @@ class BlockMedians {
     const n = this.flux.length;
     for (let i = 0; i < n; i++) if (use[i] && !this.base[i]) return BlockMedians.over(this.flux, use, n / this.count);
     const copy = new BlockMedians(this.flux, this.starts, this.base, this.x.slice(), this.y.slice(), this.valid.slice());
-    const scratch = scratchOf(n);
+    const scratch = selectionBuffer.take(n);
     for (let b = 0; b < this.count; b++) {
       for (let i = this.starts[b], end = this.starts[b + 1]; i < end; i++) {
         if (this.base[i] && !use[i]) {
@@ -138,7 +134,7 @@ class BlockMedians {
   /** The block medians joined by straight lines into cont, flat beyond the outer ones (NaN when no block counts). */
   interpolate(cont: Float64Array): void {
     const { x, y, valid } = this;
-    const xs = scratchOf(this.count, 1), ys = scratchOf(this.count, 2);
+    const xs = centresBuffer.take(this.count), ys = mediansBuffer.take(this.count);
     let m = 0;
     for (let b = 0; b < this.count; b++) if (valid[b]) { xs[m] = x[b]; ys[m] = y[b]; m++; }
     const n = this.flux.length;

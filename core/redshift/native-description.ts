@@ -13,6 +13,7 @@ import type { TemplateUse } from './template-set.js';
 import type { Template } from './templates.js';
 import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
 import { LruCache } from '../util/lru-cache.js';
+import { WorkBuffer } from '../util/work-buffer.js';
 
 /** Profile evaluated to this many line σ beyond the outer lines (the lines are cut at ±5σ). */
 const PROFILE_SIGMAS = 6;
@@ -88,6 +89,9 @@ function spectrumSums(p: PreparedSpectrum): SpectrumSums {
   return s;
 }
 
+/** A window's two sums, reused: they do not outlive nativeWindow. */
+const windowSums = new WorkBuffer();
+
 /**
  * The native-grid correlation over lags [centre − half, centre + half] (clipped to the searched
  * range and its σ_a margins), as a curve; lags the coarse curve left out stay left out.
@@ -103,7 +107,7 @@ function nativeWindow(p: PreparedSpectrum, coarse: CorrelationCurveData, use: Te
   const sp = sparseProfile(template, native);
   const sums = spectrumSums(p);
   const nGood = sums.goodSum[length];
-  const work = windowSums(nLag), c = work.subarray(0, nLag), t2 = work.subarray(nLag);
+  const work = windowSums.take(2 * nLag, true), c = work.subarray(0, nLag), t2 = work.subarray(nLag);
   // At lag la + i, rest index runStart + u meets native pixel runStart + u + la + i − start.
   for (let r = 0; r < sp.runStart.length; r++) addRunSums(sums.ws, p.weight, sp.t[r], sp.t2[r], sp.runStart[r] + la - start, c, t2);
   const [rho, score, overlap] = curveArrays(nLag);
@@ -176,16 +180,6 @@ function addOneLag(ws: Float64Array, w: Float64Array, t: Float64Array, tSq: Floa
   }
   c[i] += a;
   t2[i] += b;
-}
-
-let sumsBuffer = new Float64Array(0);
-
-/** A zeroed work buffer for a window's two sums (reused: the sums do not outlive nativeWindow). */
-function windowSums(nLag: number): Float64Array {
-  if (sumsBuffer.length < 2 * nLag) sumsBuffer = new Float64Array(2 * nLag);
-  const work = sumsBuffer.subarray(0, 2 * nLag);
-  work.fill(0);
-  return work;
 }
 
 /** A coarse peak's position on the native grid. */
