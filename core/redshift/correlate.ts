@@ -251,9 +251,8 @@ export function correlate(p: PreparedSpectrum, templates: TemplateUse[]): Correl
   });
 }
 
-/** ρ, score and overlap of a curve of nLag lags, as views of one allocation. */
-export function curveArrays(nLag: number): [Float64Array, Float64Array, Float64Array] {
-  const all = new Float64Array(3 * nLag);
+/** ρ, score and overlap of a curve of nLag lags, as views of one allocation (or of `all`, 3·nLag values). */
+export function curveArrays(nLag: number, all: Float64Array = new Float64Array(3 * nLag)): [Float64Array, Float64Array, Float64Array] {
   return [all.subarray(0, nLag), all.subarray(nLag, 2 * nLag), all.subarray(2 * nLag)];
 }
 

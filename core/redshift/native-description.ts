@@ -89,14 +89,15 @@ function spectrumSums(p: PreparedSpectrum): SpectrumSums {
   return s;
 }
 
-/** A window's two sums, reused: they do not outlive nativeWindow. */
-const windowSums = new WorkBuffer();
+/** A window's two sums, and the curve of a window only looked at (locating), reused: neither outlives its use. */
+const windowSums = new WorkBuffer(), lookedAtCurve = new WorkBuffer();
 
 /**
  * The native-grid correlation over lags [centre − half, centre + half] (clipped to the searched
- * range and its σ_a margins), as a curve; lags the coarse curve left out stay left out.
+ * range and its σ_a margins), as a curve; lags the coarse curve left out stay left out. A curve
+ * not `kept` lives in a work buffer until the next such window.
  */
-function nativeWindow(p: PreparedSpectrum, coarse: CorrelationCurveData, use: TemplateUse, centre: number, half: number): CorrelationCurveData {
+function nativeWindow(p: PreparedSpectrum, coarse: CorrelationCurveData, use: TemplateUse, centre: number, half: number, kept = true): CorrelationCurveData {
   const { template } = use;
   const { step, start, length } = p.grid;
   const native = nativeInput(p);
@@ -110,7 +111,7 @@ function nativeWindow(p: PreparedSpectrum, coarse: CorrelationCurveData, use: Te
   const work = windowSums.take(2 * nLag, true), c = work.subarray(0, nLag), t2 = work.subarray(nLag);
   // At lag la + i, rest index runStart + u meets native pixel runStart + u + la + i − start.
   for (let r = 0; r < sp.runStart.length; r++) addRunSums(sums.ws, p.weight, sp.t[r], sp.t2[r], sp.runStart[r] + la - start, c, t2);
-  const [rho, score, overlap] = curveArrays(nLag);
+  const [rho, score, overlap] = kept ? curveArrays(nLag) : curveArrays(nLag, lookedAtCurve.take(3 * nLag));
   for (let i = 0; i < nLag; i++) {
     const lag = la + i;
     const jLo = Math.max(0, sp.coverLo + lag - start), jHi = Math.min(length - 1, sp.coverHi + lag - start);
@@ -198,7 +199,7 @@ export interface NativeLocation {
 export function locateOnNativeGrid(p: PreparedSpectrum, coarse: CorrelationCurveData, use: TemplateUse, peak: Peak): NativeLocation | null {
   // The interpolated coarse peak is within half a coarse lag of the native one.
   const centre = Math.round(peak.lag * coarse.binFactor);
-  const win = nativeWindow(p, coarse, use, centre, Math.ceil(coarse.binFactor / 2) + 2);
+  const win = nativeWindow(p, coarse, use, centre, Math.ceil(coarse.binFactor / 2) + 2, false);
   const { rho, score } = win;
   let best = -1;
   const from = Math.max(win.searchLo + 2, 1), to = Math.min(win.searchHi - 2, rho.length - 2);
