@@ -8,6 +8,7 @@
 import type { LogGrid } from './log-grid.js';
 import type { PreparedSpectrum } from './preprocess.js';
 import type { Template } from './templates.js';
+import { perSpectrum } from './per-spectrum.js';
 import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
 
 /** What the correlation reads from a spectrum on one grid. */
@@ -74,23 +75,17 @@ export function pixelSigmaKmS(input: CorrelationInput): number {
   return SPEED_OF_LIGHT_KMS * nativeStep * Math.sqrt(1 + (k * k - 1) / 12);
 }
 
-const nativeInputs = new WeakMap<PreparedSpectrum, CorrelationInput>();
-
 /** The prepared spectrum itself as a correlation input (made once per spectrum). */
-export function nativeInput(p: PreparedSpectrum): CorrelationInput {
-  let input = nativeInputs.get(p);
-  if (!input) {
-    const n = p.grid.length, energy = new Float64Array(n), goodCount = new Float64Array(n);
-    for (let j = 0; j < n; j++) {
-      const w = p.weight[j];
-      if (!(w > 0)) continue;
-      energy[j] = w * p.resid[j] * p.resid[j];
-      goodCount[j] = 1;
-    }
-    nativeInputs.set(p, (input = { grid: p.grid, resid: p.resid, weight: p.weight, energy, goodCount, binFactor: 1, gridKey: `1:${p.grid.step}` }));
+export const nativeInput = perSpectrum((p): CorrelationInput => {
+  const n = p.grid.length, energy = new Float64Array(n), goodCount = new Float64Array(n);
+  for (let j = 0; j < n; j++) {
+    const w = p.weight[j];
+    if (!(w > 0)) continue;
+    energy[j] = w * p.resid[j] * p.resid[j];
+    goodCount[j] = 1;
   }
-  return input;
-}
+  return { grid: p.grid, resid: p.resid, weight: p.weight, energy, goodCount, binFactor: 1, gridKey: `1:${p.grid.step}` };
+});
 
 /** The spectrum binned by k: coarse pixel I holds native absolute pixels [kI, kI + k). */
 export function binnedInput(p: PreparedSpectrum, k: number): CorrelationInput {

@@ -14,6 +14,7 @@ import type { Template } from './templates.js';
 import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
 import { LruCache } from '../util/lru-cache.js';
 import { WorkBuffer } from '../util/work-buffer.js';
+import { perSpectrum } from './per-spectrum.js';
 
 /** Profile evaluated to this many line σ beyond the outer lines (the lines are cut at ±5σ). */
 const PROFILE_SIGMAS = 6;
@@ -73,21 +74,16 @@ interface SpectrumSums {
   goodSum: Float64Array;
 }
 
-const sumsOf = new WeakMap<PreparedSpectrum, SpectrumSums>();
-
-function spectrumSums(p: PreparedSpectrum): SpectrumSums {
-  let s = sumsOf.get(p);
-  if (s) return s;
+const spectrumSums = perSpectrum((p): SpectrumSums => {
   const n = p.grid.length, { energy, goodCount } = nativeInput(p);
-  s = { ws: new Float64Array(n), s2Sum: new Float64Array(n + 1), goodSum: new Float64Array(n + 1) };
+  const s = { ws: new Float64Array(n), s2Sum: new Float64Array(n + 1), goodSum: new Float64Array(n + 1) };
   for (let j = 0; j < n; j++) {
     s.ws[j] = p.weight[j] * p.resid[j];
     s.s2Sum[j + 1] = s.s2Sum[j] + energy[j];
     s.goodSum[j + 1] = s.goodSum[j] + goodCount[j];
   }
-  sumsOf.set(p, s);
   return s;
-}
+});
 
 /** A window's two sums, and the curve of a window only looked at (locating), reused: neither outlives its use. */
 const windowSums = new WorkBuffer(), lookedAtCurve = new WorkBuffer();

@@ -4,6 +4,7 @@
  * lines do not pull it up; one estimate can mask the lines of several candidates at once.
  */
 import { robustContinuumOf } from './continuum.js';
+import { perSpectrum } from './per-spectrum.js';
 import type { PreparedSpectrum } from './preprocess.js';
 import { lowerBound, type ProfileLine, type Template } from './templates.js';
 import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
@@ -64,11 +65,7 @@ interface GridPositions {
 }
 
 /** Computed once per prepared spectrum: every continuum refit interpolates at the same positions. */
-const positionsOf = new WeakMap<PreparedSpectrum, GridPositions>();
-
-function gridPositions(p: PreparedSpectrum): GridPositions {
-  const known = positionsOf.get(p);
-  if (known) return known;
+const gridPositions = perSpectrum((p): GridPositions => {
   const { grid } = p;
   const wave = p.native.waveAngstrom;
   const cell = new Int32Array(wave.length), frac = new Float64Array(wave.length);
@@ -78,10 +75,8 @@ function gridPositions(p: PreparedSpectrum): GridPositions {
     cell[i] = j;
     frac[i] = x < -0.5 || x > grid.length - 0.5 ? NaN : Math.min(1, Math.max(0, x - j));
   }
-  const positions = { cell, frac };
-  positionsOf.set(p, positions);
-  return positions;
-}
+  return { cell, frac };
+});
 
 /**
  * The run of pixels [from, to) within `halfSigmas` line σ of one line at z (the wavelengths
