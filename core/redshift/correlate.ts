@@ -174,36 +174,45 @@ interface SpectrumTransforms {
 }
 
 /**
- * Work buffers per grid and FFT size, reused from spectrum to spectrum (one correlation at a time
- * per thread); per grid, because a spectrum's transforms on one grid are kept while templates on
- * another grid run.
+ * A spectrum's transforms and running sums per grid and FFT size, reused from spectrum to
+ * spectrum (one correlation at a time per thread); per grid, because a spectrum's transforms on
+ * one grid are kept while templates on another grid run. Only a grid's longest FFT has them.
  */
-interface Scratch {
+interface TransformBuffers {
   s2Sum: Float64Array;
   goodSum: Float64Array;
-  /** Interleaved complex buffers. */
-  z: Float64Array[];
+  /** Interleaved complex buffers: the packed input, then the two transforms. */
+  packed: Float64Array;
+  sw: Float64Array;
+  w: Float64Array;
 }
 
-const scratchByGrid = new Map<string, Scratch>();
+const transformBuffers = new Map<string, TransformBuffers>();
 
-function scratchFor(fft: ComplexFft, binFactor: number): Scratch {
+function transformBuffersFor(fft: ComplexFft, binFactor: number): TransformBuffers {
   const key = `${binFactor}|${fft.size}`;
-  let s = scratchByGrid.get(key);
+  let s = transformBuffers.get(key);
   if (!s) {
     const n = fft.size;
-    s = { s2Sum: new Float64Array(n + 1), goodSum: new Float64Array(n + 1), z: Array.from({ length: 5 }, () => fft.buffer()) };
-    scratchByGrid.set(key, s);
+    s = { s2Sum: new Float64Array(n + 1), goodSum: new Float64Array(n + 1), packed: fft.buffer(), sw: fft.buffer(), w: fft.buffer() };
+    transformBuffers.set(key, s);
   }
   return s;
+}
+
+/** The product spectrum and its inverse transform per FFT size, scratch of one template at a time. */
+const productBuffers = new Map<number, [Float64Array, Float64Array]>();
+
+function productBuffersFor(fft: ComplexFft): [Float64Array, Float64Array] {
+  let b = productBuffers.get(fft.size);
+  if (!b) productBuffers.set(fft.size, (b = [fft.buffer(), fft.buffer()]));
+  return b;
 }
 
 function spectrumTransforms(p: CorrelationInput, lay: Layout, fft: ComplexFft): SpectrumTransforms {
   const n = fft.size;
   const off = p.grid.start - lay.specOrigin;
-  const { z, s2Sum, goodSum } = scratchFor(fft, p.binFactor);
-  // z[3…4] hold the transforms kept while this spectrum's templates run; z[0…2] are scratch.
-  const [, , packed, sw, ww] = z;
+  const { packed, sw, w: ww, s2Sum, goodSum } = transformBuffersFor(fft, p.binFactor);
   packed.fill(0);
   s2Sum.fill(0, 0, off + 1);
   goodSum.fill(0, 0, off + 1);
@@ -259,7 +268,7 @@ export function curveArrays(nLag: number, all: Float64Array = new Float64Array(3
 function correlateOne(p: CorrelationInput, template: Template, e: BankEntry, lay: Layout, st: SpectrumTransforms, margin: number): CorrelationCurveData {
   const { fft } = e;
   const n = fft.size;
-  const [x, cx] = scratchFor(fft, p.binFactor).z;
+  const [x, cx] = productBuffersFor(fft);
   const sw = st.sw, w = st.w, t = e.t, t2v = e.t2;
   // X = A + i·B with A = conj(SW)·T and B = conj(W)·T2, both spectra of real correlations and
   // so Hermitian (exactly, as forwardPackedPair unpacks them): bins k ≤ N/2 give bin N − k as

@@ -103,7 +103,6 @@ async function measure(paths: string[], opts: MeasureCliOptions, baseColumns: Me
 
   const out = opts.out === undefined || opts.out === '-' ? process.stdout : createWriteStream(opts.out);
   const lines = new ChunkedLines(out);
-  const write = (line: string) => lines.write(line);
   const bar = process.stderr.isTTY ? new SingleBar({ format: 'measuring [{bar}] {value}/{total} spectra', stream: process.stderr, hideCursor: true }) : null;
   bar?.start(files.length, 0);
 
@@ -112,12 +111,12 @@ async function measure(paths: string[], opts: MeasureCliOptions, baseColumns: Me
   const pending: Promise<MeasureFileResult>[] = [];
   let submitted = 0, failed = 0;
   try {
-    if (format === 'csv') await write(csvLine(csvHeader(columns)));
+    if (format === 'csv') await lines.write(csvLine(csvHeader(columns)));
     for (let i = 0; i < files.length; i++) {
       while (submitted < files.length && submitted < i + ahead) pending.push(pool.measureFile(files[submitted++], { ...options, hostLines: opts.lines ? { cosmology } : undefined }));
       const result = await pending.shift()!;
       if (result.status !== 'ok') failed++;
-      await write(format === 'csv' ? csvLine(csvCells(columns, result)) : jsonlLine(columns, result));
+      await lines.write(format === 'csv' ? csvLine(csvCells(columns, result)) : jsonlLine(columns, result));
       bar?.increment();
     }
   } finally {
