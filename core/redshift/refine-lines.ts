@@ -68,7 +68,7 @@ export function fitEmissionLines(nr: NativeResidual, template: Template, z0: num
   const profiles = new LineProfiles(comps, z0, inst, xs);
   setInitialAmplitudes(profiles, nGroups, ys, ws, start);
   const work = lineWork(xs.length);
-  const fit = lmFit(lineProblem(profiles, nGroups, ys, ws, lower, upper, work), start);
+  const fit = lmFit(new LineProblem(profiles, nGroups, ys, ws, lower, upper, work), start);
   const p = fit.p;
   if (!p.every(Number.isFinite) || Math.abs(p[0]) > MAX_SHIFT_KMS) return null;
   const nF = fit.free.length;
@@ -289,111 +289,137 @@ function lineWork(n: number): LineWork {
 /**
  * The weighted least-squares problem of fitting `profiles` to ys (weights ws), for lmFit. JᵀWJ
  * is built from the lines' own points: the v and width columns are dense, an amplitude's column
- * is its lines' profiles.
+ * is its lines' profiles. A class rather than an object of closures, so that its methods are the
+ * same functions from fit to fit and their optimised code lasts.
  */
-function lineProblem(profiles: LineProfiles, nGroups: number, ys: Float64Array, ws: Float64Array, lower: Float64Array, upper: Float64Array, work: LineWork): LmProblem {
-  const nY = ys.length, { group } = profiles;
-  const model = work.model.subarray(0, nY), resid = work.resid.subarray(0, nY);
-  const dv = work.dv.subarray(0, nY), dn = work.dn.subarray(0, nY), db = work.db.subarray(0, nY);
-  const sumsAt: ModelSums = { model, dv, dNarrow: dn, dBroad: db };
-  const gram = new Float64Array(nGroups * nGroups);
-  const at = new Int32Array(3 + nGroups);
-  const sums = new Float64Array(9), self = new Float64Array(group.length);
-  return {
-    lower,
-    upper,
-    chi2(p) {
-      model.fill(0);
-      dv.fill(0);
-      dn.fill(0);
-      db.fill(0);
-      profiles.compute(p, sumsAt);
-      let chi2 = 0;
+class LineProblem implements LmProblem {
+  private readonly nY: number;
+  private readonly model: Float64Array;
+  private readonly resid: Float64Array;
+  private readonly dv: Float64Array;
+  private readonly dn: Float64Array;
+  private readonly db: Float64Array;
+  private readonly sumsAt: ModelSums;
+  private readonly gram: Float64Array;
+  private readonly at: Int32Array;
+  private readonly sums = new Float64Array(9);
+  private readonly self: Float64Array;
+
+  constructor(
+    private readonly profiles: LineProfiles,
+    private readonly nGroups: number,
+    private readonly ys: Float64Array,
+    private readonly ws: Float64Array,
+    readonly lower: Float64Array,
+    readonly upper: Float64Array,
+    work: LineWork,
+  ) {
+    const nY = (this.nY = ys.length);
+    this.model = work.model.subarray(0, nY);
+    this.resid = work.resid.subarray(0, nY);
+    this.dv = work.dv.subarray(0, nY);
+    this.dn = work.dn.subarray(0, nY);
+    this.db = work.db.subarray(0, nY);
+    this.sumsAt = { model: this.model, dv: this.dv, dNarrow: this.dn, dBroad: this.db };
+    this.gram = new Float64Array(nGroups * nGroups);
+    this.at = new Int32Array(3 + nGroups);
+    this.self = new Float64Array(profiles.group.length);
+  }
+
+  chi2(p: Float64Array): number {
+    const { model, resid, ys, ws, nY } = this;
+    model.fill(0);
+    this.dv.fill(0);
+    this.dn.fill(0);
+    this.db.fill(0);
+    this.profiles.compute(p, this.sumsAt);
+    let chi2 = 0;
+    for (let k = 0; k < nY; k++) {
+      const r = ys[k] - model[k];
+      resid[k] = r;
+      chi2 += ws[k] * r * r;
+    }
+    return chi2;
+  }
+
+  linearise(free: readonly number[], normal: Float64Array, gradient: Float64Array): void {
+    const { profiles, nGroups, ws, nY, resid, dv, dn, db, at, sums, self, gram } = this;
+    const { phi, from, to, group } = profiles;
+    const start = profiles.at;
+    const nF = free.length;
+    normal.fill(0);
+    gradient.fill(0);
+    at.fill(-1);
+    for (let i = 0; i < nF; i++) at[free[i]] = i;
+    // The v and width rows of JᵀWJ and JᵀW(y − model), in one pass. Most fits have one width
+    // free (narrow lines alone, or a quasar's broad ones): its column alone is summed then.
+    const both = at[1] >= 0 && at[2] >= 0, wi = at[2] >= 0 && !both ? 2 : 1, dw = wi === 2 ? db : dn;
+    sums.fill(0);
+    if (both) {
+      let s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, s5 = 0, s6 = 0, s7 = 0, s8 = 0;
       for (let k = 0; k < nY; k++) {
-        const r = ys[k] - model[k];
-        resid[k] = r;
-        chi2 += ws[k] * r * r;
+        const r = resid[k], w = ws[k], dvk = dv[k], dnk = dn[k], dbk = db[k];
+        const a = w * dvk, b = w * dnk, c = w * dbk;
+        s0 += a * dvk;
+        s1 += a * dnk;
+        s2 += a * dbk;
+        s3 += b * dnk;
+        s4 += b * dbk;
+        s5 += c * dbk;
+        s6 += a * r;
+        s7 += b * r;
+        s8 += c * r;
       }
-      return chi2;
-    },
-    linearise(free, normal, gradient) {
-      const { phi, from, to } = profiles;
-      const start = profiles.at;
-      const nF = free.length;
-      normal.fill(0);
-      gradient.fill(0);
-      at.fill(-1);
-      for (let i = 0; i < nF; i++) at[free[i]] = i;
-      // The v and width rows of JᵀWJ and JᵀW(y − model), in one pass. Most fits have one width
-      // free (narrow lines alone, or a quasar's broad ones): its column alone is summed then.
-      const both = at[1] >= 0 && at[2] >= 0, wi = at[2] >= 0 && !both ? 2 : 1, dw = wi === 2 ? db : dn;
-      sums.fill(0);
-      if (both) {
-        let s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, s5 = 0, s6 = 0, s7 = 0, s8 = 0;
-        for (let k = 0; k < nY; k++) {
-          const r = resid[k], w = ws[k], dvk = dv[k], dnk = dn[k], dbk = db[k];
-          const a = w * dvk, b = w * dnk, c = w * dbk;
-          s0 += a * dvk;
-          s1 += a * dnk;
-          s2 += a * dbk;
-          s3 += b * dnk;
-          s4 += b * dbk;
-          s5 += c * dbk;
-          s6 += a * r;
-          s7 += b * r;
-          s8 += c * r;
-        }
-        sums[0] = s0; sums[1] = s1; sums[2] = s2; sums[3] = s3; sums[4] = s4; sums[5] = s5; sums[6] = s6; sums[7] = s7; sums[8] = s8;
-      } else {
-        let svv = 0, svw = 0, sww = 0, svr = 0, swr = 0;
-        for (let k = 0; k < nY; k++) {
-          const r = resid[k], w = ws[k], dvk = dv[k], dwk = dw[k];
-          const a = w * dvk, b = w * dwk;
-          svv += a * dvk;
-          svw += a * dwk;
-          sww += b * dwk;
-          svr += a * r;
-          swr += b * r;
-        }
-        sums[0] = svv;
-        sums[wi] = svw;
-        sums[wi === 1 ? 3 : 5] = sww;
-        sums[6] = svr;
-        sums[6 + wi] = swr;
+      sums[0] = s0; sums[1] = s1; sums[2] = s2; sums[3] = s3; sums[4] = s4; sums[5] = s5; sums[6] = s6; sums[7] = s7; sums[8] = s8;
+    } else {
+      let svv = 0, svw = 0, sww = 0, svr = 0, swr = 0;
+      for (let k = 0; k < nY; k++) {
+        const r = resid[k], w = ws[k], dvk = dv[k], dwk = dw[k];
+        const a = w * dvk, b = w * dwk;
+        svv += a * dvk;
+        svw += a * dwk;
+        sww += b * dwk;
+        svr += a * r;
+        swr += b * r;
       }
-      for (let i = 0, t = 0; i < 3; i++) {
-        for (let j = i; j < 3; j++, t++) {
-          if (at[i] >= 0 && at[j] >= 0) normal[at[i] * nF + at[j]] = normal[at[j] * nF + at[i]] = sums[t];
-        }
-        if (at[i] >= 0) gradient[at[i]] = sums[6 + i];
+      sums[0] = svv;
+      sums[wi] = svw;
+      sums[wi === 1 ? 3 : 5] = sww;
+      sums[6] = svr;
+      sums[6 + wi] = swr;
+    }
+    for (let i = 0, t = 0; i < 3; i++) {
+      for (let j = i; j < 3; j++, t++) {
+        if (at[i] >= 0 && at[j] >= 0) normal[at[i] * nF + at[j]] = normal[at[j] * nF + at[i]] = sums[t];
       }
-      for (let c = 0; c < group.length; c++) {
-        const fa = at[3 + group[c]];
-        self[c] = 0;
-        if (fa < 0) continue;
-        let sr = 0, sv = 0, sn = 0, sb = 0, ss = 0;
-        for (let k = from[c], q = start[c]; k < to[c]; k++, q++) {
-          const wg = ws[k] * phi[q];
-          ss += wg * phi[q];
-          sr += wg * resid[k];
-          sv += wg * dv[k];
-          sn += wg * dn[k];
-          sb += wg * db[k];
-        }
-        self[c] = ss;
-        gradient[fa] += sr;
-        if (at[0] >= 0) normal[at[0] * nF + fa] = normal[fa * nF + at[0]] += sv;
-        if (at[1] >= 0) normal[at[1] * nF + fa] = normal[fa * nF + at[1]] += sn;
-        if (at[2] >= 0) normal[at[2] * nF + fa] = normal[fa * nF + at[2]] += sb;
+      if (at[i] >= 0) gradient[at[i]] = sums[6 + i];
+    }
+    for (let c = 0; c < group.length; c++) {
+      const fa = at[3 + group[c]];
+      self[c] = 0;
+      if (fa < 0) continue;
+      let sr = 0, sv = 0, sn = 0, sb = 0, ss = 0;
+      for (let k = from[c], q = start[c]; k < to[c]; k++, q++) {
+        const wg = ws[k] * phi[q];
+        ss += wg * phi[q];
+        sr += wg * resid[k];
+        sv += wg * dv[k];
+        sn += wg * dn[k];
+        sb += wg * db[k];
       }
-      amplitudeGram(profiles, ws, nGroups, self, gram);
-      for (let g = 0; g < nGroups; g++) {
-        const fg = at[3 + g];
-        if (fg < 0) continue;
-        for (let h = 0; h < nGroups; h++) if (at[3 + h] >= 0) normal[fg * nF + at[3 + h]] = gram[g * nGroups + h];
-      }
-    },
-  };
+      self[c] = ss;
+      gradient[fa] += sr;
+      if (at[0] >= 0) normal[at[0] * nF + fa] = normal[fa * nF + at[0]] += sv;
+      if (at[1] >= 0) normal[at[1] * nF + fa] = normal[fa * nF + at[1]] += sn;
+      if (at[2] >= 0) normal[at[2] * nF + fa] = normal[fa * nF + at[2]] += sb;
+    }
+    amplitudeGram(profiles, ws, nGroups, self, gram);
+    for (let g = 0; g < nGroups; g++) {
+      const fg = at[3 + g];
+      if (fg < 0) continue;
+      for (let h = 0; h < nGroups; h++) if (at[3 + h] >= 0) normal[fg * nF + at[3 + h]] = gram[g * nGroups + h];
+    }
+  }
 }
 
 /** Above this χ²_red the covariance error is in doubt and the scatter between lines is a floor. */
@@ -463,7 +489,7 @@ function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) =>
     for (let i = 0; i < n; i++) ys[i] = j.ys[idx[i]] - (full[idx[i]] - mine[i]);
     // v and the amplitude free, the widths held.
     const lower = Float64Array.of(j.lower[0], p[1], p[2], -Infinity), upper = Float64Array.of(j.upper[0], p[1], p[2], Infinity);
-    const v = lmFit(lineProblem(profiles, 1, ys, ws, lower, upper, j.work), start).p[0];
+    const v = lmFit(new LineProblem(profiles, 1, ys, ws, lower, upper, j.work), start).p[0];
     if (Math.abs(v) <= MAX_SHIFT_KMS) velocities.push(v);
   }
   const n = velocities.length;
