@@ -182,13 +182,9 @@ export function selectInPlace(a: Float64Array, n: number, k: number): number {
   let left = 0, right = n - 1, poorSplits = 0;
   while (right - left > 16) {
     const mid = (left + right) >> 1;
-    let x = a[left], y = a[mid], z = a[right], t;
-    if (y < x) { t = x; x = y; y = t; }
-    if (z < x) { t = x; x = z; z = t; }
-    if (z < y) { t = y; y = z; z = t; }
-    a[left] = x;
-    a[mid] = z;
-    // The median of the three is the pivot, kept at the right end while the rest is split.
+    // The median of three is the pivot, kept at the right end while the rest is split.
+    const y = sortThree(a, left, mid, right);
+    a[mid] = a[right];
     a[right] = y;
     let store = left;
     for (let i = left; i < right; i++) {
@@ -212,14 +208,7 @@ export function selectInPlace(a: Float64Array, n: number, k: number): number {
 /** selectInPlace on a[left…right] by Hoare's partition around a median-of-three pivot. */
 function hoareSelect(a: Float64Array, left: number, right: number, k: number): number {
   while (right - left > 16) {
-    const mid = (left + right) >> 1;
-    let x = a[left], y = a[mid], z = a[right], t;
-    if (y < x) { t = x; x = y; y = t; }
-    if (z < x) { t = x; x = z; z = t; }
-    if (z < y) { t = y; y = z; z = t; }
-    a[left] = x;
-    a[mid] = y;
-    a[right] = z;
+    const y = sortThree(a, left, (left + right) >> 1, right);
     let i = left, j = right;
     while (i <= j) {
       let ai = a[i];
@@ -238,6 +227,18 @@ function hoareSelect(a: Float64Array, left: number, right: number, k: number): n
     else return a[k];
   }
   return insertionSelect(a, left, right, k);
+}
+
+/** Puts a[i] ≤ a[j] ≤ a[k] in order; returns the middle one. */
+function sortThree(a: Float64Array, i: number, j: number, k: number): number {
+  let x = a[i], y = a[j], z = a[k], t;
+  if (y < x) { t = x; x = y; y = t; }
+  if (z < x) { t = x; x = z; z = t; }
+  if (z < y) { t = y; y = z; z = t; }
+  a[i] = x;
+  a[j] = y;
+  a[k] = z;
+  return y;
 }
 
 /** a[k] after sorting a[left…right] by insertion. */
