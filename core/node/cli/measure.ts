@@ -18,7 +18,7 @@ import { csvCells, csvHeader, csvLine, jsonlLine, MEASURE_COLUMNS, type MeasureC
 import { resolveTemplates, TemplateChoiceError } from '../../redshift/template-set.js';
 import type { MeasureOptions } from '../../redshift/types.js';
 import { LineListError, parseUserLineList } from '../../redshift/user-line-list.js';
-import { MeasurePool, type MeasureFileResult } from '../measure-pool.js';
+import { defaultJobs, MeasurePool, type MeasureFileResult } from '../measure-pool.js';
 import { readSpectrumFile } from '../read-spectrum-file.js';
 import { listSpectrumFiles } from '../spectrum-files.js';
 import { ChunkedLines } from './chunked-lines.js';
@@ -54,7 +54,7 @@ export function registerMeasure(program: Command, columns: MeasureColumn[] = MEA
     .argument('<paths...>', 'spectrum files or folders (searched recursively)')
     .option('--out <file>', 'write the table here ("-" = standard output)', '-')
     .option('--format <format>', 'csv or jsonl (default: from --out, else csv)')
-    .option('--jobs <n>', 'worker threads (default: all cores)')
+    .option('--jobs <n>', 'worker threads (default: all cores, one per 200 spectra in shorter batches)')
     .option('--templates <list>', 'comma-separated template names (default: all)')
     .option('--zmin <z>', 'lowest redshift searched by the galaxy and QSO templates; the star template (z = 0 ± 0.005, ±1500 km/s) is searched only when [zmin, zmax] includes 0, and is narrowed only by a bound inside ±0.005 on its own side of 0')
     .option('--zmax <z>', 'highest redshift searched by the galaxy and QSO templates (the star template: see --zmin)')
@@ -106,8 +106,9 @@ async function measure(paths: string[], opts: MeasureCliOptions, baseColumns: Me
   const bar = process.stderr.isTTY ? new SingleBar({ format: 'measuring [{bar}] {value}/{total} spectra', stream: process.stderr, hideCursor: true }) : null;
   bar?.start(files.length, 0);
 
-  const pool = new MeasurePool({ jobs });
-  const ahead = AHEAD_PER_JOB * (jobs ?? 4);
+  const workers = jobs ?? defaultJobs(files.length);
+  const pool = new MeasurePool({ jobs: workers });
+  const ahead = AHEAD_PER_JOB * workers;
   const pending: Promise<MeasureFileResult>[] = [];
   let submitted = 0, failed = 0;
   try {
