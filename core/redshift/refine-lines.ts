@@ -293,7 +293,6 @@ function lineWork(n: number): LineWork {
  * same functions from fit to fit and their optimised code lasts.
  */
 class LineProblem implements LmProblem {
-  private readonly nY: number;
   private readonly model: Float64Array;
   private readonly resid: Float64Array;
   private readonly dv: Float64Array;
@@ -314,7 +313,7 @@ class LineProblem implements LmProblem {
     readonly upper: Float64Array,
     work: LineWork,
   ) {
-    const nY = (this.nY = ys.length);
+    const nY = ys.length;
     this.model = work.model.subarray(0, nY);
     this.resid = work.resid.subarray(0, nY);
     this.dv = work.dv.subarray(0, nY);
@@ -327,7 +326,7 @@ class LineProblem implements LmProblem {
   }
 
   chi2(p: Float64Array): number {
-    const { model, resid, ys, ws, nY } = this;
+    const { model, resid, ys, ws } = this, nY = ys.length;
     model.fill(0);
     this.dv.fill(0);
     this.dn.fill(0);
@@ -343,7 +342,7 @@ class LineProblem implements LmProblem {
   }
 
   linearise(free: readonly number[], normal: Float64Array, gradient: Float64Array): void {
-    const { profiles, nGroups, ws, nY, resid, dv, dn, db, at, sums, self, gram } = this;
+    const { profiles, nGroups, ws, resid, dv, dn, db, at, sums, self, gram } = this, nY = this.ys.length;
     const { phi, from, to, group } = profiles;
     const start = profiles.at;
     const nF = free.length;
