@@ -1,6 +1,7 @@
 // Benchmark of `zvet measure` on the open survey spectra (run by `npm run bench` after the
 // build): spectra per second with --jobs 1 and with all cores, end to end and beyond a first run
-// of start-up and warm-up; the time per stage; the peak resident memory over a long batch; then
+// of start-up and warm-up; the time per stage; a short batch on one worker and on all cores (the
+// evidence for zvet measure's default worker count); the peak resident memory over a long batch; then
 // the CPU time per spectrum of the engine run in this process (steadier than wall-clock rates on
 // a shared machine). Prints figures against the targets; asserts nothing.
 import { build } from 'esbuild';
@@ -55,6 +56,14 @@ function stageLine(s) {
   return `read ${per(s.read_ms)}, preprocess ${per(s.preprocess_ms)}, correlate ${per(s.correlate_ms)}, refine ${per(s.refine_ms)} per spectrum (worker time)`;
 }
 
+// The engine, for the in-process figures at the end, and the default worker count.
+const engine = join(root, 'dist/bench-engine.mjs');
+await build({
+  stdin: { contents: "export { readSpectrum } from './core/spectrum/read.ts'; export { measureRedshift } from './core/redshift/measure.ts'; export { defaultJobs } from './core/node/measure-pool.ts';", resolveDir: root, loader: 'ts' },
+  bundle: true, platform: 'node', format: 'esm', outfile: engine, logLevel: 'warning',
+});
+const { readSpectrum, measureRedshift, defaultJobs } = await import(pathToFileURL(engine).href);
+
 const n = Math.max(500, survey.length * Math.ceil(500 / survey.length));
 console.log(`zvet measure bench: ${survey.length} SDSS/BOSS/eBOSS survey spectra repeated to ${n}, default templates, ${cores} cores`);
 // A run of one pass of the survey spectra gives the start-up and JIT warm-up of each run: the
@@ -66,17 +75,18 @@ for (const jobs of [1, cores]) {
   console.log(`--jobs ${jobs}: ${(n / r.seconds).toFixed(1)} spectra/s end to end (target ≥ ${jobs === 1 ? 600 : 1000}); ${stageLine(r.stages)}; peak RSS ${r.peakMb.toFixed(0)} MB`);
   console.log(`  beyond the first ${survey.length} spectra: ${steady.toFixed(1)} spectra/s; start-up and warm-up ≈ ${(short.seconds - survey.length / steady).toFixed(2)} s per run`);
 }
+// Short batches: one worker against all cores, the evidence for defaultJobs (core/node/measure-pool.ts).
+if (cores > 1) {
+  const shortBatch = 128, times = { 1: [], [cores]: [] };
+  for (let round = 0; round < 3; round++) for (const jobs of [1, cores]) times[jobs].push((await run(repeated(shortBatch), jobs)).seconds);
+  const median = (xs) => [...xs].sort((a, b) => a - b)[xs.length >> 1];
+  console.log(`${shortBatch} spectra (medians of 3): ${median(times[1]).toFixed(2)} s with --jobs 1, ${median(times[cores]).toFixed(2)} s with --jobs ${cores}; zvet measure's default for this batch: ${defaultJobs(shortBatch)} worker(s)`);
+}
 const r = await run(repeated(long), cores);
 console.log(`${long} spectra, --jobs ${cores}: ${(long / r.seconds).toFixed(1)} spectra/s; peak RSS ${r.peakMb.toFixed(0)} MB (target < 300 MB)`);
 
 // The engine in this process: CPU time (user + system) per spectrum, read and measured, after a
 // warm-up pass, over 10 passes of the survey spectra.
-const engine = join(root, 'dist/bench-engine.mjs');
-await build({
-  stdin: { contents: "export { readSpectrum } from './core/spectrum/read.ts'; export { measureRedshift } from './core/redshift/measure.ts';", resolveDir: root, loader: 'ts' },
-  bundle: true, platform: 'node', format: 'esm', outfile: engine, logLevel: 'warning',
-});
-const { readSpectrum, measureRedshift } = await import(pathToFileURL(engine).href);
 const bytes = survey.map((f) => ({ name: f, data: new Uint8Array(readFileSync(f)) }));
 const cpuMs = () => { const u = process.cpuUsage(); return (u.user + u.system) / 1000; };
 for (const b of bytes) measureRedshift(readSpectrum(b.data, b.name));
