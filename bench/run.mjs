@@ -1,9 +1,9 @@
 // Benchmark of `zvet measure` on the open survey spectra (run by `npm run bench` after the
 // build): spectra per second with --jobs 1 and with all cores, end to end and beyond a first run
 // of start-up and warm-up; the time per stage; a short batch on one worker and on all cores (the
-// evidence for zvet measure's default worker count); the peak resident memory over a long batch; then
-// the CPU time per spectrum of the engine run in this process (steadier than wall-clock rates on
-// a shared machine). Prints figures against the targets; asserts nothing.
+// evidence for zvet measure's default worker count); the peak resident memory over a long
+// batch; then the CPU time per spectrum of the engine run in this process (steadier than
+// wall-clock rates on a shared machine). Prints figures against the targets; asserts nothing.
 import { build } from 'esbuild';
 import { spawn } from 'node:child_process';
 import { readdirSync, readFileSync } from 'node:fs';
