@@ -1,9 +1,10 @@
 // Benchmark of `zvet measure` on the open survey spectra (run by `npm run bench` after the
-// build): spectra per second with --jobs 1 and with all cores, end to end and beyond a first run
-// of start-up and warm-up; the time per stage; a short batch on one worker and on all cores (the
-// evidence for zvet measure's default worker count); the peak resident memory over a long
-// batch; then the CPU time per spectrum of the engine run in this process (steadier than
-// wall-clock rates on a shared machine). Prints figures against the targets; asserts nothing.
+// build): the floor of a fresh process that only reads the files; spectra per second with
+// --jobs 1 and with all cores, end to end and beyond a first run of start-up and warm-up; the
+// time per stage; a short batch on one worker and on all cores (the evidence for zvet measure's
+// default worker count); the peak resident memory over a long batch; then the CPU time per
+// spectrum of the engine run in this process (steadier than wall-clock rates on a shared
+// machine). Prints figures against the targets; asserts nothing.
 import { build } from 'esbuild';
 import { spawn } from 'node:child_process';
 import { readdirSync, readFileSync } from 'node:fs';
@@ -51,6 +52,18 @@ function run(files, jobs) {
   });
 }
 
+/** Wall seconds of bench/read-only.mjs reading the files in a fresh process. */
+function readOnly(files) {
+  return new Promise((resolvePromise, reject) => {
+    const t0 = process.hrtime.bigint();
+    const child = spawn(process.execPath, [join(root, 'bench/read-only.mjs'), engine, ...files], { stdio: ['ignore', 'ignore', 'inherit'] });
+    child.on('error', reject);
+    child.on('exit', (code) => (code === 0 ? resolvePromise(Number(process.hrtime.bigint() - t0) / 1e9) : reject(new Error(`bench/read-only.mjs exited ${code}`))));
+  });
+}
+
+const median = (xs) => [...xs].sort((a, b) => a - b)[xs.length >> 1];
+
 function stageLine(s) {
   const per = (ms) => `${(ms / s.files).toFixed(2)} ms`;
   return `read ${per(s.read_ms)}, preprocess ${per(s.preprocess_ms)}, correlate ${per(s.correlate_ms)}, refine ${per(s.refine_ms)} per spectrum (worker time)`;
@@ -68,6 +81,13 @@ const n = Math.max(500, survey.length * Math.ceil(500 / survey.length));
 console.log(`zvet measure bench: ${survey.length} SDSS/BOSS/eBOSS survey spectra repeated to ${n}, default templates, ${cores} cores`);
 // A run of one pass of the survey spectra gives the start-up and JIT warm-up of each run: the
 // rate beyond it is the steady one.
+// The floor under the end-to-end rates: a fresh process that only reads the files (medians of 3).
+{
+  const files = repeated(n), seconds = [];
+  for (let round = 0; round < 3; round++) seconds.push(await readOnly(files));
+  const floor = median(seconds);
+  console.log(`reading alone, ${n} spectra in a fresh process: ${floor.toFixed(2)} s (${(n / floor).toFixed(0)} spectra/s); at 600 spectra/s the whole run would have ${(n / 600).toFixed(2)} s`);
+}
 for (const jobs of [1, cores]) {
   const short = await run(survey, jobs);
   const r = await run(repeated(n), jobs);
@@ -79,7 +99,6 @@ for (const jobs of [1, cores]) {
 if (cores > 1) {
   const shortBatch = 128, times = { 1: [], [cores]: [] };
   for (let round = 0; round < 3; round++) for (const jobs of [1, cores]) times[jobs].push((await run(repeated(shortBatch), jobs)).seconds);
-  const median = (xs) => [...xs].sort((a, b) => a - b)[xs.length >> 1];
   console.log(`${shortBatch} spectra (medians of 3): ${median(times[1]).toFixed(2)} s with --jobs 1, ${median(times[cores]).toFixed(2)} s with --jobs ${cores}; zvet measure's default for this batch: ${defaultJobs(shortBatch)} worker(s)`);
 }
 const r = await run(repeated(long), cores);
