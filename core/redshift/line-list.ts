@@ -77,6 +77,18 @@ export const REST_LINES: readonly RestLine[] = [
 
 const byId = new Map(REST_LINES.map((l) => [l.id, l]));
 
+/** Hydrogen's Lyman and Balmer lines: one ion, H I, whatever their labels. */
+const HYDROGEN = new Set(['Lyb', 'Lya', 'H10', 'H9', 'H8', 'Heps', 'Hdelta', 'Hgamma', 'Hbeta', 'Halpha']);
+
+/**
+ * The ion a line comes from ('H I', '[O III]', 'He II', …; a line of a user's list that is not in
+ * this table is an ion of its own). Lines of one ion come from the same gas and share its
+ * velocity; lines of different ions may not.
+ */
+export function lineIon(id: string): string {
+  return HYDROGEN.has(id) ? 'H I' : (byId.get(id)?.label ?? id);
+}
+
 /** The line with this id; throws for an unknown id (a programming error). */
 export function restLine(id: string): RestLine {
   const line = byId.get(id);

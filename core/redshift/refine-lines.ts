@@ -3,15 +3,17 @@
  * the error spectrum (Levenberg–Marquardt on the analytic Jacobian, lm-fit.ts). Parameters: velocity
  * offset v (km/s), one σ for narrow and one for broad lines (km/s), and one amplitude per line
  * or tied doublet. The covariance is (Jᵀ W J)⁻¹ at the solution (e.g. Press et al., Numerical
- * Recipes, §15.5), scaled by √χ²_red when that exceeds 1; when χ²_red is large the spread of the
- * lines' own velocities is a floor (centroidScatterKmS).
+ * Recipes, §15.5), scaled by √χ²_red when that exceeds 1; the spread of the lines' own
+ * velocities is a floor (centroidScatterKmS).
  */
 import { unitGaussian } from './gaussian.js';
 import { lineGroups } from './line-groups.js';
-import { choleskySolve, inverseDiagonal, lmFit, type LmProblem } from './lm-fit.js';
+import { choleskySolve, inverseDiagonal, lmFit, type LmProblem, type LmResult } from './lm-fit.js';
 import { lineRun, pixelArrays, pixelsNearLines, usable, type NativeResidual } from './native-residual.js';
+import { lineIon } from './line-list.js';
 import { lowerBound, type ProfileLine, type Template } from './templates.js';
 import { SPEED_OF_LIGHT_KMS } from '../astro/constants.js';
+import { pauleMandelTau2, weightedMeanError } from '../math/random-effects.js';
 
 const SQRT_2PI = Math.sqrt(2 * Math.PI);
 /** Lines wider than this (km/s) share the broad σ (common practice, no source). */
@@ -81,7 +83,7 @@ export function fitEmissionLines(nr: NativeResidual, template: Template, z0: num
     const f = fit.free.indexOf(3 + g);
     return f >= 0 && variance[f] > 0 ? Math.sqrt(variance[f] * Math.max(1, chi2Red)) : Infinity;
   };
-  const scatterKmS = chi2Red > SCATTER_FLOOR_CHI2RED ? centroidScatterKmS({ profiles, nGroups, ys, ws, lower, upper, work }, p, ampErr) : 0;
+  const scatterKmS = centroidScatterKmS({ profiles, nGroups, ys, ws, lower, upper, work }, p, ampErr);
   const sigmaV = Math.max(covarianceKmS, scatterKmS);
   const z = (1 + z0) * (1 + p[0] / SPEED_OF_LIGHT_KMS) - 1;
   return { z, zErr: ((1 + z0) * sigmaV) / SPEED_OF_LIGHT_KMS, chi2Red, nLinesFitted: inRange.length };
@@ -421,8 +423,6 @@ class LineProblem implements LmProblem {
   }
 }
 
-/** Above this χ²_red the covariance error is in doubt and the scatter between lines is a floor. */
-const SCATTER_FLOOR_CHI2RED = 2;
 /** Lines (or tied doublets) count for the scatter from this amplitude S/N up. */
 const SCATTER_MIN_SNR = 5;
 const SCATTER_MIN_LINES = 3;
@@ -439,11 +439,14 @@ interface JointFit {
 
 /**
  * Error of the common velocity from the spread of the lines' own velocities: each strong line
- * (or doublet) refitted alone for its offset, widths and the other lines held at the joint fit;
- * the standard error of the mean, s/√N. The lines share one z, so their spread is an honest
- * empirical error when the profiles are not the Gaussians the covariance assumes (outflows,
- * blends, asymmetric wings). Common practice, no single source. 0 when fewer than
- * SCATTER_MIN_LINES lines are strong enough.
+ * (or doublet) refitted alone for its offset and its error, widths and the other lines held at
+ * the joint fit. Lines may disagree by more than their errors (outflows, blends, asymmetric
+ * wings, gas in other places) by an intrinsic scatter τ² (pauleMandelTau2, on the errors scaled by
+ * each refit's √χ²_red). The joint fit weights each line by its unscaled 1/σ², so its velocity is
+ * that weighted mean of theirs (to about 1 km/s in simulations), with the error
+ * weightedMeanError gives. The scatter is taken between lines and between ions (lines of one
+ * ion share their gas's velocity, so Balmer lines that agree say nothing of how far [O III] is
+ * off), and the larger error is kept. 0 when fewer than SCATTER_MIN_LINES lines are strong enough.
  */
 function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) => number): number {
   const { comps, z0, inst, xs: allXs } = j.profiles;
@@ -454,7 +457,7 @@ function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) =>
   j.profiles.addModel(p, full);
   // The refits' points, values and weights, and their lines' model: views of these.
   const idx = new Int32Array(nAll), subXs = new Float64Array(nAll), subYs = new Float64Array(nAll), subWs = new Float64Array(nAll), subModel = new Float64Array(nAll);
-  const velocities: number[] = [];
+  const velocities: number[] = [], variances: number[] = [], weights: number[] = [], ions: string[] = [];
   for (let g = 0; g < j.nGroups; g++) {
     if (!(Math.abs(p[3 + g]) >= SCATTER_MIN_SNR * ampErr(g))) continue;
     // The group's lines alone, their amplitude the only one of the refit: [v, σ_narrow, σ_broad, A].
@@ -488,12 +491,43 @@ function centroidScatterKmS(j: JointFit, p: Float64Array, ampErr: (g: number) =>
     for (let i = 0; i < n; i++) ys[i] = j.ys[idx[i]] - (full[idx[i]] - mine[i]);
     // v and the amplitude free, the widths held.
     const lower = Float64Array.of(j.lower[0], p[1], p[2], -Infinity), upper = Float64Array.of(j.upper[0], p[1], p[2], Infinity);
-    const v = lmFit(new LineProblem(profiles, 1, ys, ws, lower, upper, j.work), start).p[0];
-    if (Math.abs(v) <= MAX_SHIFT_KMS) velocities.push(v);
+    const fit = lmFit(new LineProblem(profiles, 1, ys, ws, lower, upper, j.work), start);
+    const variance = velocityVariance(fit);
+    if (!(Math.abs(fit.p[0]) <= MAX_SHIFT_KMS) || variance === null) continue;
+    velocities.push(fit.p[0]);
+    ions.push(lineIon(own[0].line.id));
+    weights.push(1 / variance);
+    // Scaled by the refit's own χ²_red, as the joint fit's covariance is.
+    variances.push(variance * Math.max(1, fit.chi2 / Math.max(1, n - fit.free.length)));
   }
-  const n = velocities.length;
-  if (n < SCATTER_MIN_LINES) return 0;
-  const mean = velocities.reduce((a, v) => a + v, 0) / n;
-  const s = Math.sqrt(velocities.reduce((a, v) => a + (v - mean) ** 2, 0) / (n - 1));
-  return s / Math.sqrt(n);
+  if (velocities.length < SCATTER_MIN_LINES) return 0;
+  const betweenLines = weightedMeanError(weights, variances, pauleMandelTau2(velocities, variances));
+  const byIon = combinedByIon(velocities, variances, weights, ions);
+  if (byIon.velocities.length < 2) return betweenLines;
+  return Math.max(betweenLines, weightedMeanError(byIon.weights, byIon.variances, pauleMandelTau2(byIon.velocities, byIon.variances)));
+}
+
+/** The variance of v (parameter 0) from a fit's JᵀWJ, or null when v was held or the matrix is singular. */
+function velocityVariance(fit: LmResult): number | null {
+  if (fit.free[0] !== 0) return null;
+  const variance = inverseDiagonal(fit.normal, fit.free.length)?.[0];
+  return variance !== undefined && variance > 0 && variance < Infinity ? variance : null;
+}
+
+/** Per ion, its lines' velocities combined as the joint fit combines them (weights u), with that mean's variance and weight. */
+function combinedByIon(velocities: number[], variances: number[], weights: number[], ions: string[]): { velocities: number[]; variances: number[]; weights: number[] } {
+  const out = { velocities: [] as number[], variances: [] as number[], weights: [] as number[] };
+  for (const ion of new Set(ions)) {
+    let su = 0, suv = 0, su2s = 0;
+    ions.forEach((other, i) => {
+      if (other !== ion) return;
+      su += weights[i];
+      suv += weights[i] * velocities[i];
+      su2s += weights[i] ** 2 * variances[i];
+    });
+    out.velocities.push(suv / su);
+    out.variances.push(su2s / su ** 2);
+    out.weights.push(su);
+  }
+  return out;
 }
