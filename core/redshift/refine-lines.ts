@@ -425,7 +425,12 @@ class LineProblem implements LmProblem {
 
 /** Lines (or tied doublets) count for the scatter from this amplitude S/N up. */
 const SCATTER_MIN_SNR = 5;
-const SCATTER_MIN_LINES = 3;
+/**
+ * Two lines give a scatter of one degree of freedom: a rough error, but two broad QSO lines of
+ * different ions can disagree by far more than their fits say (an open-spectra QSO: 729 km/s
+ * off with σz 162 km/s from its two lines' covariance alone).
+ */
+const SCATTER_MIN_LINES = 2;
 
 interface JointFit {
   profiles: LineProfiles;
