@@ -264,7 +264,7 @@ describe('measureRedshift on synthetic spectra', () => {
 
   // Lines of a galaxy need not share one velocity (outflows, blends, gas in other places). Here
   // they scatter about the systemic z by τ = 20 km/s, and σz must cover the systemic z, the truth.
-  // 40 realisations each: the rms pull of a unit normal lies in [0.67, 1.36] but at the 0.1 %
+  // 40 realisations each: the rms of 40 unit normals falls outside [0.67, 1.36] only in the 0.1 %
   // tails of χ² with 40 degrees of freedom (17.9 and 73.4; standard tables, from memory).
   const TAU_KMS = 20, REALISATIONS = 40;
   const rmsPull = (template: Template, offsetKmS: (normal: () => number) => (line: ProfileLine) => number): number => {
@@ -290,7 +290,7 @@ describe('measureRedshift on synthetic spectra', () => {
   };
 
   it('gives a σz that covers the systemic z when each line is offset on its own', () => {
-    // Before the scatter between lines was weighted as the joint fit weights them: 2.05 and 3.72.
+    // With the former floor, s/√N of the lines' velocities: 2.05 and 3.72.
     for (const name of ['star-forming', 'agn-narrow']) {
       const rms = rmsPull(byTemplate(name), perLine(byTemplate(name)));
       expect(rms, name).toBeGreaterThan(0.67);
@@ -300,7 +300,7 @@ describe('measureRedshift on synthetic spectra', () => {
 
   it('gives a σz that covers the systemic z within 1.5× when whole ions move together', () => {
     // A few ions carry most of the weight, so their scatter is measured on few values: σz comes
-    // out up to about 1.3× small. Before the scatter was taken between ions: 8.9 and 8.4.
+    // out up to about 1.3× small. With the former floor, s/√N of the lines' velocities: 8.9 and 8.4.
     for (const name of ['star-forming', 'agn-narrow']) {
       const rms = rmsPull(byTemplate(name), perIon(byTemplate(name)));
       expect(rms, name).toBeGreaterThan(0.67);
