@@ -17,12 +17,14 @@ export interface ServeProcess {
 }
 
 /** Starts `zvet serve FOLDER`, or with `folder` null `zvet serve` with no worklist open. */
-export async function startServe(folder: string | null, configDir: string): Promise<ServeProcess> {
+export function startServe(folder: string | null, configDir: string): Promise<ServeProcess> {
+  return startServingScript([ZVET_BIN, 'serve', ...(folder === null ? [] : [folder]), '--port', '0', '--no-open'], { ZVET_CONFIG_DIR: configDir });
+}
+
+/** Runs a Node script that ends in `zvet serve` and waits for the address line it prints. */
+export async function startServingScript(args: string[], env: Record<string, string>): Promise<ServeProcess> {
   if (!existsSync(resolve(ROOT, 'dist/cli.js'))) throw new Error('dist/cli.js is missing: run npm run build first');
-  const child = spawn(process.execPath, [ZVET_BIN, 'serve', ...(folder === null ? [] : [folder]), '--port', '0', '--no-open'], {
-    env: { ...process.env, ZVET_CONFIG_DIR: configDir },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
+  const child = spawn(process.execPath, args, { cwd: ROOT, env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
   let out = '';
   let err = '';
   child.stdout!.on('data', (d: Buffer) => (out += d.toString()));
@@ -38,7 +40,7 @@ export async function startServe(folder: string | null, configDir: string): Prom
     }, 20);
     exited.then((code) => {
       clearInterval(timer);
-      fail(new Error(`zvet serve exited with ${code}: ${err.trim()}`));
+      fail(new Error(`${args.join(' ')} exited with ${code}: ${err.trim()}`));
     });
   });
   const m = /^http:\/\/127\.0\.0\.1:(\d+)\/\?token=(.+)$/.exec(url);
