@@ -52,10 +52,7 @@ let lastTab: { tab: string; slot: unknown; stale: boolean; settings: unknown; vi
 function renderTab(state: AppState): void {
   // The host panel's table and diagram want room: the side column widens while it is shown.
   const layout = document.querySelector('.layout')!;
-  if (layout.classList.contains('wide-side') !== (state.tab === 'host')) {
-    layout.classList.toggle('wide-side', state.tab === 'host');
-    void plots.resize().then(() => view.spectrum(state));
-  }
+  layout.classList.toggle('wide-side', state.tab === 'host');
   byId('tab-derived').setAttribute('aria-selected', String(state.tab === 'derived'));
   byId('tab-host').setAttribute('aria-selected', String(state.tab === 'host'));
   const slot = state.tab === 'derived' ? controller.derived : controller.host;
@@ -138,6 +135,20 @@ const view: View = {
 };
 
 controller = new Controller(api, view);
+
+// Plotly keeps the size a plot was drawn at. Whenever a plot's box changes (the side column
+// widens, the title wraps to another line, the window is resized) both are fitted again, once
+// per frame, and the spectrum is redrawn for its new width.
+let refitQueued = false;
+const refitPlots = new ResizeObserver(() => {
+  if (refitQueued) return;
+  refitQueued = true;
+  requestAnimationFrame(() => {
+    refitQueued = false;
+    void plots.resize().then(() => view.spectrum(controller.s));
+  });
+});
+for (const id of ['spectrum-plot', 'correlation-plot']) refitPlots.observe(byId(id));
 
 // A mouse click must not leave a button focused: Enter would then press that button again
 // instead of saving the trial z. Tab still focuses buttons for keyboard users.

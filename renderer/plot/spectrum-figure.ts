@@ -89,7 +89,8 @@ export function buildSpectrumFigure(input: SpectrumFigureInput): SpectrumFigure 
   const [lo, hi] = input.xRange ?? fullRange;
   const smoothed = smooth(arrays.flux, arrays.mask, input.smoothing);
   const err = smoothError(arrays.error, arrays.mask, input.smoothing);
-  const margin = { l: 72, r: input.showSky && arrays.sky ? 64 : 20, t: 56, b: 48 };
+  // The bottom margin holds the tick labels, the axis title and, below them, the legend.
+  const margin = { l: 72, r: input.showSky && arrays.sky ? 64 : 20, t: 56, b: 78 };
   const shown = envelopeIndices(wave, smoothed, lo, hi, input.widthPx - margin.l - margin.r);
   const x = pick(wave, shown);
   const flux = pick(smoothed, shown);
@@ -134,7 +135,7 @@ export function buildSpectrumFigure(input: SpectrumFigureInput): SpectrumFigure 
     font: { family: THEME.font, size: 13, color: THEME.text },
     margin,
     showlegend: true,
-    legend: { orientation: 'h', x: 0, y: -0.13, yanchor: 'top', font: { size: 13, color: THEME.muted }, bgcolor: 'rgba(0,0,0,0)' },
+    legend: { orientation: 'h', x: 0, y: 0, yref: 'container', yanchor: 'bottom', font: { size: 13, color: THEME.muted }, bgcolor: 'rgba(0,0,0,0)' },
     hovermode: 'x',
     dragmode: 'zoom',
     uirevision: 'spectrum',

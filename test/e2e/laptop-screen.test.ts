@@ -1,0 +1,82 @@
+// The window on a laptop screen (1366 × 768, common practice for the smallest screen we design
+// for, no source): nothing covers anything else, and the plots follow their boxes when the side
+// column widens or the window is resized.
+import { cpSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, expect, it } from 'vitest';
+import { DEMO_WORKLIST, ROOT } from '../support/paths';
+import { startServe, type ServeProcess } from '../unit/server-harness';
+import { openWindow, waitDrawn, type WindowSession } from './browser';
+
+let tmp: string;
+let server: ServeProcess;
+let win: WindowSession;
+
+beforeAll(async () => {
+  tmp = mkdtempSync(join(tmpdir(), 'zvet-e2e-laptop-'));
+  cpSync(DEMO_WORKLIST, join(tmp, 'night'), { recursive: true });
+  server = await startServe(join(tmp, 'night'), join(tmp, 'config'));
+  win = await openWindow(server.url, { width: 1366, height: 768 });
+  await waitDrawn(win.page, 'KRT-26-0011.fits');
+}, 60_000);
+
+afterAll(async () => {
+  await win?.close();
+  await server?.stop();
+  if (tmp) rmSync(tmp, { recursive: true, force: true });
+});
+
+interface Box { top: number; bottom: number; left: number; right: number; width: number }
+
+/** Where the parts of the centre column are drawn, in CSS pixels. */
+function centreBoxes(page: Page) {
+  return page.evaluate(() => {
+    const box = (sel: string): Box => {
+      const r = document.querySelector(sel)!.getBoundingClientRect();
+      return { top: r.top, bottom: r.bottom, left: r.left, right: r.right, width: r.width };
+    };
+    const candidates = document.getElementById('candidates')!;
+    return {
+      plotBox: box('#spectrum-plot'),
+      svg: box('#spectrum-plot .main-svg'),
+      xTitle: box('#spectrum-plot .xtitle'),
+      legend: box('#spectrum-plot .legend'),
+      controls: box('#plot-controls'),
+      candidatesOverflowPx: candidates.scrollWidth - candidates.clientWidth,
+    };
+  });
+}
+
+/** The plots are fitted on the next animation frames after their boxes change. */
+async function expectLaidOut(page: Page): Promise<void> {
+  await expect.poll(async () => {
+    const b = await centreBoxes(page);
+    return Math.abs(b.svg.width - b.plotBox.width) <= 1 && b.svg.bottom <= b.controls.top + 1;
+  }, { timeout: 10_000 }).toBe(true);
+  const b = await centreBoxes(page);
+  expect(b.legend.top, 'the legend sits below the axis title').toBeGreaterThanOrEqual(b.xTitle.bottom - 1);
+  expect(b.legend.bottom, 'and inside the figure').toBeLessThanOrEqual(b.svg.bottom + 1);
+  expect(b.candidatesOverflowPx, 'the candidates table fits its panel').toBeLessThanOrEqual(0);
+}
+
+it('lays the spectrum, its controls and the candidates out without overlap', async () => {
+  await expectLaidOut(win.page);
+  mkdirSync(join(ROOT, 'test-artifacts'), { recursive: true });
+  await win.page.screenshot({ path: join(ROOT, 'test-artifacts', 'laptop-main.png') });
+});
+
+it('fits the plots again when the host panel widens the side column', async () => {
+  const before = await centreBoxes(win.page);
+  await win.page.keyboard.press('h');
+  await expect.poll(async () => (await centreBoxes(win.page)).plotBox.width).toBeLessThan(before.plotBox.width - 50);
+  await expectLaidOut(win.page);
+  await win.page.screenshot({ path: join(ROOT, 'test-artifacts', 'laptop-host.png') });
+});
+
+it('fits the plots again when the window is resized', async () => {
+  await win.page.setViewportSize({ width: 1600, height: 1000 });
+  await expect.poll(async () => (await centreBoxes(win.page)).plotBox.width).toBeGreaterThan(700);
+  await expectLaidOut(win.page);
+});
