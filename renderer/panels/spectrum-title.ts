@@ -13,12 +13,26 @@ export function renderSpectrumTitle(state: AppState, box: HTMLElement, move: (ac
     el('button', { type: 'button', onclick: () => move('previous'), title: 'previous spectrum (p or ↑)' }, '◀ previous'),
     el('button', { type: 'button', onclick: () => move('next'), title: 'next spectrum (n or ↓)' }, 'next ▶'),
     el('button', { type: 'button', onclick: () => move('next-pending'), title: 'next pending spectrum (Shift+N)' }, 'next pending ▶▶'));
+  const facts = meta
+    ? [
+        el('span', { title: meta.mediumReason }, `${meta.format}${meta.hdu !== null ? `, HDU ${meta.hdu}` : ''}`),
+        el('span', { title: meta.mediumReason }, meta.mediumInFile === 'vacuum' ? 'vacuum wavelengths in the file' : `${meta.mediumInFile} wavelengths in the file, shown in vacuum`),
+        el('span', { title: meta.velocityFrameReason }, `frame: ${meta.velocityFrame}`),
+        meta.dateObsUtc ? el('span', {}, `${readableUtc(meta.dateObsUtc)} UTC${meta.exposureS ? `, ${meta.exposureS} s` : ''}`) : null,
+      ].filter((f) => f !== null)
+    : [];
+  // One line of facts under the name; on a narrow window it ends in an ellipsis, the whole text in its tooltip.
+  const factLine = el('span', { class: 'facts' }, ...facts.flatMap((f, i) => (i === 0 ? [f] : [' · ', f])));
+  factLine.title = facts.map((f) => f.textContent).join(' · ');
   fill(box,
     nav,
     el('span', { class: 'object' }, meta?.object ?? state.currentId),
     el('span', { class: 'meta mono' }, state.currentId),
-    meta ? el('span', { class: 'meta', title: meta.mediumReason }, `${meta.format}${meta.hdu !== null ? `, HDU ${meta.hdu}` : ''} · wavelengths in ${meta.mediumInFile} in the file, shown in vacuum`) : null,
-    meta ? el('span', { class: 'meta', title: meta.velocityFrameReason }, `frame: ${meta.velocityFrame}`) : null,
-    meta?.dateObsUtc ? el('span', { class: 'meta' }, `${meta.dateObsUtc} UTC${meta.exposureS ? `, ${meta.exposureS} s` : ''}`) : null,
-    state.loading ? el('span', { class: 'meta' }, 'loading…') : null);
+    state.loading ? el('span', { class: 'meta' }, 'loading…') : null,
+    facts.length ? factLine : null);
+}
+
+/** 2026-03-14T02:48:00.000Z → 2026-03-14 02:48:00 */
+function readableUtc(iso: string): string {
+  return iso.replace('T', ' ').replace(/(\.\d*)?Z$/, '');
 }
