@@ -42,6 +42,8 @@ describe('zvet cosmo', () => {
     expect(r.stdout).toMatch(/D_L \(Mpc\)/);
     expect(r.stdout).toMatch(/lookback \(Gyr\)/);
     expect(r.stdout).toMatch(/source: Planck 2018/);
+    // ΩΛ = 1 − 0.3111 printed as the number it is, not its binary rounding (0.6889000000000001).
+    expect(r.stdout.split('\n')[0]).toBe('model planck18: H0 = 67.66 km/s/Mpc, Ωm = 0.3111, ΩΛ = 0.6889, Ωk = 0');
   });
 });
 

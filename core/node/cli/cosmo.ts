@@ -87,7 +87,7 @@ function formatTable(rows: Distances[], model: CosmologyModel): string {
   const line = (cells: string[]) => cells.map((c, i) => c.padStart(widths[i])).join('  ');
   const ok = 1 - model.omegaM - model.omegaL;
   return [
-    `model ${model.name}: H0 = ${model.h0} km/s/Mpc, Ωm = ${model.omegaM}, ΩΛ = ${model.omegaL}, Ωk = ${Math.abs(ok) < 1e-12 ? 0 : Number(ok.toPrecision(6))}`,
+    `model ${model.name}: H0 = ${model.h0} km/s/Mpc, Ωm = ${model.omegaM}, ΩΛ = ${Number(model.omegaL.toPrecision(12))}, Ωk = ${Math.abs(ok) < 1e-12 ? 0 : Number(ok.toPrecision(6))}`,
     `source: ${model.source}`,
     line(header),
     ...body.map(line),
