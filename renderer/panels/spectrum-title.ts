@@ -15,7 +15,7 @@ export function renderSpectrumTitle(state: AppState, box: HTMLElement, move: (ac
     el('button', { type: 'button', onclick: () => move('next-pending'), title: 'next pending spectrum (Shift+N)' }, 'next pending ▶▶'));
   const facts = meta
     ? [
-        el('span', { title: meta.mediumReason }, `${meta.format}${meta.hdu !== null ? `, HDU ${meta.hdu}` : ''}`),
+        el('span', {}, `${meta.format}${meta.hdu !== null ? `, HDU ${meta.hdu}` : ''}`),
         el('span', { title: meta.mediumReason }, meta.mediumInFile === 'vacuum' ? 'vacuum wavelengths in the file' : `${meta.mediumInFile} wavelengths in the file, shown in vacuum`),
         el('span', { title: meta.velocityFrameReason }, `frame: ${meta.velocityFrame}`),
         meta.dateObsUtc ? el('span', {}, `${readableUtc(meta.dateObsUtc)} UTC${meta.exposureS ? `, ${meta.exposureS} s` : ''}`) : null,
