@@ -4,6 +4,7 @@
  * get a stellar absorption component (see STELLAR_ABSORPTION_METHOD) and, where the data ask for
  * it, a broad component. Lines below S/N 3 are reported as 3σ upper limits.
  */
+import { inUnitsOfNoise } from '../redshift/flux-scale.js';
 import { REST_LINES } from '../redshift/line-list.js';
 import type { Spectrum } from '../spectrum/spectrum.js';
 import { fitGaussians, solveLinear, type FitBounds, type FitData, type FitResult } from './fit-gaussians.js';
@@ -437,7 +438,9 @@ function measurementsOf(g: GroupFit, options: MeasureOptions): { lines: LineMeas
 }
 
 /** Measures the emission lines of LINE_GROUPS in `spectrum` at redshift `z`. */
-export function measureLines(spectrum: Spectrum, z: number, options: MeasureOptions = {}): LineMeasurementSet {
+export function measureLines(inFileUnits: Spectrum, z: number, options: MeasureOptions = {}): LineMeasurementSet {
+  // Fitted in units of the noise (flux-scale.ts); fluxes are returned in the file's unit.
+  const { spectrum, scale } = inUnitsOfNoise(inFileUnits);
   const errorsKnown = errorsAreKnown(spectrum);
   const { fits, notCovered } = fitAllGroups(spectrum, z, options, errorsKnown);
   const lines: LineMeasurement[] = [];
@@ -445,7 +448,7 @@ export function measureLines(spectrum: Spectrum, z: number, options: MeasureOpti
   const groups: GroupFitSummary[] = [];
   for (const g of fits) {
     const m = measurementsOf(g, options);
-    lines.push(...m.lines);
+    lines.push(...m.lines.map((l) => ({ ...l, flux: l.flux * scale, flux_err: l.flux_err * scale })));
     stellar.push(...m.absorption);
     groups.push({ group: g.group.name, pixels: g.data.waveAngstrom.length, chi2_reduced: g.fit.chi2 / g.fit.dof, broad_component: g.broad, kinematics_fixed: g.kinematicsFixed });
   }

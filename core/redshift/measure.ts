@@ -14,6 +14,7 @@ import { distinctPeaks } from './distinct-peaks.js';
 import type { Peak } from './peaks.js';
 import { preprocess, type PreparedSpectrum } from './preprocess.js';
 import { fitTemplateChi2 } from './refine-chi2.js';
+import { inUnitsOfNoise } from './flux-scale.js';
 import { fitEmissionLines } from './refine-lines.js';
 import { resolveTemplates } from './template-set.js';
 import type { Template } from './templates.js';
@@ -34,7 +35,7 @@ interface Scored {
 export function measureRedshift(spectrum: Spectrum, options: MeasureOptions = {}, times?: StageTimes): Measurement {
   const t0 = now();
   const templates = resolveTemplates(options);
-  const prepared = preprocess(spectrum, { maskTelluric: options.maskTelluric ?? true, maskSky: options.maskSky ?? true });
+  const prepared = preprocess(inUnitsOfNoise(spectrum).spectrum, { maskTelluric: options.maskTelluric ?? true, maskSky: options.maskSky ?? true });
   const t1 = now();
   const curves = correlate(prepared, templates);
   const distinct = distinctPeaks(prepared, curves, templates, (options.maxCandidates ?? 5) + 1);

@@ -8,6 +8,7 @@
  */
 import type { Spectrum } from '../spectrum/spectrum.js';
 import { median } from './continuum.js';
+import { inUnitsOfNoise } from './flux-scale.js';
 import { nativeResidual } from './native-residual.js';
 import { nativePixels, preprocess } from './preprocess.js';
 import { availableTemplates, TemplateChoiceError } from './template-set.js';
@@ -23,11 +24,13 @@ const MIN_FITTED_PROFILE = 0.5;
  * undefined: outside the template's rest range, outside the continuum's range, and on pixels
  * the file marks bad. Pixels in the telluric and sky masks get the model but do not steer the fit.
  */
-export function templateModelFlux(template: string, z: number, spectrum: Spectrum, options: MeasureOptions = {}): Float64Array {
+export function templateModelFlux(template: string, z: number, inFileUnits: Spectrum, options: MeasureOptions = {}): Float64Array {
   const all = availableTemplates(options);
   const t = all.find((x) => x.name === template);
   if (!t) throw new TemplateChoiceError(`unknown template "${template}" (known: ${all.map((x) => x.name).join(', ')})`);
   if (!(z > -1) || !Number.isFinite(z)) throw new RangeError(`z ${z} is not a redshift (a number above −1)`);
+  // Fitted in units of the noise (flux-scale.ts), returned in the file's unit.
+  const { spectrum, scale: noiseUnit } = inUnitsOfNoise(inFileUnits);
   const masks = { maskTelluric: options.maskTelluric ?? true, maskSky: options.maskSky ?? true };
   const p = preprocess(spectrum, masks);
   const nr = nativeResidual(p, [{ template: t, z }]);
@@ -60,7 +63,7 @@ export function templateModelFlux(template: string, z: number, spectrum: Spectru
     }
     let f = nr.continuum[i];
     for (let g = 0; g < basis.length; g++) f += amplitude[g] * basis[g][i];
-    out[i] = f;
+    out[i] = f * noiseUnit;
   }
   return out;
 }
