@@ -33,6 +33,9 @@ export async function writeFileAtomic(path: string, data: Uint8Array | string): 
     await rename(temp, path);
   } catch (err) {
     await rm(temp, { force: true }).catch(() => undefined);
+    // The error names the file the caller asked for, not the temporary one.
+    const e = err as NodeJS.ErrnoException;
+    if (e.path === temp) e.path = path;
     throw err;
   }
   await syncFolder(folder);

@@ -77,6 +77,13 @@ export function defaultJobs(files: number): number {
   return Math.min(availableParallelism(), Math.max(1, Math.ceil(files / SPECTRA_PER_DEFAULT_WORKER)));
 }
 
+/** The most workers --jobs may ask for, per core: beyond the cores each one only adds its memory (~40 MB). */
+export const MAX_JOBS_PER_CORE = 4;
+
+export function maxJobs(): number {
+  return MAX_JOBS_PER_CORE * availableParallelism();
+}
+
 /** Jobs sent ahead to each worker, so it never waits for the main thread. */
 const PER_WORKER_IN_FLIGHT = 2;
 

@@ -1,4 +1,4 @@
-import { readdir, stat } from 'node:fs/promises';
+import { readdir, realpath, stat } from 'node:fs/promises';
 import { join } from 'node:path';
 
 /** File endings zvet treats as spectra when it walks a folder. */
@@ -11,28 +11,38 @@ export function hasSpectrumExtension(name: string): boolean {
 
 /**
  * Expands files and folders into spectrum files: a file is kept as given; a folder gives every
- * file with a spectrum extension below it, recursively, sorted by path. Hidden entries and
- * zvet's own outputs (journals, catalogues named *.catalogue.*) are passed over.
+ * file with a spectrum extension below it, recursively, sorted by path, symbolic links followed
+ * (each folder once). Hidden entries and zvet's own outputs (journals, catalogues named
+ * *.catalogue.*) are passed over. A path that does not exist and a folder that cannot be listed
+ * are kept as they are, so that reading them fails with its reason in their place and nothing
+ * given is silently dropped.
  */
 export async function listSpectrumFiles(paths: string[]): Promise<string[]> {
   const out: string[] = [];
+  const walked = new Set<string>();
   for (const p of paths) {
-    const info = await stat(p);
-    if (info.isDirectory()) out.push(...(await walk(p)));
+    const info = await stat(p).catch(() => null);
+    if (info?.isDirectory()) out.push(...(await walk(p, walked)));
     else out.push(p);
   }
   return out;
 }
 
-async function walk(dir: string): Promise<string[]> {
-  const entries = await readdir(dir, { withFileTypes: true });
+async function walk(dir: string, walked: Set<string>): Promise<string[]> {
+  const real = await realpath(dir).catch(() => dir);
+  if (walked.has(real)) return [];
+  walked.add(real);
+  const entries = await readdir(dir, { withFileTypes: true }).catch(() => null);
+  if (!entries) return [dir];
   entries.sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : 0));
   const out: string[] = [];
   for (const e of entries) {
     if (e.name.startsWith('.') || e.name === 'node_modules') continue;
     const p = join(dir, e.name);
-    if (e.isDirectory()) out.push(...(await walk(p)));
-    else if (e.isFile() && hasSpectrumExtension(e.name) && !/\.catalogue\.|\.verdicts\./.test(e.name)) out.push(p);
+    // A link is what it points to; a broken link to a spectrum name is kept, to fail in its place.
+    const target = e.isSymbolicLink() ? await stat(p).catch(() => null) : e;
+    if (target?.isDirectory()) out.push(...(await walk(p, walked)));
+    else if ((target ? target.isFile() : e.isSymbolicLink()) && hasSpectrumExtension(e.name) && !/\.catalogue\.|\.verdicts\./.test(e.name)) out.push(p);
   }
   return out;
 }

@@ -85,7 +85,7 @@ export function preprocess(spectrum: Spectrum, opts: PreprocessOptions): Prepare
   const { waveAngstrom, flux, sigma, good } = native;
   let first = -1, last = -1, nGoodNative = 0;
   for (let i = 0; i < good.length; i++) if (good[i]) { if (first < 0) first = i; last = i; nGoodNative++; }
-  if (nGoodNative < 20) throw new UnusableSpectrumError(`only ${nGoodNative} usable pixels (need at least 20)`);
+  if (nGoodNative < 20) throw new UnusableSpectrumError(`only ${nGoodNative} usable ${nGoodNative === 1 ? 'pixel' : 'pixels'} outside the masks (the redshift search needs at least 20)`);
   if (!(waveAngstrom[first] > 0)) throw new UnusableSpectrumError('wavelengths must be positive');
   const step = gridStepFor(waveAngstrom.subarray(first, last + 1));
   const start = Math.ceil(Math.log(waveAngstrom[first]) / step);

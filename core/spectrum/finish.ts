@@ -59,7 +59,7 @@ export function finishSpectrum(draft: SpectrumDraft, fileName: string, override?
   if (badWave >= 0) fail(`wavelength of pixel ${badWave + 1} is ${badWaveValue}, not a positive number`);
   if (outOfOrder >= 0) fail(`the wavelengths are not in order (pixel ${outOfOrder + 1} breaks the sequence)`);
   if (finite === 0) fail('the flux is NaN or infinite in every pixel');
-  if (usable < MIN_USABLE_PIXELS) fail(`only ${usable} usable pixels (at least ${MIN_USABLE_PIXELS} are needed)`);
+  if (usable < MIN_USABLE_PIXELS) fail(`only ${usable} usable ${usable === 1 ? 'pixel' : 'pixels'} (at least ${MIN_USABLE_PIXELS} are needed)`);
   const flipped = !up;
   const pick = <T extends Float64Array | Uint8Array>(a: T): T => (flipped ? (a.reverse() as T) : a);
   return {

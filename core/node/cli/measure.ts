@@ -10,15 +10,16 @@
  */
 import { SingleBar } from 'cli-progress';
 import type { Command } from 'commander';
-import { createWriteStream } from 'node:fs';
+import { createWriteStream, type WriteStream } from 'node:fs';
 import { readFile } from 'node:fs/promises';
+import { availableParallelism } from 'node:os';
 import { basename } from 'node:path';
 import { MEASURE_LINE_COLUMNS, measureFrameColumns } from '../../catalogue/measure-derived-columns.js';
 import { csvCells, csvHeader, csvLine, jsonlLine, MEASURE_COLUMNS, type MeasureColumn } from '../../redshift/measure-columns.js';
 import { resolveTemplates, TemplateChoiceError } from '../../redshift/template-set.js';
 import type { MeasureOptions } from '../../redshift/types.js';
 import { LineListError, parseUserLineList } from '../../redshift/user-line-list.js';
-import { defaultJobs, MeasurePool, type MeasureFileResult } from '../measure-pool.js';
+import { defaultJobs, MAX_JOBS_PER_CORE, maxJobs, MeasurePool, type MeasureFileResult } from '../measure-pool.js';
 import { readSpectrumFile } from '../read-spectrum-file.js';
 import { listSpectrumFiles } from '../spectrum-files.js';
 import { ChunkedLines } from './chunked-lines.js';
@@ -72,6 +73,7 @@ async function measure(paths: string[], opts: MeasureCliOptions, baseColumns: Me
   const format = opts.format ?? (opts.out && opts.out.endsWith('.jsonl') ? 'jsonl' : 'csv');
   if (format !== 'csv' && format !== 'jsonl') throw new UsageError(`--format: "${format}" is not csv or jsonl`);
   const jobs = opts.jobs === undefined ? undefined : positiveInt(opts.jobs, '--jobs');
+  if (jobs !== undefined && jobs > maxJobs()) throw new UsageError(`--jobs: ${jobs} is more than ${maxJobs()} (${MAX_JOBS_PER_CORE} per core, ${availableParallelism()} cores here); workers beyond the cores only add memory`);
   const options: MeasureOptions = {
     templates: opts.templates ? opts.templates.split(',').map((s) => s.trim()).filter(Boolean) : undefined,
     zmin: opts.zmin === undefined ? undefined : finite(opts.zmin, '--zmin'),
@@ -101,12 +103,13 @@ async function measure(paths: string[], opts: MeasureCliOptions, baseColumns: Me
   const files = await listSpectrumFiles(paths);
   if (files.length === 0) throw new UsageError('no spectrum files found in the paths given');
 
-  const out = opts.out === undefined || opts.out === '-' ? process.stdout : createWriteStream(opts.out);
+  const out = opts.out === undefined || opts.out === '-' ? process.stdout : await openOutput(opts.out);
   const lines = new ChunkedLines(out);
   const bar = process.stderr.isTTY ? new SingleBar({ format: 'measuring [{bar}] {value}/{total} spectra', stream: process.stderr, hideCursor: true }) : null;
   bar?.start(files.length, 0);
 
-  const workers = jobs ?? defaultJobs(files.length);
+  // Never more workers than spectra.
+  const workers = Math.min(jobs ?? defaultJobs(files.length), files.length);
   const pool = new MeasurePool({ jobs: workers });
   const ahead = AHEAD_PER_JOB * workers;
   const pending: Promise<MeasureFileResult>[] = [];
@@ -128,11 +131,32 @@ async function measure(paths: string[], opts: MeasureCliOptions, baseColumns: Me
     }
     await pool.close();
     await lines.end();
-    if (out !== process.stdout) await new Promise<void>((resolve) => (out as NodeJS.WritableStream).end(resolve));
+    if (out !== process.stdout) await closeOutput(out as WriteStream);
   }
   // The last line on standard error says how the batch went, so a long run ends with its tally.
-  process.stderr.write(`${files.length} spectra: ${files.length - failed} measured, ${failed} failed\n`);
+  process.stderr.write(`${files.length} ${files.length === 1 ? 'spectrum' : 'spectra'}: ${files.length - failed} measured, ${failed} failed\n`);
   return failed ? EXIT_SOME_FAILED : EXIT_OK;
+}
+
+/** The table's file, open: one that cannot be written is named, with the reason, before any work. */
+async function openOutput(path: string): Promise<WriteStream> {
+  const stream = createWriteStream(path);
+  // Write errors (a full disk) name the file too.
+  stream.on('error', (err: NodeJS.ErrnoException) => (err.path ??= path));
+  await new Promise<void>((resolve, reject) => {
+    stream.once('open', () => resolve());
+    stream.once('error', reject);
+  });
+  return stream;
+}
+
+/** Ends the file; a write error was already reported by the writes, so it only settles here. */
+function closeOutput(stream: WriteStream): Promise<void> {
+  if (stream.destroyed) return Promise.resolve();
+  return new Promise<void>((resolve) => {
+    stream.once('error', () => resolve());
+    stream.end(resolve);
+  });
 }
 
 function positiveInt(text: string, flag: string): number {
