@@ -67,12 +67,14 @@ function midExposure(meta: SpectrumMeta): { mjdUtc: number; note: string } | { m
     }
     from = 'DATE-OBS';
   } else {
-    return { missing: 'no observation time' };
+    return { missing: meta.obsTimeWarning ? `no observation time: ${meta.obsTimeWarning}` : 'no observation time' };
   }
+  from = meta.obsTimeFrom ?? from;
+  const warning = meta.obsTimeWarning ? ` (warning: ${meta.obsTimeWarning})` : '';
   if (Number.isFinite(meta.exposureS) && meta.exposureS! >= 0) {
-    return { mjdUtc: start + meta.exposureS! / 2 / 86400, note: `mid-exposure from ${from} + EXPTIME/2` };
+    return { mjdUtc: start + meta.exposureS! / 2 / 86400, note: `mid-exposure from ${from} + EXPTIME/2${warning}` };
   }
-  return { mjdUtc: start, note: `start time from ${from} (no exposure time, so not the mid-exposure)` };
+  return { mjdUtc: start, note: `start time from ${from} (no exposure time, so not the mid-exposure)${warning}` };
 }
 
 function chooseSite(input: FrameInput): { site: ResolvedSite; note: string } | null {

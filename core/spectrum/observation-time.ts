@@ -3,6 +3,7 @@
  * survey variants, returned both as an ISO 8601 UTC string and as MJD (UTC).
  * MJD = JD − 2400000.5; MJD 40587 = 1970-01-01T00:00:00 UTC (Unix epoch).
  */
+import { isoUtcFromMjd, mjdFromIsoUtc } from '../astro/time.js';
 import { firstNumber, firstString, type Keywords } from './keywords.js';
 
 export interface ObservationTime {
@@ -10,24 +11,44 @@ export interface ObservationTime {
   mjdObs: number;
 }
 
-const MJD_UNIX_EPOCH = 40587;
-const MS_PER_DAY = 86_400_000;
+/** The observation time with the keyword(s) it came from, and a warning when DATE-OBS disagrees. */
+export interface HeaderObservationTime extends ObservationTime {
+  obsTimeFrom: string;
+  obsTimeWarning?: string;
+}
 
-export function observationTime(k: Keywords): ObservationTime | undefined {
+/** A DATE-OBS with a time of day and a numeric time may differ by this much before it is flagged. */
+const DATE_AGREEMENT_DAYS = 1;
+
+
+export function observationTime(k: Keywords): HeaderObservationTime | { obsTimeWarning: string } | undefined {
+  const dateKey = firstString(k, ['DATE-OBS', 'DATE_OBS', 'UTDATE_S']);
+  const timeKey = firstString(k, ['TIME-OBS', 'TIME_OBS', 'UT', 'UTC', 'UTSTART', 'UT-START']);
+  const date = dateKey ? fromDateText(dateKey.value, timeKey?.value) : undefined;
+  const dateFrom = dateKey ? (date?.hasTime && !/[T ]\d/.test(dateKey.value) && timeKey ? `${dateKey.key} + ${timeKey.key}` : dateKey.key) : '';
+  const unreadableDate = dateKey ? `${dateKey.key} '${dateKey.value}'${timeKey ? ` with ${timeKey.key} '${timeKey.value}'` : ''} is not a date and time that exist` : '';
+  /** A numeric time, checked against the DATE-OBS text when there is one. */
+  const numeric = (mjd: number, from: string): HeaderObservationTime | undefined => {
+    const t = fromMjd(mjd);
+    if (!t) return undefined;
+    const off = date ? mjd - date.time.mjdObs : 0;
+    // A date alone may be the night's (local) date: the time may fall on it, the day after or the day before.
+    const agrees = !date || (date.hasTime ? Math.abs(off) <= DATE_AGREEMENT_DAYS : off > -1 && off < 2);
+    const warning = dateKey && !date ? `${unreadableDate}; ${from} used` : !agrees ? `${dateKey!.key} '${dateKey!.value}' is ${Math.abs(off).toFixed(1)} days from ${from} ${mjd}; ${from} used` : undefined;
+    return { ...t, obsTimeFrom: from, ...(warning ? { obsTimeWarning: warning } : {}) };
+  };
   const mjd = firstNumber(k, ['MJD-OBS', 'MJD_OBS', 'MJDSTART', 'UTMJD_S']);
-  if (mjd) return fromMjd(mjd.value);
+  if (mjd) return numeric(mjd.value, mjd.key);
   const jd = firstNumber(k, ['JD', 'JD-OBS', 'JD_OBS']);
-  if (jd && jd.value > 2_400_000) return fromMjd(jd.value - 2_400_000.5);
-  const dateText = firstString(k, ['DATE-OBS', 'DATE_OBS', 'UTDATE_S'])?.value;
-  const date = dateText ? fromDateText(dateText, firstString(k, ['TIME-OBS', 'TIME_OBS', 'UT', 'UTC', 'UTSTART', 'UT-START'])?.value) : undefined;
-  if (date?.hasTime) return date.time;
+  if (jd && jd.value > 2_400_000) return numeric(jd.value - 2_400_000.5, `${jd.key} − 2400000.5`);
+  if (date?.hasTime) return { ...date.time, obsTimeFrom: dateFrom };
   const taiSeconds = firstNumber(k, ['TAI-BEG', 'TAI']);
-  if (taiSeconds && taiSeconds.value > 3e9) return fromMjd(taiSecondsToMjdUtc(taiSeconds.value));
+  if (taiSeconds && taiSeconds.value > 3e9) return numeric(taiSecondsToMjdUtc(taiSeconds.value), `${taiSeconds.key} (TAI − leap seconds)`);
   const mjdDay = firstNumber(k, ['UTMJD', 'MJD']);
-  if (mjdDay && !Number.isInteger(mjdDay.value)) return fromMjd(mjdDay.value);
-  if (date) return date.time;
-  if (mjdDay && mjdDay.value > 0 && mjdDay.value < 100_000) return fromMjd(mjdDay.value);
-  return undefined;
+  if (mjdDay && !Number.isInteger(mjdDay.value)) return numeric(mjdDay.value, mjdDay.key);
+  if (date) return { ...date.time, obsTimeFrom: `${dateFrom} (a date without time: 00:00 UTC)` };
+  if (mjdDay && mjdDay.value > 0 && mjdDay.value < 100_000) return numeric(mjdDay.value, `${mjdDay.key} (a whole day)`);
+  return dateKey ? { obsTimeWarning: unreadableDate } : undefined;
 }
 
 /**
@@ -50,10 +71,12 @@ const TAI_MINUS_UTC: Array<[number, number]> = [
 ];
 
 export function fromMjd(mjd: number): ObservationTime | undefined {
-  const ms = (mjd - MJD_UNIX_EPOCH) * MS_PER_DAY;
-  const date = new Date(ms);
-  if (!Number.isFinite(date.getTime())) return undefined;
-  return { dateObsUtc: date.toISOString(), mjdObs: mjd };
+  // To the millisecond, so that 04:28:00 read into an MJD prints as 04:28:00.000, not 04:27:59.999.
+  try {
+    return { dateObsUtc: isoUtcFromMjd(mjd), mjdObs: mjd };
+  } catch {
+    return undefined;
+  }
 }
 
 /**
@@ -72,10 +95,13 @@ function fromDateText(text: string, timeText?: string): { time: ObservationTime;
     const t = /^(\d{1,2}):(\d\d)(?::(\d\d(?:\.\d*)?))?$/.exec(timeText.trim());
     if (t) [hh, mm, ss, hasTime] = [t[1], t[2], t[3], true];
   }
-  const seconds = Number(hh ?? 0) * 3600 + Number(mm ?? 0) * 60 + Number(ss ?? 0);
-  const dayMs = Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3]));
-  if (!Number.isFinite(dayMs) || Number(m[2]) > 12 || Number(m[3]) > 31 || seconds >= 86_401) return undefined;
-  const mjd = MJD_UNIX_EPOCH + (dayMs + seconds * 1000) / MS_PER_DAY;
+  // A date or time that does not exist (February 30, 05:99) is refused, not rolled over.
+  let mjd: number;
+  try {
+    mjd = mjdFromIsoUtc(`${m[1]}-${m[2]}-${m[3]}T${(hh ?? '0').padStart(2, '0')}:${mm ?? '00'}:${ss?.replace(/\.$/, '') ?? '00'}`);
+  } catch {
+    return undefined;
+  }
   const time = fromMjd(mjd);
   return time ? { time, hasTime } : undefined;
 }

@@ -39,6 +39,10 @@ export interface SpectrumMeta {
   dateObsUtc?: string;
   /** Start of the observation as MJD (UTC). */
   mjdObs?: number;
+  /** The header keyword(s) the observation time came from. */
+  obsTimeFrom?: string;
+  /** Set when the header's times disagree (DATE-OBS against MJD-OBS), saying which was used. */
+  obsTimeWarning?: string;
   exposureS?: number;
   site?: Site;
   /** Frame of the stored wavelengths and the header evidence for it. */

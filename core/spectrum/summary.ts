@@ -36,6 +36,10 @@ export interface SpectrumSummary {
   dec_deg: number | null;
   date_obs_utc: string | null;
   mjd_obs: number | null;
+  /** Header keyword(s) the observation time came from. */
+  obs_time_from: string | null;
+  /** When the header's times disagree: by how much, and which was used. */
+  obs_time_warning: string | null;
   exposure_s: number | null;
   site: SiteSummary | null;
   velocity_frame: string;
@@ -87,6 +91,8 @@ export function summariseSpectrum(s: Spectrum): SpectrumSummary {
     dec_deg: m.decDeg ?? null,
     date_obs_utc: m.dateObsUtc ?? null,
     mjd_obs: m.mjdObs ?? null,
+    obs_time_from: m.obsTimeFrom ?? null,
+    obs_time_warning: m.obsTimeWarning ?? null,
     exposure_s: m.exposureS ?? null,
     site,
     velocity_frame: m.velocityFrame,

@@ -29,8 +29,8 @@ describe('writeFileAtomic', () => {
     expect(readFileSync(join(target, 'x'), 'utf8')).toBe('x');
   });
 
-  it('fails with the path named in a folder where no file may be created', async () => {
+  it('fails with the path asked for named (not its temporary file) in a folder where no file may be created', async () => {
     // sysfs refuses new files even to root.
-    await expect(writeFileAtomic('/sys/zvet-test.csv', 'x')).rejects.toMatchObject({ path: expect.stringMatching(/^\/sys\/\.zvet-test\.csv\..*\.tmp$/) });
+    await expect(writeFileAtomic('/sys/zvet-test.csv', 'x')).rejects.toMatchObject({ path: '/sys/zvet-test.csv' });
   });
 });

@@ -183,6 +183,29 @@ describe('metadata keywords', () => {
     expect(read([card('JD', 2461113.5)]).mjdObs).toBe(61113);
     expect(read([card('DATE-OBS', '2026-03-14T03:00:00')]).mjdObs).toBeCloseTo(61113.125, 9);
   });
+  it('names the keyword the time came from, and prints a whole second as read (not …59.999)', () => {
+    expect(read([card('DATE-OBS', '2026-03-14'), card('TIME-OBS', '04:28:00')])).toMatchObject({ dateObsUtc: '2026-03-14T04:28:00.000Z', obsTimeFrom: 'DATE-OBS + TIME-OBS' });
+    expect(read([card('DATE-OBS', '2026-03-14T04:28:00')]).obsTimeFrom).toBe('DATE-OBS');
+    expect(read([card('MJD-OBS', 61113.5)]).obsTimeFrom).toBe('MJD-OBS');
+  });
+  it('refuses a date or time that does not exist instead of rolling it over, and says so', () => {
+    for (const text of ['2026-02-30T04:28:00', '2025-02-29', '2026-04-31', '2026-03-14T24:00:00', '2026-03-14T05:99:00', '2026-13-01']) {
+      const m = read([card('DATE-OBS', text)]);
+      expect(m.dateObsUtc, text).toBeUndefined();
+      expect(m.obsTimeWarning, text).toBe(`DATE-OBS '${text}' is not a date and time that exist`);
+    }
+    // 2024 is a leap year (Gregorian rule); 23:59:60 is a leap second's label.
+    expect(read([card('DATE-OBS', '2024-02-29T00:00:00')]).dateObsUtc).toBe('2024-02-29T00:00:00.000Z');
+    expect(read([card('DATE-OBS', '2016-12-31T23:59:60')]).obsTimeWarning).toBeUndefined();
+  });
+  it('warns when DATE-OBS and MJD-OBS disagree by more than a day, and says which is used', () => {
+    const m = read([card('DATE-OBS', '2026-03-14T04:28:00'), card('MJD-OBS', 60000)]);
+    expect(m.mjdObs).toBe(60000);
+    expect(m.obsTimeWarning).toBe("DATE-OBS '2026-03-14T04:28:00' is 1113.2 days from MJD-OBS 60000; MJD-OBS used");
+    // The date of the night's start beside a time after midnight agrees.
+    expect(read([card('DATE-OBS', '2026-03-13'), card('MJD-OBS', 61113.2)]).obsTimeWarning).toBeUndefined();
+    expect(read([card('DATE-OBS', '2026-03-11'), card('MJD-OBS', 61113.2)]).obsTimeWarning).toBe("DATE-OBS '2026-03-11' is 3.2 days from MJD-OBS 61113.2; MJD-OBS used");
+  });
   it('EXPTIME and site keyword families with their sign conventions (east-positive result)', () => {
     const geo = read([card('EXPTIME', 1200), card('OBSGEO-B', 28.76), card('OBSGEO-L', -17.88), card('OBSGEO-H', 2348), card('OBSERVAT', 'Kestrel Ridge')]);
     expect(geo.exposureS).toBe(1200);

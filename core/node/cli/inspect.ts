@@ -77,7 +77,7 @@ export function formatSummary(s: SpectrumSummary): string {
     ['sky', s.has_sky ? 'yes' : 'no'],
     ['object', s.object ?? '—'],
     ['RA, Dec', s.ra_deg === null || s.dec_deg === null ? '—' : `${s.ra_deg.toFixed(6)}°, ${s.dec_deg.toFixed(6)}°`],
-    ['observed (UTC)', s.date_obs_utc === null ? '—' : `${s.date_obs_utc} (MJD ${fixed(s.mjd_obs, 5)})`],
+    ['observed (UTC)', `${s.date_obs_utc === null ? '—' : `${s.date_obs_utc} (MJD ${fixed(s.mjd_obs, 5)}) from ${s.obs_time_from}`}${s.obs_time_warning ? `; WARNING: ${s.obs_time_warning}` : ''}`],
     ['exposure', fixed(s.exposure_s, 1, ' s')],
     ['site', site],
     ['velocity frame', `${s.velocity_frame}: ${s.velocity_frame_reason}`],

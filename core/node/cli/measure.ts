@@ -100,7 +100,7 @@ async function measure(paths: string[], opts: MeasureCliOptions, baseColumns: Me
     if (err instanceof TemplateChoiceError) throw new UsageError(err.message);
     throw err;
   }
-  const files = await listSpectrumFiles(paths);
+  const files = await listSpectrumFiles(paths, { followLinks: true });
   if (files.length === 0) throw new UsageError('no spectrum files found in the paths given');
 
   const out = opts.out === undefined || opts.out === '-' ? process.stdout : await openOutput(opts.out);
