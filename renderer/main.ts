@@ -4,6 +4,7 @@ import { Controller, keyOf, type LiveSlot, type View } from './app/controller.js
 import { Plots } from './app/plots.js';
 import type { AppState } from './app/state.js';
 import { renderCandidates } from './panels/candidates-panel.js';
+import { gradeToSave } from './state/decision.js';
 import { DecisionPanel } from './panels/decision-panel.js';
 import { renderDerived, type LiveResult } from './panels/derived-panel.js';
 import { renderHost } from './panels/host-panel.js';
@@ -47,7 +48,7 @@ function live<T>(slot: LiveSlot<T> | null, state: AppState): LiveResult<T> | nul
   return { result: slot.result, error: slot.error, stale: slot.key !== keyOf(state.currentId, state.trial.z) };
 }
 
-let lastTab: { tab: string; slot: unknown; stale: boolean; settings: unknown; view: unknown } | null = null;
+let lastTab: { tab: string; slot: unknown; stale: boolean; settings: unknown; view: unknown; star: boolean } | null = null;
 
 function renderTab(state: AppState): void {
   // The host panel's table and diagram want room: the side column widens while it is shown.
@@ -57,12 +58,13 @@ function renderTab(state: AppState): void {
   byId('tab-host').setAttribute('aria-selected', String(state.tab === 'host'));
   const slot = state.tab === 'derived' ? controller.derived : controller.host;
   const lv = state.tab === 'derived' ? live(controller.derived, state) : live(controller.host, state);
-  const now = { tab: state.tab, slot, stale: lv?.stale ?? true, settings: state.settings, view: state.view };
+  const star = gradeToSave(state.view, state.trial, state.grade).objectClass === 'star';
+  const now = { tab: state.tab, slot, stale: lv?.stale ?? true, settings: state.settings, view: state.view, star };
   if (lastTab && (Object.keys(now) as (keyof typeof now)[]).every((k) => lastTab![k] === now[k])) return;
   lastTab = now;
   const body = byId('tab-body');
   if (state.view?.error && !state.view.arrays) fill(body, el('p', { class: 'muted' }, 'nothing to derive: the file could not be read'));
-  else if (state.tab === 'derived') renderDerived(body, live(controller.derived, state), state.settings?.cosmologyPreset ?? 'planck18', (p) => void controller.setCosmology(p));
+  else if (state.tab === 'derived') renderDerived(body, live(controller.derived, state), state.settings?.cosmologyPreset ?? 'planck18', (p) => void controller.setCosmology(p), star);
   else renderHost(body, live(controller.host, state));
 }
 
@@ -71,6 +73,8 @@ let overlayShown: AppState['modal'] = 'none';
 function renderOverlay(state: AppState): void {
   const box = byId('overlay');
   box.hidden = state.modal === 'none';
+  // The line pick sits at the side, so the spectrum and the marked feature stay in view.
+  box.classList.toggle('side-dock', state.modal === 'line-pick');
   // The form keeps what is typed in it: drawn once when it opens.
   if (state.modal === 'remeasure' && overlayShown === 'remeasure') return;
   overlayShown = state.modal;
@@ -130,7 +134,7 @@ const view: View = {
     return template;
   },
   fullRange: (state) => plots.fullRange(state),
-  focusTypedZ: () => decision.zInput.focus(),
+  focusTypedZ: () => decision.focusTypedZ(),
   focusNote: () => decision.noteInput.focus(),
 };
 

@@ -42,6 +42,8 @@ export interface StarFormation {
   imf: { kennicutt98: string; ke12: string };
   flux_unit: string;
   caveat: string;
+  /** True when an AGN contributes to Hα: the SFRs are then upper limits. */
+  upper_limit: boolean;
   /** Why a value is missing, or what limits it. */
   note: string | null;
 }
@@ -53,7 +55,7 @@ export interface StarFormationInput {
   fluxUnit: string;
   luminosityDistanceMpc: number;
   cosmology: string;
-  /** Extra caveat (an AGN contributing to Hα). */
+  /** Extra caveat (an AGN contributing to Hα), which makes the SFRs upper limits. */
   extraCaveat: string | null;
 }
 
@@ -65,6 +67,7 @@ export function starFormation(input: StarFormationInput): StarFormation {
     imf: { kennicutt98: 'Salpeter (1955), 0.1–100 M☉', ke12: 'Kroupa (2001), 0.1–100 M☉' },
     flux_unit: input.fluxUnit,
     caveat: [APERTURE_CAVEAT, input.extraCaveat].filter(Boolean).join(' '),
+    upper_limit: input.extraCaveat !== null,
   };
   const empty = {
     ...base, l_halpha_erg_s: null, l_halpha_err_erg_s: null, l_halpha_uncorrected_erg_s: null, dust_corrected: false,

@@ -10,7 +10,7 @@ import { initialState, type AppState } from './state.js';
 import { SpectrumCache } from './spectrum-cache.js';
 import { LatestOnly } from './debounce.js';
 import { SaveQueue } from '../state/save-queue.js';
-import { candidates, candidateTrial, lineTrial, nudgedTrial, openingGrade, openingTrial, typedTrial, verdictFor, type Decision } from '../state/decision.js';
+import { candidates, candidateTrial, lineTrial, noRedshiftTrial, nudgedTrial, openingGrade, openingTrial, parseTypedZ, typedTrial, verdictFor, type Decision } from '../state/decision.js';
 import { neighbour, nextFilter, nextPending, type WorklistFilter } from '../state/worklist-view.js';
 import { featureCentre } from '../science/feature-centre.js';
 import { likelyLines } from '../science/line-pick.js';
@@ -148,6 +148,7 @@ export class Controller {
   async show(id: string, timed = false): Promise<void> {
     this.s.currentId = id;
     this.s.message = null;
+    this.s.typedZProblem = null;
     this.s.identifying = false;
     // From the prefetch the spectrum draws at once; otherwise say it is on its way.
     this.s.loading = !this.cache.ready(id);
@@ -200,6 +201,7 @@ export class Controller {
   /** After the trial z moved: redraw markers, follow with the overlay and the live panels. */
   private trialChanged(redraw = true): void {
     const s = this.s;
+    s.typedZProblem = null;
     if (redraw) {
       void this.view.spectrum(s);
       void this.view.correlation(s);
@@ -227,11 +229,17 @@ export class Controller {
     this.trialChanged();
   }
 
-  typedZ(text: string): void {
-    const z = Number(text.trim());
-    if (text.trim() === '' || !Number.isFinite(z) || z < -0.01 || z > 12) return this.say(`"${text}" is not a redshift between −0.01 and 12`);
+  typedZ(text: string): boolean {
+    const z = parseTypedZ(text);
+    if (typeof z !== 'number') {
+      this.s.typedZProblem = z.refused;
+      this.view.panels(this.s);
+      return false;
+    }
+    this.s.typedZProblem = null;
     this.s.trial = typedTrial(z);
     this.trialChanged();
+    return true;
   }
 
   featureClicked(clickAngstrom: number): void {
@@ -243,6 +251,7 @@ export class Controller {
     s.modal = 'line-pick';
     s.identifying = false;
     this.view.panels(s);
+    void this.view.spectrum(s);
   }
 
   chooseLine(index: number): void {
@@ -255,10 +264,12 @@ export class Controller {
   }
 
   closeModal(): void {
+    const picking = this.s.linePick !== null;
     this.s.modal = 'none';
     this.s.linePick = null;
     this.s.identifying = false;
     this.view.panels(this.s);
+    if (picking) void this.view.spectrum(this.s);
   }
 
   // ---- verdicts ----------------------------------------------------------------------------
@@ -269,7 +280,13 @@ export class Controller {
     if (!s.view.arrays && decision.kind !== 'no-redshift') return this.say('this file cannot be read: only "no redshift" can be saved for it');
     const input = verdictFor(s.view, decision, s.trial, s.grade);
     if ('refused' in input) return this.say(input.refused);
+    // From now on the grade is the one being saved (pressed, no longer a suggestion).
+    s.grade = { confidence: input.confidence, objectClass: input.objectClass, note: input.note };
     if (decision.kind === 'accept-best') s.trial = candidateTrial(s.view, 0);
+    if (decision.kind === 'no-redshift') {
+      // Nothing is left to mark or to derive: no trial z, no confidence.
+      s.trial = noRedshiftTrial();
+    }
     s.message = null;
     void this.queue.enqueue(input);
     this.trialChanged();
@@ -292,6 +309,7 @@ export class Controller {
   }
 
   setConfidence(c: Confidence): void {
+    if (this.s.trial.z === null) return this.say('a confidence goes with a z: try a candidate or type a z first');
     this.s.grade = { ...this.s.grade, confidence: c };
     this.regrade();
   }

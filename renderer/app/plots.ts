@@ -31,11 +31,12 @@ export class Plots {
       this.spectrumWired = false;
       return;
     }
-    const templateFlux = state.showTemplate ? state.overlay?.flux ?? null : null;
+    const templateFlux = state.showTemplate && state.trial.z !== null ? state.overlay?.flux ?? null : null;
     const fig = buildSpectrumFigure({
       arrays, fluxUnit: state.view?.meta?.fluxUnit ?? 'file units', z: state.trial.z, smoothing: state.smoothing, showSky: state.showSky,
       templateFlux, templateName: state.trial.template ?? state.view?.templateModel?.template ?? null, xRange: state.xRange,
       widthPx: this.spectrumEl.clientWidth || 900,
+      pick: state.linePick ? { featureAngstrom: state.linePick.waveAngstrom, clickAngstrom: state.linePick.clickAngstrom } : null,
     });
     this.lastRange = state.xRange ?? fig.fullRange;
     await P.react(this.spectrumEl, fig.data, fig.layout, PLOT_CONFIG);
@@ -60,9 +61,14 @@ export class Plots {
       const b = e['xaxis.range[1]'] ?? (e['xaxis.range'] as number[] | undefined)?.[1];
       if (typeof a === 'number' && typeof b === 'number' && (!this.lastRange || a !== this.lastRange[0] || b !== this.lastRange[1])) this.events.rangeChanged([a, b]);
     });
-    this.spectrumEl.on('plotly_click', (e: { points?: { x: number; curveNumber: number }[] }) => {
+    this.spectrumEl.on('plotly_click', (e: { points?: { x: number; curveNumber: number }[]; event?: MouseEvent }) => {
       const p = e.points?.find((pt) => pt.curveNumber === FLUX_TRACE);
-      if (p && typeof p.x === 'number') this.events.featureClicked(p.x);
+      if (!p || typeof p.x !== 'number') return;
+      // Where the pointer was, not the drawn point plotly snapped to (on a decimated trace
+      // that can be several Å away).
+      const xa = (this.spectrumEl as unknown as { _fullLayout?: { xaxis?: { _offset: number; p2l(px: number): number } } })._fullLayout?.xaxis;
+      const at = xa && e.event ? xa.p2l(e.event.clientX - this.spectrumEl.getBoundingClientRect().left - xa._offset) : NaN;
+      this.events.featureClicked(Number.isFinite(at) ? at : p.x);
     });
   }
 

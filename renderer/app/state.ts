@@ -38,6 +38,8 @@ export interface AppState {
   /** The host's settings (cosmology preset, recent worklists), once read. */
   settings: Settings | null;
   message: string | null;
+  /** Why the typed z was refused, shown beside the field. */
+  typedZProblem: string | null;
 }
 
 export const NO_TRIAL: Trial = { z: null, zErr: null, template: null, candidateIndex: null, source: 'none', detail: '', nudgedKmS: 0 };
@@ -68,5 +70,6 @@ export function initialState(): AppState {
     exportResult: null,
     settings: null,
     message: null,
+    typedZProblem: null,
   };
 }

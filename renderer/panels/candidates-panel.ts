@@ -12,18 +12,19 @@ export function renderCandidates(state: AppState, box: HTMLElement, onTry: (inde
     fill(box, el('p', { class: 'muted' }, state.view?.error ? 'no candidates: the file could not be read' : m ? 'the correlation found no candidate' : 'no measurement yet'));
     return;
   }
-  const head = el('tr', {}, ...['#', 'z ± σz', 'template', 'r (TD)', 'overlap', ''].map((h) => el('th', {}, h)));
+  const refined = m.refinement.method === 'line-fit' ? 'joint line fit' : m.refinement.method === 'template-chi2' ? 'template χ² fit' : null;
+  const head = el('tr', {}, ...['#', 'z ± σz', 'template', 'r (TD)', 'overlap'].map((h) => el('th', {}, h)));
   const rows = list.map((c, i) =>
     el('tr', { class: `clickable${state.trial.candidateIndex === i ? ' chosen' : ''}`, onclick: () => onTry(i), title: 'click to try this z' },
       el('td', {}, el('kbd', {}, String(i + 1))),
       el('td', { class: 'num' }, fmtZErr(c.z, c.zErr)),
       el('td', { class: 'nowrap' }, c.template),
       el('td', { class: 'num' }, c.r.toFixed(1)),
-      el('td', { class: 'num' }, `${Math.round(100 * c.overlap)} %`),
-      el('td', { class: 'muted' }, i === 0 ? 'best' : '')));
+      el('td', { class: 'num' }, `${Math.round(100 * c.overlap)} %`)));
   fill(box,
     el('div', { class: 'panel-head' }, el('h2', {}, 'Candidates'), el('span', { class: 'nowrap' }, 'suggested:'), m.confidence === 'none' ? el('span', {}, 'none credible') : confidenceBadge(m.confidence), el('span', { class: 'nowrap' }, `· ${m.nLines} lines`),
       el('button', { type: 'button', class: 'ghost nowrap', onclick: onRemeasure, title: 'Shift+M' }, 'measure again…')),
     el('table', {}, el('thead', {}, head), el('tbody', {}, ...rows)),
+    el('p', { class: 'muted', id: 'candidate-order' }, `1 is the best${refined ? `, its z and σz from the ${refined}` : ''}. Order: how much of the spectrum each explains (√Δχ², then lines detected), not r alone.`),
     m.notes.length ? el('p', { class: 'muted' }, m.notes.join(' · ')) : null);
 }

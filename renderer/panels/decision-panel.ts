@@ -5,10 +5,10 @@
  */
 import { CONFIDENCES, OBJECT_CLASSES, type Confidence, type ObjectClass } from '../../core/catalogue/verdict.js';
 import type { AppState } from '../app/state.js';
-import { candidates } from '../state/decision.js';
+import { candidates, suggestedGrade } from '../state/decision.js';
 import { velocityBetweenKmS, zStepFor } from '../science/z-math.js';
 import { el, fill } from '../ui/dom.js';
-import { confidenceText, fmtZ, fmtZErr } from '../ui/format.js';
+import { confidenceText, fmtZErr } from '../ui/format.js';
 import { CONFIDENCE_LOOK } from '../ui/theme.js';
 
 export interface DecisionHandlers {
@@ -18,13 +18,15 @@ export interface DecisionHandlers {
   identify(): void;
   undo(): void;
   nudge(kms: number): void;
-  typedZ(text: string): void;
+  /** False when the text is not a redshift (the field keeps the focus to be corrected). */
+  typedZ(text: string): boolean;
   confidence(c: Confidence): void;
   objectClass(c: ObjectClass): void;
   note(text: string): void;
 }
 
 export const NUDGE_STEPS_KMS = [-100, -10, 10, 100] as const;
+const NUDGE_KEYS: Record<(typeof NUDGE_STEPS_KMS)[number], string> = { [-100]: '<', [-10]: ',', 10: '.', 100: '>' };
 const CLASS_KEYS: Record<ObjectClass, string> = { galaxy: 'G', agn: 'A', qso: 'Q', star: 'S', unknown: 'U' };
 const CONFIDENCE_KEYS: Record<Confidence, string> = { secure: 's', likely: 'l', tentative: 't' };
 
@@ -33,14 +35,17 @@ export class DecisionPanel {
   readonly noteInput: HTMLTextAreaElement;
   private readonly dynamicTop = el('div', { class: 'trial' });
   private readonly dynamicButtons = el('div', { class: 'decision-body' });
+  private readonly typedProblem = el('div', { class: 'typed-problem', id: 'typed-z-problem', role: 'alert' });
+  /** The spectrum the typed z belongs to: another one empties the field. */
+  private typedFor: string | null = null;
 
   constructor(private readonly box: HTMLElement, private readonly on: DecisionHandlers) {
     this.zInput = el('input', { id: 'typed-z', class: 'typed-z', type: 'text', inputmode: 'decimal', 'aria-label': 'type a redshift', placeholder: 'e.g. 0.1234' });
     this.zInput.addEventListener('keydown', (e) => {
       if (e.key === 'Enter') {
         e.preventDefault();
-        this.on.typedZ(this.zInput.value);
-        this.zInput.blur();
+        if (this.on.typedZ(this.zInput.value)) this.zInput.blur();
+        else this.zInput.select();
       } else if (e.key === 'Escape') this.zInput.blur();
       e.stopPropagation();
     });
@@ -55,13 +60,25 @@ export class DecisionPanel {
     });
     fill(box, this.dynamicTop,
       el('div', { class: 'row' }, el('span', { class: 'label' }, 'type z'), this.zInput, el('kbd', {}, 'z'), el('span', { class: 'muted' }, 'then Enter')),
+      this.typedProblem,
       this.dynamicButtons,
-      el('div', { class: 'row' }, el('span', { class: 'label' }, 'note'), el('kbd', {}, 'm')),
       this.noteInput);
+  }
+
+  /** Focuses the z field with its text selected, so what is typed replaces it. */
+  focusTypedZ(): void {
+    this.zInput.focus();
+    this.zInput.select();
   }
 
   render(state: AppState): void {
     const t = state.trial;
+    if (state.currentId !== this.typedFor) {
+      this.typedFor = state.currentId;
+      this.zInput.value = '';
+    }
+    this.typedProblem.textContent = state.typedZProblem ?? '';
+    this.typedProblem.hidden = !state.typedZProblem;
     const best = candidates(state.view)[0] ?? null;
     const dv = t.z !== null && best ? velocityBetweenKmS(best.z, t.z) : null;
     fill(this.dynamicTop,
@@ -71,13 +88,17 @@ export class DecisionPanel {
     const stepInfo = t.z === null ? '' : `10 km/s = Δz ${zStepFor(t.z, 10).toExponential(1)}`;
     const v = state.view?.verdict && state.view.verdict.status !== 'pending' ? state.view.verdict : null;
     const queued = state.saves.find((q) => q.input.id === state.currentId);
-    const conf = (c: Confidence) => el('button', { type: 'button', 'aria-pressed': state.grade.confidence === c ? 'true' : 'false', style: `color:${CONFIDENCE_LOOK[c].colour}`, onclick: () => this.on.confidence(c) }, `${CONFIDENCE_LOOK[c].shape} ${c}`, el('kbd', {}, CONFIDENCE_KEYS[c]));
-    const cls = (c: ObjectClass) => el('button', { type: 'button', 'aria-pressed': state.grade.objectClass === c ? 'true' : 'false', title: `Shift+${CLASS_KEYS[c]}`, onclick: () => this.on.objectClass(c) }, c);
+    // A chosen grade is pressed; where none is chosen, the one that will be saved is outlined.
+    const suggested = suggestedGrade(state.view, t);
+    const gradeButton = (chosen: boolean, isSuggested: boolean, key: string, onclick: () => void, ...label: (string | HTMLElement)[]) =>
+      el('button', { type: 'button', 'aria-pressed': chosen ? 'true' : 'false', class: isSuggested ? 'suggested' : null, title: isSuggested ? `${key} · suggested: saved with this unless you choose` : key, onclick }, ...label);
+    const conf = (c: Confidence) => gradeButton(state.grade.confidence === c, state.grade.confidence === null && suggested.confidence === c, CONFIDENCE_KEYS[c], () => this.on.confidence(c),
+      el('span', { style: `color:${CONFIDENCE_LOOK[c].colour}` }, `${CONFIDENCE_LOOK[c].shape} ${c}`), el('kbd', {}, CONFIDENCE_KEYS[c]));
+    const cls = (c: ObjectClass) => gradeButton(state.grade.objectClass === c, state.grade.objectClass === null && suggested.objectClass === c, `Shift+${CLASS_KEYS[c]}`, () => this.on.objectClass(c), c);
     fill(this.dynamicButtons,
       el('div', { class: 'row nudge' }, el('span', { class: 'label' }, 'nudge'),
-        ...NUDGE_STEPS_KMS.map((s) => el('button', { type: 'button', title: `${s > 0 ? '+' : '−'}${Math.abs(s)} km/s`, onclick: () => this.on.nudge(s) }, `${s > 0 ? '+' : '−'}${Math.abs(s)}`)),
-        el('span', { class: 'muted' }, 'km/s')),
-      el('div', { class: 'row' }, el('span', { class: 'label' }, ''), el('span', { class: 'muted' }, `keys , . ±10 · < > ±100 · ${stepInfo}`)),
+        ...NUDGE_STEPS_KMS.map((s) => el('button', { type: 'button', title: `${s > 0 ? '+' : '−'}${Math.abs(s)} km/s (key ${NUDGE_KEYS[s]})${stepInfo ? ` · ${stepInfo}` : ''}`, onclick: () => this.on.nudge(s) }, `${s > 0 ? '+' : '−'}${Math.abs(s)}`)),
+        el('span', { class: 'muted' }, 'km/s · keys , . < >')),
       el('div', { class: 'row decide-buttons' },
         el('button', { type: 'button', id: 'btn-accept', onclick: () => this.on.acceptBest() }, 'Accept best', el('kbd', {}, 'a')),
         el('button', { type: 'button', id: 'btn-save-trial', onclick: () => this.on.saveTrial() }, 'Save trial z', el('kbd', {}, 'Enter'))),
@@ -85,7 +106,7 @@ export class DecisionPanel {
         el('button', { type: 'button', id: 'btn-no-z', onclick: () => this.on.noRedshift() }, 'No redshift', el('kbd', {}, 'x')),
         el('button', { type: 'button', 'aria-pressed': state.identifying ? 'true' : 'false', onclick: () => this.on.identify() }, 'Identify a line', el('kbd', {}, 'i')),
         el('button', { type: 'button', onclick: () => this.on.undo() }, 'Undo', el('kbd', {}, 'u'))),
-      el('div', { class: 'row stacked' }, el('span', { class: 'label' }, 'confidence (a word, always)'), ...CONFIDENCES.map(conf)),
+      el('div', { class: 'row stacked' }, el('span', { class: 'label' }, 'confidence · dashed: suggested, saved unless you choose'), ...CONFIDENCES.map(conf)),
       el('div', { class: 'row stacked' }, el('span', { class: 'label' }, 'class (Shift + initial: G A Q S U)'), ...OBJECT_CLASSES.map(cls)),
       el('div', { class: `verdict-now${v ? '' : ' pending'}`, id: 'verdict-now', 'data-z': v ? String(v.z) : null },
         v ? verdictLine(v) : 'pending: not vetted yet',
@@ -97,7 +118,7 @@ export class DecisionPanel {
 function verdictLine(v: NonNullable<AppState['view']>['verdict'] & object): HTMLElement {
   const look = confidenceText(v.status === 'no-redshift' ? null : v.confidence);
   return el('div', {},
-    el('strong', {}, v.status), ' · ', v.status === 'no-redshift' ? 'no z' : `z = ${fmtZ(v.z)}`, ' · ',
+    el('strong', {}, v.status), ' · ', v.status === 'no-redshift' ? 'no z' : `z = ${fmtZErr(v.z, v.zErr)}`, ' · ',
     el('span', { style: `color:${look.colour}` }, `${look.shape} ${look.text}`), ' · ', v.objectClass,
     el('div', { class: 'muted' }, `saved ${v.time.replace('T', ' ').slice(0, 19)} UTC by ${v.user}`));
 }

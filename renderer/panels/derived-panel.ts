@@ -4,6 +4,7 @@
  */
 import type { FrameResult } from '../../core/astro/frames.js';
 import { SPEED_OF_LIGHT_KMS } from '../../core/astro/constants.js';
+import { radialVelocityKmS } from '../../core/astro/doppler.js';
 import { COSMOLOGY_PRESETS } from '../../core/astro/cosmology.js';
 import { el, fill } from '../ui/dom.js';
 import { fmtNum, fmtZ } from '../ui/format.js';
@@ -21,7 +22,7 @@ function dl(rows: [string, string][]): HTMLElement {
 
 /** The result to draw, or null after saying in the box why there is none. */
 export function usableResult<T>(box: HTMLElement, live: LiveResult<T> | null, what: string): T | null {
-  if (!live) fill(box, el('p', { class: 'muted' }, 'no trial z yet'));
+  if (!live) fill(box, el('p', { class: 'muted' }, 'no trial z, so nothing to derive: try a candidate or type a z'));
   else if (live.error) fill(box, el('p', { class: 'caveat' }, `${what} not available: ${live.error}`));
   else if (!live.result) fill(box, el('p', { class: 'muted' }, `${what}: updating…`));
   return live?.error ? null : (live?.result ?? null);
@@ -36,27 +37,42 @@ function cosmologyPicker(current: string, onChange: (preset: string) => void): H
   return el('div', {}, select, el('p', { class: 'why' }, COSMOLOGY_PRESETS[current]?.source ?? 'user values from the settings'));
 }
 
-export function renderDerived(box: HTMLElement, live: LiveResult<FrameResult> | null, cosmology: string, onCosmology: (preset: string) => void): void {
+/** Above this z, c·z is far from any speed (common practice, no source): the panel says so. */
+const CZ_IS_NOT_A_SPEED_ABOVE_Z = 0.3;
+
+/**
+ * With `star`, the z is a line-of-sight velocity (shown as one) and there are no cosmological
+ * distances; otherwise cz is shown as the catalogue gives it.
+ */
+export function renderDerived(box: HTMLElement, live: LiveResult<FrameResult> | null, cosmology: string, onCosmology: (preset: string) => void, star: boolean): void {
   const f = usableResult(box, live, 'derived quantities');
   if (!f || !live) return;
-  const cosmologyName = cosmology;
   const frameZ = f.zBary ?? f.zHelio ?? f.zObs;
-  const d = f.distances;
+  const cz = (z: number | null): string => (z === null ? '—' : fmtNum(SPEED_OF_LIGHT_KMS * z, 1, 'km/s'));
+  const velocityRows: [string, string][] = star
+    ? [[`radial velocity, ${f.frame}`, fmtNum(radialVelocityKmS(frameZ), 2, 'km/s')]]
+    : [[`cz, ${f.frame}`, cz(frameZ)], ['cz, CMB frame', cz(f.zCmb)]];
   fill(box,
     live.stale ? el('p', { class: 'muted' }, 'updating…') : null,
     el('h2', {}, 'Redshift frames'),
     dl([
       ['z, as measured', fmtZ(f.zObs)],
       [`z, ${f.frame}`, `${fmtZ(frameZ)}${f.zErr !== null ? ` ± ${f.zErr.toPrecision(2)}` : ''}`],
-      ['z, CMB frame', fmtZ(f.zCmb)],
-      [`cz, ${f.frame}`, fmtNum(SPEED_OF_LIGHT_KMS * frameZ, 1, 'km/s')],
-      ['cz, CMB frame', f.zCmb === null ? '—' : fmtNum(SPEED_OF_LIGHT_KMS * f.zCmb, 1, 'km/s')],
+      ...(star ? [] : [['z, CMB frame', fmtZ(f.zCmb)] as [string, string]]),
+      ...velocityRows,
       ['barycentric corr.', fmtNum(f.vCorrKmS, 3, 'km/s')],
       ['heliocentric corr.', fmtNum(f.vHelioKmS, 3, 'km/s')],
       ['mid-exposure', f.midExposureUtc ? `${f.midExposureUtc.replace('T', ' ').slice(0, 19)} UTC` : '—'],
     ]),
+    !star && frameZ > CZ_IS_NOT_A_SPEED_ABOVE_Z ? el('p', { class: 'why', id: 'cz-note' }, 'cz is c·z, the redshift in km/s: at this z it is far from any speed (above z = 1 it exceeds c).') : null,
     el('p', { class: 'why', id: 'frame-reason' }, `Correction applied: ${f.correction}. ${f.reason}`),
-    el('h2', {}, `Distances (${cosmologyName}${f.distancesFrom ? `, from the ${f.distancesFrom} z` : ''})`),
+    star ? el('p', { class: 'why', id: 'star-note' }, 'Class star: the redshift is a line-of-sight velocity (relativistic Doppler), not a distance, so no cosmological distances are given.') : distances(f, cosmology, onCosmology));
+}
+
+function distances(f: FrameResult, cosmology: string, onCosmology: (preset: string) => void): HTMLElement {
+  const d = f.distances;
+  return el('div', {},
+    el('h2', {}, `Distances (${cosmology}${f.distancesFrom ? `, from the ${f.distancesFrom} z` : ''})`),
     cosmologyPicker(cosmology, onCosmology),
     d ? dl([
       ['comoving', fmtNum(d.comovingMpc, 1, 'Mpc')],

@@ -23,6 +23,12 @@ function sig(v: number | null): string {
   return a !== 0 && (a < 0.01 || a >= 1e5) ? v.toExponential(2) : String(Number(v.toPrecision(3)));
 }
 
+/** An SFR with its error, or as an upper limit where an AGN contributes to Hα. */
+function sfrText(value: number | null, err: number | null, upperLimit: boolean): string {
+  if (value === null) return '—';
+  return upperLimit ? `< ${value.toPrecision(3)} M☉/yr (AGN)` : `${value.toPrecision(3)} ± ${(err ?? 0).toPrecision(2)} M☉/yr`;
+}
+
 export function renderHost(box: HTMLElement, live: LiveResult<HostAnalysis> | null): void {
   const h = usableResult(box, live, 'host lines');
   if (!h || !live) return;
@@ -52,8 +58,8 @@ export function renderHost(box: HTMLElement, live: LiveResult<HostAnalysis> | nu
       el('dt', {}, 'Hα/Hβ'), el('dd', {}, h.balmer.decrement === null ? '—' : `${h.balmer.decrement.toFixed(2)} ± ${(h.balmer.decrement_err ?? 0).toFixed(2)}`),
       el('dt', {}, `E(B−V), ${h.balmer.curve}`), el('dd', {}, fmtNum(h.balmer.ebv, 3, 'mag')),
       el('dt', {}, 'L(Hα)'), el('dd', {}, sfr.l_halpha_erg_s === null ? '—' : `${sig(sfr.l_halpha_erg_s)} erg/s${sfr.dust_corrected ? ' (dust-corr.)' : ''}`),
-      el('dt', {}, 'SFR, Kennicutt 98'), el('dd', {}, sfr.sfr_kennicutt98_msun_yr === null ? '—' : `${sfr.sfr_kennicutt98_msun_yr.toPrecision(3)} ± ${(sfr.sfr_kennicutt98_err_msun_yr ?? 0).toPrecision(2)} M☉/yr`),
-      el('dt', {}, 'SFR, Kennicutt & Evans 12'), el('dd', {}, sfr.sfr_ke12_msun_yr === null ? '—' : `${sfr.sfr_ke12_msun_yr.toPrecision(3)} ± ${(sfr.sfr_ke12_err_msun_yr ?? 0).toPrecision(2)} M☉/yr`)),
+      el('dt', {}, 'SFR, Kennicutt 98'), el('dd', {}, sfrText(sfr.sfr_kennicutt98_msun_yr, sfr.sfr_kennicutt98_err_msun_yr, sfr.upper_limit)),
+      el('dt', {}, 'SFR, Kennicutt & Evans 12'), el('dd', {}, sfrText(sfr.sfr_ke12_msun_yr, sfr.sfr_ke12_err_msun_yr, sfr.upper_limit))),
     el('p', { class: 'muted' }, `IMF: ${sfr.imf.kennicutt98} (K98); ${sfr.imf.ke12} (KE12). ${sfr.note ?? ''}`),
     el('p', { class: 'caveat', id: 'aperture-caveat' }, `⚠ ${sfr.caveat}`));
   const fig = buildBptFigure(c.point);

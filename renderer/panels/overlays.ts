@@ -25,7 +25,7 @@ export function renderLinePick(box: HTMLElement, at: { waveAngstrom: number; cli
     el('span', { class: 'hint' }, c.hint),
     el('span', { class: 'num' }, `z = ${c.z.toFixed(5)}`)));
   fill(box, el('div', { class: 'card', role: 'dialog', 'aria-label': 'Which line is this?', id: 'line-pick' },
-    el('h2', {}, `Feature at ${at.waveAngstrom.toFixed(2)} Å (observed, vacuum): which rest line is it?`),
-    el('p', { class: 'muted' }, `Centre of the feature nearest the click (${at.clickAngstrom.toFixed(1)} Å); z = λ_feature / λ_rest − 1. Press its number or click it; Esc cancels. The choice becomes the trial z: check the markers, nudge, then Enter saves.`),
+    el('h2', {}, `Which line is the feature at ${at.waveAngstrom.toFixed(1)} Å?`),
+    el('p', { class: 'muted' }, `Observed, vacuum: the centre (green) of the feature nearest your click at ${at.clickAngstrom.toFixed(1)} Å (dotted). z = λ / λ_rest − 1. Press a number or click; Esc cancels. Then check the markers, nudge, Enter saves.`),
     choices.length ? el('ol', { class: 'pick-list' }, ...items) : el('p', {}, 'No line in the list gives a redshift between 0 and 7 here.')));
 }

@@ -50,7 +50,7 @@ export function buildBptFigure(point: DiagramPoint | null): { data: Data[]; layo
     data,
     layout: {
       paper_bgcolor: THEME.panel, plot_bgcolor: THEME.ground, font: { family: THEME.font, size: 12, color: THEME.text },
-      margin: { l: 50, r: 8, t: 8, b: 64 }, showlegend: true,
+      margin: { l: 60, r: 8, t: 8, b: 64 }, showlegend: true,
       legend: { orientation: 'h', x: 0, y: -0.2, yanchor: 'top', bgcolor: 'rgba(0,0,0,0)', font: { size: 12 } },
       xaxis: { ...axis, range: [-2, 1], title: { text: 'log([N II] 6585 / Hα)', font: { size: 12 } } },
       yaxis: { ...axis, range: [-1.5, 1.5], title: { text: 'log([O III] 5008 / Hβ)', font: { size: 12 } } },

@@ -26,6 +26,8 @@ export interface SpectrumFigureInput {
   /** Visible observed range, Å; null for the whole spectrum. */
   xRange: [number, number] | null;
   widthPx: number;
+  /** While a line is being picked: the feature's centre and the click it was found from, Å. */
+  pick?: { featureAngstrom: number; clickAngstrom: number } | null;
 }
 
 export interface SpectrumFigure {
@@ -125,6 +127,12 @@ export function buildSpectrumFigure(input: SpectrumFigureInput): SpectrumFigure 
   }
   for (const run of maskedRuns(wave, arrays.mask)) {
     shapes.push({ type: 'rect', xref: 'x', yref: 'paper', x0: run.loAngstrom, x1: run.hiAngstrom, y0: 0, y1: 1, fillcolor: THEME.masked, line: { width: 0 }, layer: 'below' });
+  }
+  if (input.pick) {
+    const { featureAngstrom, clickAngstrom } = input.pick;
+    shapes.push({ type: 'line', xref: 'x', yref: 'paper', x0: clickAngstrom, x1: clickAngstrom, y0: 0, y1: 1, line: { color: THEME.muted, width: 1, dash: 'dot' } });
+    shapes.push({ type: 'line', xref: 'x', yref: 'paper', x0: featureAngstrom, x1: featureAngstrom, y0: 0, y1: 1, line: { color: THEME.trialZ, width: 2 } });
+    annotations.push({ x: featureAngstrom, xref: 'x', yref: 'paper', y: 1, yanchor: 'bottom', text: `feature ${featureAngstrom.toFixed(1)} Å`, showarrow: false, bgcolor: THEME.ground, font: { size: 13, color: THEME.trialZ } });
   }
   data.push(...markerTraces(markers));
   const yRange = robustRange(smoothed, wave, lo, hi);

@@ -23,9 +23,10 @@ export interface Trial {
   nudgedKmS: number;
 }
 
+/** What the observer chose; null where nothing was chosen and the suggestion will be saved. */
 export interface Grade {
   confidence: Confidence | null;
-  objectClass: ObjectClass;
+  objectClass: ObjectClass | null;
   note: string;
 }
 
@@ -38,13 +39,20 @@ export const CLASS_OF_TEMPLATE: Record<TemplateClass, ObjectClass> = {
   user: 'unknown',
 };
 
+/**
+ * The candidates as the window shows and saves them: the first one refined (z and σz from the
+ * fit) where there was a refinement, so the z on the screen is the z that "accept" saves.
+ */
 export function candidates(view: SpectrumView | null): Candidate[] {
-  return view?.measurement?.candidates ?? [];
+  const m = view?.measurement;
+  if (!m) return [];
+  return m.best && m.candidates.length > 0 ? [m.best, ...m.candidates.slice(1)] : m.candidates;
 }
 
 /** The trial z as a spectrum opens: its saved verdict if any, otherwise the best candidate. */
 export function openingTrial(view: SpectrumView | null): Trial {
   const v = view?.verdict;
+  if (v?.status === 'no-redshift') return noRedshiftTrial();
   if (v && v.status !== 'pending') {
     const idx = v.z === null ? -1 : candidates(view).findIndex((c) => c.z === v.z);
     return { z: v.z, zErr: v.zErr, template: v.template, candidateIndex: idx >= 0 ? idx : null, source: 'saved', detail: `saved as ${v.status}`, nudgedKmS: 0 };
@@ -56,6 +64,24 @@ export function candidateTrial(view: SpectrumView | null, index: number): Trial 
   const c = candidates(view)[index];
   if (!c) return { z: null, zErr: null, template: null, candidateIndex: null, source: 'none', detail: 'no candidate', nudgedKmS: 0 };
   return { z: c.z, zErr: c.zErr, template: c.template, candidateIndex: index, source: 'candidate', detail: `candidate ${index + 1}, ${c.template}`, nudgedKmS: 0 };
+}
+
+/** After "no redshift": nothing to mark on the spectrum or to derive distances from. */
+export function noRedshiftTrial(): Trial {
+  return { z: null, zErr: null, template: null, candidateIndex: null, source: 'saved', detail: 'saved as no redshift', nudgedKmS: 0 };
+}
+
+/** Redshifts a person may type; Number() alone would also take "0x10" or "Infinity". */
+const TYPED_Z_MIN = -0.01;
+const TYPED_Z_MAX = 12;
+const DECIMAL = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+
+/** A typed redshift, or why the text is not one. */
+export function parseTypedZ(text: string): number | { refused: string } {
+  const t = text.trim().replace(/^−/, '-');
+  const z = Number(t);
+  if (!DECIMAL.test(t) || z < TYPED_Z_MIN || z > TYPED_Z_MAX) return { refused: `"${text.trim()}" is not a redshift between −0.01 and 12` };
+  return z;
 }
 
 export function typedTrial(z: number): Trial {
@@ -74,28 +100,44 @@ export function nudgedTrial(trial: Trial, velocityKmS: number): Trial {
   return { ...trial, z: nudgeZ(trial.z, velocityKmS), candidateIndex: null, source: 'nudged', detail: `${sign}${Math.abs(total)} km/s from ${from}`, nudgedKmS: total };
 }
 
-/** The grade as a spectrum opens: the saved one, else the automatic suggestion. */
+/** The grade as a spectrum opens: the saved one, else nothing chosen yet. */
 export function openingGrade(view: SpectrumView | null): Grade {
   const v = view?.verdict;
   if (v && v.status !== 'pending') return { confidence: v.confidence, objectClass: v.objectClass, note: v.note };
+  return { confidence: null, objectClass: null, note: '' };
+}
+
+/**
+ * The confidence and class saved when none was chosen: the automatic suggestion belongs to the
+ * best candidate as measured, so only that z gets it; any other trial z is "tentative". The class
+ * follows the trial's template (the best's for a typed or identified z).
+ */
+export function suggestedGrade(view: SpectrumView | null, trial: Trial): { confidence: Confidence | null; objectClass: ObjectClass } {
+  const list = candidates(view);
   const m = view?.measurement;
-  const best = m?.best ?? m?.candidates[0] ?? null;
-  return {
-    confidence: m && m.confidence !== 'none' ? m.confidence : 'tentative',
-    objectClass: best ? CLASS_OF_TEMPLATE[best.templateClass] : 'unknown',
-    note: '',
-  };
+  const ofTrial = list.find((c) => c.template === trial.template) ?? list[0];
+  const objectClass = ofTrial ? CLASS_OF_TEMPLATE[ofTrial.templateClass] : 'unknown';
+  if (trial.z === null) return { confidence: null, objectClass };
+  const isBest = trial.source === 'candidate' && trial.candidateIndex === 0;
+  return { confidence: isBest && m && m.confidence !== 'none' ? m.confidence : 'tentative', objectClass };
+}
+
+/** The grade as it will be saved: what was chosen, the suggestion elsewhere. */
+export function gradeToSave(view: SpectrumView | null, trial: Trial, grade: Grade): { confidence: Confidence; objectClass: ObjectClass; note: string } {
+  const suggested = suggestedGrade(view, trial);
+  return { confidence: grade.confidence ?? suggested.confidence ?? 'tentative', objectClass: grade.objectClass ?? suggested.objectClass, note: grade.note };
 }
 
 export type Decision = { kind: 'accept-best' } | { kind: 'candidate'; index: number } | { kind: 'trial' } | { kind: 'no-redshift' } | { kind: 'regrade'; verdict: Verdict };
 
 /** The verdict to save for a decision, or a one-line reason why it cannot be made. */
 export function verdictFor(view: SpectrumView, decision: Decision, trial: Trial, grade: Grade): VerdictInput | { refused: string } {
-  const base = { id: view.id, objectClass: grade.objectClass, note: grade.note };
-  const confidence = grade.confidence ?? 'tentative';
+  const trialOf = (d: Decision): Trial => (d.kind === 'accept-best' ? candidateTrial(view, 0) : d.kind === 'candidate' ? candidateTrial(view, d.index) : trial);
+  const { confidence, objectClass, note } = gradeToSave(view, trialOf(decision), grade);
+  const base = { id: view.id, objectClass, note };
   switch (decision.kind) {
     case 'accept-best': {
-      const best = view.measurement?.best ?? candidates(view)[0];
+      const best = candidates(view)[0];
       if (!best) return { refused: 'there is no automatic candidate to accept' };
       return { ...base, status: 'accepted', z: best.z, zErr: best.zErr, confidence, template: best.template };
     }
@@ -112,7 +154,8 @@ export function verdictFor(view: SpectrumView, decision: Decision, trial: Trial,
       if (trial.source === 'candidate' && trial.candidateIndex !== null) return verdictFor(view, { kind: 'candidate', index: trial.candidateIndex }, trial, grade);
       return { ...base, status: 'revised', z: trial.z, zErr: trial.source === 'saved' ? trial.zErr : null, confidence, template: trial.template };
     case 'no-redshift':
-      return { ...base, status: 'no-redshift', z: null, zErr: null, confidence: null, template: null };
+      // With no z there is no template to take a class from: unknown unless chosen.
+      return { ...base, objectClass: grade.objectClass ?? 'unknown', status: 'no-redshift', z: null, zErr: null, confidence: null, template: null };
     case 'regrade': {
       const v = decision.verdict;
       return { ...base, status: v.status, z: v.z, zErr: v.zErr, confidence: v.status === 'no-redshift' ? null : confidence, template: v.template };

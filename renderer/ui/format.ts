@@ -6,11 +6,12 @@ export function fmtZ(z: number | null | undefined, digits = 5): string {
   return z === null || z === undefined || !Number.isFinite(z) ? '—' : z.toFixed(digits);
 }
 
-/** z ± σz with σz to two significant figures. */
+/** z ± σz with σz to two significant figures and z to the same last decimal (at least 5, at most 7). */
 export function fmtZErr(z: number | null, zErr: number | null): string {
   if (z === null) return '—';
-  if (zErr === null || !Number.isFinite(zErr)) return `${fmtZ(z)} (no σ)`;
-  return `${fmtZ(z)} ± ${zErr.toPrecision(2)}`;
+  if (zErr === null || !Number.isFinite(zErr) || zErr <= 0) return `${fmtZ(z)} (no σ)`;
+  const digits = Math.min(7, Math.max(5, 1 - Math.floor(Math.log10(zErr))));
+  return `${fmtZ(z, digits)} ± ${zErr < 1e-6 ? zErr.toFixed(digits) : zErr.toPrecision(2)}`;
 }
 
 export function fmtNum(v: number | null | undefined, digits: number, unit: string): string {

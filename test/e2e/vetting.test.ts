@@ -144,12 +144,15 @@ describe('vetting in the window', () => {
     await expect.poll(async () => (await axes()).x).toEqual(full.x);
   });
 
-  it('accepts the best candidate with one key', async () => {
+  it('accepts the best candidate with one key, saving the z it shows', async () => {
     const best = await candidateZ(0);
+    const shown = Number(((await page.locator('#trial-z').textContent()) ?? '').split('±')[0]);
+    expect(shown).toBe(best);
     await press('s');
     await press('a');
     const { z } = await savedAs('accepted');
-    expect(z).toBeCloseTo(best, 4);
+    // Saved at full precision; shown to at least 5 decimals.
+    expect(Math.abs(z! - shown)).toBeLessThanOrEqual(5e-6);
     vetted['KRT-26-0011.fits'] = { status: 'accepted', z };
   });
 
@@ -178,6 +181,23 @@ describe('vetting in the window', () => {
     const { z } = await savedAs('revised');
     expect(z).toBeCloseTo(second, 4);
     vetted['KRT-26-0012.fits'] = { status: 'revised', z };
+  });
+
+  it('says beside the field when a typed z is not a redshift, and empties it on the next spectrum', async () => {
+    await press('z');
+    await page.keyboard.type('0x10');
+    await press('Enter');
+    await expect.poll(() => page.locator('#typed-z-problem').textContent()).toContain('not a redshift');
+    expect(await page.evaluate(() => document.activeElement?.id)).toBe('typed-z');
+    // The refused text is selected: what is typed next replaces it.
+    await page.keyboard.type('0.2');
+    await press('Enter');
+    await expect.poll(() => page.locator('#spectrum-plot').getAttribute('data-z')).toBe('0.2');
+    expect(await page.locator('#typed-z-problem').isHidden()).toBe(true);
+    // A typed z is a trial, not a verdict.
+    expect(await page.locator('#verdict-now').textContent()).toContain('revised');
+    await nextUntil('KRT-26-0013.fits');
+    expect(await page.locator('#typed-z').inputValue()).toBe('');
   });
 
   it('identifies [O III] 5008 by clicking the feature, picks the rest line by its number, nudges and saves', async () => {
@@ -233,6 +253,11 @@ describe('vetting in the window', () => {
     await nextUntil('KRT-26-0021.fits');
     await press('x');
     expect((await savedAs('no-redshift')).z).toBeNull();
+    // Nothing is left drawn or derived from a z, and no confidence is shown as chosen.
+    expect(await page.locator('#trial-z').textContent()).toBe('—');
+    await expect.poll(() => page.locator('#spectrum-plot .textpoint').count()).toBe(0);
+    expect(await page.locator('#tab-body').textContent()).toContain('nothing to derive');
+    expect(await page.locator('#decision button[aria-pressed="true"]:has-text("secure"), #decision button[aria-pressed="true"]:has-text("likely"), #decision button[aria-pressed="true"]:has-text("tentative")').count()).toBe(0);
     vetted['KRT-26-0021.fits'] = { status: 'no-redshift', z: null };
     expect(await page.locator('#progress').textContent()).toContain('4 of 13 vetted');
   });

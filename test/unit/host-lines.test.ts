@@ -128,6 +128,10 @@ describe('classification', () => {
     // log [O III]/Hβ = log(1200/171) = 0.85; log [N II]/Hα = log(480/600) = −0.10: above Kewley 2001.
     expect(agn.classification.bpt).toBe('agn');
     expect(agn.classification.agn_type).toBe('seyfert');
+    // An AGN adds to Hα: the SFR is an upper limit there, a value for the star-forming one.
+    expect(agn.sfr.upper_limit).toBe(true);
+    expect(agn.sfr.caveat).toMatch(/upper limit/);
+    expect(sf.sfr.upper_limit).toBe(false);
   });
 
   it('says which lines are missing when it cannot classify', () => {

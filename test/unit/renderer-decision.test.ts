@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import type { SpectrumListItem, SpectrumView, VerdictInput } from '../../core/api/host-api.js';
 import type { Verdict } from '../../core/catalogue/verdict.js';
 import type { Candidate } from '../../core/redshift/types.js';
-import { candidateTrial, lineTrial, nudgedTrial, openingGrade, openingTrial, typedTrial, verdictFor } from '../../renderer/state/decision.js';
+import { candidates, candidateTrial, lineTrial, noRedshiftTrial, nudgedTrial, openingGrade, openingTrial, parseTypedZ, suggestedGrade, typedTrial, verdictFor } from '../../renderer/state/decision.js';
+import { fmtZErr } from '../../renderer/ui/format.js';
 import { neighbour, nextPending, passesFilter, progress } from '../../renderer/state/worklist-view.js';
 import { SaveQueue } from '../../renderer/state/save-queue.js';
 import { nudgeZ } from '../../renderer/science/z-math.js';
@@ -15,9 +16,45 @@ const view = (verdict: Verdict | null = null): SpectrumView => ({
 const savedVerdict = (over: Partial<Verdict>): Verdict => ({ spectrum: 'a.fits', hdu: 0, status: 'revised', z: 0.35, zErr: null, confidence: 'secure', objectClass: 'qso', template: 'qso', note: 'n', time: '2026-03-15T03:00:00Z', user: 'obs', ...over });
 
 describe('decisions', () => {
-  it('opens on the best candidate with the suggested grade and the class of its template', () => {
-    expect(openingTrial(view()).z).toBe(0.1);
-    expect(openingGrade(view())).toEqual({ confidence: 'likely', objectClass: 'galaxy', note: '' });
+  it('opens on the refined best: the z shown is the z that accepting saves', () => {
+    const t = openingTrial(view());
+    expect(t.z).toBe(0.1001);
+    expect(candidates(view()).map((c) => c.z)).toEqual([0.1001, 0.35]);
+    const saved = verdictFor(view(), { kind: 'accept-best' }, t, openingGrade(view())) as VerdictInput;
+    expect(saved.z).toBe(t.z);
+    expect(saved.zErr).toBe(t.zErr);
+  });
+  it('opens with no grade chosen; the suggestion is shown and saved for the best only', () => {
+    expect(openingGrade(view())).toEqual({ confidence: null, objectClass: null, note: '' });
+    expect(suggestedGrade(view(), openingTrial(view()))).toEqual({ confidence: 'likely', objectClass: 'galaxy' });
+    // Another candidate's z is not what the suggestion was made for: tentative, and its own class.
+    expect(suggestedGrade(view(), candidateTrial(view(), 1))).toEqual({ confidence: 'tentative', objectClass: 'qso' });
+    expect(verdictFor(view(), { kind: 'accept-best' }, openingTrial(view()), openingGrade(view()))).toMatchObject({ confidence: 'likely', objectClass: 'galaxy' });
+    expect(verdictFor(view(), { kind: 'candidate', index: 1 }, openingTrial(view()), openingGrade(view()))).toMatchObject({ confidence: 'tentative', objectClass: 'qso' });
+  });
+  it('a chosen grade is saved whatever the suggestion', () => {
+    const chosen = { confidence: 'secure' as const, objectClass: 'star' as const, note: '' };
+    expect(verdictFor(view(), { kind: 'candidate', index: 1 }, openingTrial(view()), chosen)).toMatchObject({ confidence: 'secure', objectClass: 'star' });
+  });
+  it('a saved "no redshift" reopens with no trial z and no confidence; unchosen class is unknown', () => {
+    const v = view(savedVerdict({ status: 'no-redshift', z: null, confidence: null, objectClass: 'unknown', template: null }));
+    expect(openingTrial(v)).toEqual(noRedshiftTrial());
+    expect(openingTrial(v).z).toBeNull();
+    expect(openingGrade(v).confidence).toBeNull();
+    expect(suggestedGrade(v, openingTrial(v)).confidence).toBeNull();
+    expect(verdictFor(view(), { kind: 'no-redshift' }, openingTrial(view()), openingGrade(view()))).toMatchObject({ objectClass: 'unknown', confidence: null });
+  });
+  it('reads a typed z as a decimal number only', () => {
+    expect(parseTypedZ(' 0.1234 ')).toBe(0.1234);
+    expect(parseTypedZ('−0.0004')).toBe(-0.0004);
+    expect(parseTypedZ('2.5e-1')).toBe(0.25);
+    for (const bad of ['', 'abc', '0x10', 'Infinity', '1,2', '12.5', '-0.02']) expect(parseTypedZ(bad)).toHaveProperty('refused');
+  });
+  it('writes z to the last decimal of its σz', () => {
+    expect(fmtZErr(0.068182, 2.6e-5)).toBe('0.068182 ± 0.000026');
+    expect(fmtZErr(0.41272, 1.2e-4)).toBe('0.41272 ± 0.00012');
+    expect(fmtZErr(2.8, 0.004)).toBe('2.80000 ± 0.0040');
+    expect(fmtZErr(0.1, null)).toBe('0.10000 (no σ)');
   });
   it('opens on the saved verdict when there is one', () => {
     const v = view(savedVerdict({}));
@@ -25,7 +62,7 @@ describe('decisions', () => {
     expect(openingGrade(v)).toEqual({ confidence: 'secure', objectClass: 'qso', note: 'n' });
   });
   it('accepting takes the refined best, another candidate is "revised"', () => {
-    const g = openingGrade(view());
+    const g = { ...openingGrade(view()), confidence: 'likely' as const };
     expect(verdictFor(view(), { kind: 'accept-best' }, openingTrial(view()), g)).toMatchObject({ status: 'accepted', z: 0.1001, template: 'sf' });
     const t = candidateTrial(view(), 1);
     expect(verdictFor(view(), { kind: 'trial' }, t, g)).toMatchObject({ status: 'revised', z: 0.35, template: 'qso', confidence: 'likely' });
@@ -40,7 +77,7 @@ describe('decisions', () => {
   });
   it('nudges accumulate and say how far they moved', () => {
     const t = nudgedTrial(nudgedTrial(candidateTrial(view(), 0), 100), -10);
-    expect(t.z).toBeCloseTo(nudgeZ(nudgeZ(0.1, 100), -10), 15);
+    expect(t.z).toBeCloseTo(nudgeZ(nudgeZ(0.1001, 100), -10), 15);
     expect(t.detail).toBe('+90 km/s from candidate 1, sf');
   });
   it('saving the trial z of a reopened verdict keeps its status', () => {

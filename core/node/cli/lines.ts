@@ -88,8 +88,9 @@ export function formatAnalysis(file: string, a: HostAnalysis): string {
   out.push(`E(B−V) = ${num(b.ebv, 3)} ± ${num(b.ebv_err, 3)} mag, ${b.curve_source}: k(Hβ) = ${num(b.k_hbeta, 2)}, k(Hα) = ${num(b.k_halpha, 2)}; ${b.note}`);
   const s = a.sfr;
   out.push(`L(Hα) = ${sci(s.l_halpha_erg_s)} ± ${sci(s.l_halpha_err_erg_s, 1)} erg/s${s.dust_corrected ? ' (dust-corrected)' : ''}; D_L = ${num(s.luminosity_distance_mpc, 1)} Mpc (${s.cosmology.split(':')[0]})`);
-  out.push(`SFR = ${num(s.sfr_kennicutt98_msun_yr, 3)} ± ${num(s.sfr_kennicutt98_err_msun_yr, 3)} M☉/yr (Kennicutt 1998, ${s.imf.kennicutt98})`);
-  out.push(`SFR = ${num(s.sfr_ke12_msun_yr, 3)} ± ${num(s.sfr_ke12_err_msun_yr, 3)} M☉/yr (Kennicutt & Evans 2012, ${s.imf.ke12})`);
+  const sfrText = (v: number | null, err: number | null) => (s.upper_limit && v !== null ? `SFR < ${num(v, 3)} M☉/yr (upper limit: an AGN contributes to Hα)` : `SFR = ${num(v, 3)} ± ${num(err, 3)} M☉/yr`);
+  out.push(`${sfrText(s.sfr_kennicutt98_msun_yr, s.sfr_kennicutt98_err_msun_yr)} (Kennicutt 1998, ${s.imf.kennicutt98})`);
+  out.push(`${sfrText(s.sfr_ke12_msun_yr, s.sfr_ke12_err_msun_yr)} (Kennicutt & Evans 2012, ${s.imf.ke12})`);
   if (s.note) out.push(`note: ${s.note}`);
   out.push(`caveat: ${s.caveat}`);
   return `${out.join('\n')}\n`;
