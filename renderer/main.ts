@@ -113,7 +113,7 @@ const view: View = {
     renderCandidates(state, byId('candidates'), (i) => controller.tryCandidate(i), () => controller.act('remeasure'));
     decision.render(state);
     renderSaveState(state, byId('save-state'), byId('save-failure'), () => controller.retrySaves());
-    renderExport(state, byId('export'), (f) => void controller.exportAs(f));
+    renderExport(state, byId('export'), controller.unvettedNote(), (f) => void controller.exportAs(f));
     renderTab(state);
     renderOverlay(state);
   },

@@ -11,7 +11,7 @@ import { SpectrumCache } from './spectrum-cache.js';
 import { LatestOnly } from './debounce.js';
 import { SaveQueue } from '../state/save-queue.js';
 import { candidates, candidateTrial, lineTrial, noRedshiftTrial, nudgedTrial, openingGrade, openingTrial, parseTypedZ, typedTrial, verdictFor, type Decision } from '../state/decision.js';
-import { neighbour, nextFilter, nextPending, type WorklistFilter } from '../state/worklist-view.js';
+import { neighbour, nextFilter, nextPending, progress, type WorklistFilter } from '../state/worklist-view.js';
 import { featureCentre } from '../science/feature-centre.js';
 import { likelyLines } from '../science/line-pick.js';
 import { stepSmoothing, type SmoothingKernel } from '../plot/smoothing.js';
@@ -365,25 +365,40 @@ export class Controller {
   }
 
   async exportAs(format: ExportFormat): Promise<void> {
-    this.s.exportResult = { ok: true, text: `writing ${format.toUpperCase()}…` };
-    this.view.panels(this.s);
-    try {
-      const r = await this.api.exportCatalogue({ format });
-      this.s.exportResult = { ok: true, text: `${format.toUpperCase()}: ${r.rows} rows written to ${r.path}` };
-    } catch (err) {
-      this.s.exportResult = { ok: false, text: `${format.toUpperCase()} not written: ${(err as Error).message}` };
-    }
+    const r = await this.writeCatalogue(format);
+    this.s.exportResult = r.ok ? { ok: true, text: `${format.toUpperCase()}: ${r.rows} rows written to ${r.path}` } : r;
     this.view.panels(this.s);
   }
 
-  private async exportAll(): Promise<void> {
-    const done: string[] = [];
-    for (const f of ['csv', 'ecsv', 'fits'] as const) {
-      await this.exportAs(f);
-      done.push(this.s.exportResult?.text ?? '');
-    }
-    this.s.exportResult = { ok: !done.some((t) => t.includes('not written')), text: done.join(' · ') };
+  private async writeCatalogue(format: ExportFormat): Promise<{ ok: true; rows: number; path: string } | { ok: false; text: string }> {
+    this.s.exportResult = { ok: true, text: `writing ${format.toUpperCase()}…` };
     this.view.panels(this.s);
+    try {
+      return { ok: true, ...(await this.api.exportCatalogue({ format })) };
+    } catch (err) {
+      return { ok: false, text: `${format.toUpperCase()} not written: ${(err as Error).message}` };
+    }
+  }
+
+  /** All three formats; one line for the folder they went to, one per failure. */
+  private async exportAll(): Promise<void> {
+    const results = [];
+    for (const f of ['csv', 'ecsv', 'fits'] as const) results.push(await this.writeCatalogue(f));
+    const written = results.flatMap((r) => (r.ok ? [r] : []));
+    const failed = results.flatMap((r) => (r.ok ? [] : [r.text]));
+    const folder = (path: string) => path.slice(0, Math.max(path.lastIndexOf('/'), path.lastIndexOf('\\')) + 1);
+    const sameFolder = written.every((r) => folder(r.path) === folder(written[0].path));
+    const lines = written.length === 0 ? [] : sameFolder
+      ? [`${written[0].rows} rows written to ${folder(written[0].path)}: ${written.map((r) => r.path.slice(folder(r.path).length)).join(', ')}`]
+      : written.map((r) => `${r.rows} rows written to ${r.path}`);
+    this.s.exportResult = { ok: failed.length === 0, text: [...lines, ...failed].join('\n') };
+    this.view.panels(this.s);
+  }
+
+  /** What a catalogue written now holds that is not vetted, in one line (or '' when all are). */
+  unvettedNote(): string {
+    const { vetted, total } = progress(this.s.worklist?.items ?? []);
+    return vetted === total ? '' : `${total - vetted} of ${total} not vetted yet: their rows say pending, with no z`;
   }
 
   // ---- the view of the spectrum ------------------------------------------------------------

@@ -19,9 +19,15 @@ export function renderSaveState(state: AppState, line: HTMLElement, banner: HTML
   }
 }
 
-export function renderExport(state: AppState, box: HTMLElement, onExport: (f: ExportFormat) => void): void {
+export function renderExport(state: AppState, box: HTMLElement, unvetted: string, onExport: (f: ExportFormat) => void): void {
   fill(box,
-    el('div', {}, 'Export the catalogue ', el('kbd', {}, '⇧E')),
+    el('div', {}, 'Export the catalogue ', el('kbd', {}, '⇧E'), el('span', { class: 'muted' }, ' (all three)')),
     el('div', { class: 'buttons' }, ...(['csv', 'ecsv', 'fits'] as const).map((f) => el('button', { type: 'button', id: `export-${f}`, onclick: () => onExport(f) }, f.toUpperCase()))),
-    state.exportResult ? el('div', { class: `result${state.exportResult.ok ? '' : ' bad'}`, id: 'export-result' }, state.exportResult.text) : null);
+    state.exportResult ? el('div', { class: `result${state.exportResult.ok ? '' : ' bad'}`, id: 'export-result' }, ...breakablePath(state.exportResult.text)) : null,
+    state.exportResult?.ok && unvetted ? el('div', { class: 'caveat', id: 'export-unvetted' }, unvetted) : null);
+}
+
+/** Text with a line-break opportunity after each "/", so a long path wraps between folders. */
+function breakablePath(text: string): (string | HTMLElement)[] {
+  return text.split('/').flatMap((part, i) => (i === 0 ? [part] : [el('wbr'), `/${part}`]));
 }

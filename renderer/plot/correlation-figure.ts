@@ -22,13 +22,29 @@ export function curveAt(curve: CorrelationCurve, z: number): number | null {
   return curve.value[lo] + t * (curve.value[hi] - curve.value[lo]);
 }
 
+/** Two candidate numbers closer than this fraction of the z axis would overlap (about 3 characters on a 300 px plot). */
+const LABEL_CLASH_FRACTION = 0.04;
+
+/** Above or below its marker for each candidate's number: neighbours too close in z alternate. */
+export function labelSides(zs: readonly number[], zSpan: number): ('top center' | 'bottom center')[] {
+  const sides: ('top center' | 'bottom center')[] = zs.map(() => 'top center');
+  const order = zs.map((z, i) => ({ z, i })).sort((a, b) => a.z - b.z);
+  for (let k = 1; k < order.length; k++) {
+    const [prev, cur] = [order[k - 1], order[k]];
+    if (cur.z - prev.z < LABEL_CLASH_FRACTION * zSpan) sides[cur.i] = sides[prev.i] === 'top center' ? 'bottom center' : 'top center';
+  }
+  return sides;
+}
+
 export function buildCorrelationFigure(curve: CorrelationCurve, candidates: readonly Candidate[], trialZ: number | null, chosenIndex: number | null): { data: Data[]; layout: Partial<Layout> } {
   const own = candidates.map((c, i) => ({ c, i })).filter(({ c }) => c.template === curve.template);
   const other = candidates.map((c, i) => ({ c, i })).filter(({ c }) => c.template !== curve.template);
   const yOf = (c: Candidate) => curveAt(curve, c.z) ?? 0;
+  const sides = labelSides(candidates.map((c) => c.z), (curve.z[curve.z.length - 1] ?? 1) - (curve.z[0] ?? 0) || 1);
   const markerTrace = (list: { c: Candidate; i: number }[], hollow: boolean): Data => ({
     type: 'scatter', mode: 'text+markers', name: hollow ? 'candidates of other templates' : `candidates (${curve.template})`,
-    x: list.map(({ c }) => c.z), y: list.map(({ c }) => yOf(c)), text: list.map(({ i }) => String(i + 1)), textposition: 'top center',
+    x: list.map(({ c }) => c.z), y: list.map(({ c }) => yOf(c)), text: list.map(({ i }) => String(i + 1)), // plotly takes one position per point (arrayOk), which its types do not say.
+    textposition: list.map(({ i }) => sides[i]) as unknown as 'top center',
     customdata: list.map(({ i }) => i),
     textfont: { color: THEME.text, size: 13 },
     marker: { size: list.map(({ i }) => (i === chosenIndex ? 14 : 10)), symbol: hollow ? 'circle-open' : 'circle', color: THEME.template, line: { color: THEME.template, width: 2 } },

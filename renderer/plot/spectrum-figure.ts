@@ -105,7 +105,7 @@ export function buildSpectrumFigure(input: SpectrumFigureInput): SpectrumFigure 
     { type: 'scatter', mode: 'lines', x, y: upper, line: { width: 0 }, fill: 'tonexty', fillcolor: THEME.errorBand, hoverinfo: hover, name: '1σ error', showlegend: true },
     {
       type: 'scatter', mode: 'lines', x, y: flux, name: input.smoothing.widthPx > 1 ? `flux (${input.smoothing.kernel} ${input.smoothing.widthPx} px)` : 'flux',
-      line: { color: THEME.flux, width: 1.2 }, hovertemplate: '%{x:.1f} Å<br>%{y:.4g}<extra></extra>',
+      line: { color: THEME.flux, width: 1.2 }, hovertemplate: `%{x:.1f} Å<br>%{y:.4g} ${input.fluxUnit.replace(/[%{}]/g, '')}<extra></extra>`,
     },
   ];
   if (input.showSky && arrays.sky) {

@@ -380,6 +380,10 @@ print(json.dumps({'rows': [{c: cell(r[c]) for c in ('spectrum', 'status', 'z')} 
     }
     const fv = fitsverify(paths.fits);
     expect(fv.status, fv.report).toBe(0);
+    // Shift+E writes all three to the same files and says how many rows are not vetted.
+    await press('Shift+E');
+    await page.waitForFunction(() => /rows written to .*catalogue\.csv, .*\.ecsv, .*\.fits/.test(document.getElementById('export-result')?.textContent ?? ''), undefined, { timeout: 30_000 });
+    expect(await page.locator('#export-unvetted').textContent()).toBe('9 of 13 not vetted yet: their rows say pending, with no z');
   });
 
   it('made no request outside 127.0.0.1 and threw no page error', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { buildCorrelationFigure, curveAt } from '../../renderer/plot/correlation-figure.js';
+import { buildCorrelationFigure, curveAt, labelSides } from '../../renderer/plot/correlation-figure.js';
 import { buildBptFigure, demarcationCurve } from '../../renderer/plot/bpt-figure.js';
 import { kauffmann03 } from '../../core/hosts/demarcation.js';
 import type { Candidate } from '../../core/redshift/types.js';
@@ -22,6 +22,10 @@ describe('correlation figure', () => {
     expect(other.text).toEqual(['2']);
     expect(other.marker.symbol).toBe('circle-open');
     expect(own.marker.symbol).toBe('circle');
+  });
+  it('puts the numbers of candidates close in z on alternate sides of their markers', () => {
+    // z span 5: 0.90 and 0.92 clash (0.4 % of the axis), 0.95 clashes with 0.92, 3.0 stands alone.
+    expect(labelSides([0.92, 3.0, 0.9, 0.95], 5)).toEqual(['bottom center', 'top center', 'top center', 'top center']);
   });
 });
 
