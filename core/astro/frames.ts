@@ -104,7 +104,7 @@ function decideFrame(input: FrameInput): FrameCore {
   const site = chooseSite(input);
   const missing = [
     'missing' in time ? time.missing : null,
-    hasTarget ? null : 'no target RA/Dec',
+    hasTarget ? null : meta.positionWarning ? `no target RA/Dec (${meta.positionWarning})` : 'no target RA/Dec',
     site ? null : 'no observing site',
   ].filter((m): m is string => m !== null);
   if ('missing' in time || !hasTarget || !site) {

@@ -96,7 +96,12 @@ export function mjdFromIsoUtc(text: string): number {
   const daysInMonth = mjdFromCalendar(month === 12 ? year + 1 : year, (month % 12) + 1, 1) - mjdFromCalendar(year, month, 1);
   if (month < 1 || month > 12 || day < 1 || day > daysInMonth) throw new RangeError(`"${text}": no such calendar date`);
   if (hour > 23 || minute > 59 || second >= 61) throw new RangeError(`"${text}": time of day out of range`);
-  return mjdFromCalendar(year, month, day) + (hour * 3600 + minute * 60 + second) / 86400;
+  const mjd0 = mjdFromCalendar(year, month, day);
+  // Second 60 exists only in the last minute of a day that ends with a leap second.
+  if (second >= 60 && !(hour === 23 && minute === 59 && LEAP_STEPS_MJD.some(([mjd]) => mjd === mjd0 + 1))) {
+    throw new RangeError(`"${text}": second 60 exists only at 23:59 on a day that ends with a leap second (IERS Bulletin C), and this one does not`);
+  }
+  return mjd0 + (hour * 3600 + minute * 60 + second) / 86400;
 }
 
 /** ISO 8601 UTC text (millisecond precision, trailing Z) from a UTC MJD. */

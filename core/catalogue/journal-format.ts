@@ -28,6 +28,11 @@ export function verdictProblem(v: unknown): string | null {
   if (!oneOf(VERDICT_STATUSES, o.status)) return `status must be one of ${VERDICT_STATUSES.join(', ')}`;
   if (!nullableNumber(o.z)) return 'z must be a number or null';
   if (!nullableNumber(o.zErr)) return 'zErr must be a number or null';
+  // A redshift is above −1 (λ_obs > 0) and an uncertainty is not negative.
+  if (typeof o.z === 'number' && !(o.z > -1)) return `z must be above −1, not ${o.z}`;
+  if (typeof o.zErr === 'number' && !(o.zErr >= 0)) return `zErr must not be negative, not ${o.zErr}`;
+  if ((o.status === 'accepted' || o.status === 'revised') && o.z === null) return `status "${o.status}" needs a z`;
+  if (o.status === 'no-redshift' && o.z !== null) return 'status "no-redshift" carries no z';
   if (!(o.confidence === null || oneOf(CONFIDENCES, o.confidence))) return `confidence must be one of ${CONFIDENCES.join(', ')} or null`;
   if (!oneOf(OBJECT_CLASSES, o.objectClass)) return `objectClass must be one of ${OBJECT_CLASSES.join(', ')}`;
   if (!(o.template === null || typeof o.template === 'string')) return 'template must be a string or null';

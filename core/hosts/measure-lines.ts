@@ -78,6 +78,16 @@ export const STELLAR_ABSORPTION_METHOD =
   'where a broad component is fitted instead.';
 
 export const DETECTION_SN = 3;
+
+/**
+ * The widest instrumental FWHM the line fit can work with at z, observed Å: a third of the
+ * narrowest fit window (common practice, no source: a line needs continuum on both sides).
+ */
+export function maxInstrumentalFwhmAngstrom(z: number): { fwhmAngstrom: number; window: string } {
+  const narrowest = [...LINE_GROUPS].sort((a, b) => (a.windowRestAngstrom[1] - a.windowRestAngstrom[0]) - (b.windowRestAngstrom[1] - b.windowRestAngstrom[0]))[0];
+  const [lo, hi] = narrowest.windowRestAngstrom;
+  return { fwhmAngstrom: ((hi - lo) * (1 + z)) / 3, window: `${narrowest.name}, ${hi - lo} Å rest` };
+}
 const SIGMA_PER_FWHM = 2 * Math.sqrt(2 * Math.log(2));
 const OTHER_LINE_MASK_REST_ANGSTROM = 8;
 const NARROW_SIGMA_KM_S: [number, number] = [10, 400];

@@ -18,6 +18,10 @@ export interface CatalogueExport {
   vetted: number;
   pending: number;
   unreadable: number;
+  /** Spectra whose file could not be read (their rows give the reason). */
+  unreadableSpectra: string[];
+  /** Spectra the journal has a verdict for that are no longer in the worklist (no row). */
+  notInWorklist: string[];
 }
 
 export interface ExportOptions {
@@ -60,11 +64,15 @@ export async function exportCatalogue(worklist: Worklist, format: CatalogueForma
   const table = { ...buildCatalogue(sources, meta, options.columns ?? EXPORT_COLUMNS), comments: [...DERIVED_COMMENTS] };
   await writeFileAtomic(outPath, serialiseTable(table, format));
   const vetted = sources.filter((s) => s.verdict && s.verdict.status !== 'pending').length;
+  const listed = new Set(sources.map((s) => s.spectrum));
+  const notInWorklist = [...worklist.journal.current()].filter(([spectrum, v]) => !listed.has(spectrum) && v.status !== 'pending').map(([spectrum]) => spectrum);
   return {
     path: outPath,
     rows: sources.length,
     vetted,
     pending: sources.length - vetted,
     unreadable: sources.filter((s) => s.readProblem !== null).length,
+    unreadableSpectra: sources.filter((s) => s.readProblem !== null).map((s) => s.spectrum),
+    notInWorklist,
   };
 }

@@ -87,6 +87,9 @@ export function preprocess(spectrum: Spectrum, opts: PreprocessOptions): Prepare
   for (let i = 0; i < good.length; i++) if (good[i]) { if (first < 0) first = i; last = i; nGoodNative++; }
   if (nGoodNative < 20) throw new UnusableSpectrumError(`only ${nGoodNative} usable ${nGoodNative === 1 ? 'pixel' : 'pixels'} outside the masks (the redshift search needs at least 20)`);
   if (!(waveAngstrom[first] > 0)) throw new UnusableSpectrumError('wavelengths must be positive');
+  let fluxMin = Infinity, fluxMax = -Infinity;
+  for (let i = first; i <= last; i++) if (good[i]) { fluxMin = Math.min(fluxMin, flux[i]); fluxMax = Math.max(fluxMax, flux[i]); }
+  if (fluxMin === fluxMax) throw new UnusableSpectrumError(`the flux is ${fluxMin} at every usable pixel: there is no feature to measure a redshift from`);
   const step = gridStepFor(waveAngstrom.subarray(first, last + 1));
   const start = Math.ceil(Math.log(waveAngstrom[first]) / step);
   const grid: LogGrid = { step, start, length: Math.floor(Math.log(waveAngstrom[last]) / step) - start + 1 };

@@ -79,7 +79,7 @@ export function finishSpectrum(draft: SpectrumDraft, fileName: string, override?
       mediumReason: medium.reason,
       dispersion: draft.dispersion,
       errorKind: draft.errorKind,
-      waveUnitInFile: draft.waveUnit.assumed ? `${draft.waveUnit.name} (assumed from the values)` : draft.waveUnit.name,
+      waveUnitInFile: draft.waveUnit.assumed ? `${draft.waveUnit.name} (assumed from the values${draft.waveUnit.doubt ? `; ${draft.waveUnit.doubt}` : ''})` : draft.waveUnit.name,
       hasMask: draft.mask !== undefined,
       hasSky: draft.sky !== undefined,
       flipped,

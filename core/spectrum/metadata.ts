@@ -29,17 +29,24 @@ export function metadataOf(k: Keywords, surveyFrame?: FrameDecision): SpectrumMe
   const meta: SpectrumMeta = { ...velocityFrameOf(k, surveyFrame) };
   const object = firstString(k, ['OBJECT', 'OBJNAME', 'OBJ_NAME', 'TARGNAME'])?.value;
   if (object) meta.object = object;
+  let refused: string | null = null;
   for (const [raKey, decKey] of POSITION_KEYS) {
+    const raValue = k.value(raKey);
+    const decValue = k.value(decKey);
+    if (raValue === undefined && decValue === undefined) continue;
     // Sexagesimal RA strings count hours; plain numbers are degrees.
-    const ra = angleDeg(k.value(raKey), true);
-    const dec = angleDeg(k.value(decKey), false);
+    const ra = angleDeg(raValue, true);
+    const dec = angleDeg(decValue, false);
     // Exactly (0, 0) is a placeholder (e.g. GALAH solar spectra), not a position.
-    if (ra !== undefined && dec !== undefined && ra >= 0 && ra < 360 && Math.abs(dec) <= 90 && (ra !== 0 || dec !== 0)) {
+    if (ra !== undefined && dec !== undefined && ra >= 0 && ra < 360 && Math.abs(dec) <= 90) {
+      if (ra === 0 && dec === 0) continue;
       meta.raDeg = ra;
       meta.decDeg = dec;
       break;
     }
+    refused ??= `${raKey} = ${JSON.stringify(raValue ?? null)}, ${decKey} = ${JSON.stringify(decValue ?? null)} is not a sky position (RA 0–360° or 0–24 h, Dec −90…+90°): ignored`;
   }
+  if (meta.raDeg === undefined && refused) meta.positionWarning = refused;
   const time = observationTime(k);
   if (time) Object.assign(meta, time);
   const exposure = firstNumber(k, ['EXPTIME', 'EXPOSURE', 'EXPOSED', 'TEXPTIME', 'ITIME']);

@@ -4,12 +4,15 @@
  * (FITS practice, e.g. the NOAO keyword dictionary), declinations in degrees.
  */
 
+import { parseDecimal } from '../util/decimal.js';
+
 /** Degrees from a header value; `hours` when a sexagesimal string counts hours (RA). */
 export function angleDeg(value: string | number | boolean | null | undefined, hours: boolean): number | undefined {
   if (typeof value === 'number') return Number.isFinite(value) ? value : undefined;
   if (typeof value !== 'string') return undefined;
   const s = value.trim();
-  if (/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(s)) return Number(s);
+  const decimal = parseDecimal(s);
+  if (decimal !== null) return decimal;
   const m = /^([+-]?)\s*(\d{1,3})[\s:hd°]+(\d{1,2})[\s:m']+(\d{1,2}(?:\.\d*)?)\s*(s|")?$/i.exec(s);
   if (!m) return undefined;
   const [, sign, a, b, c] = m;

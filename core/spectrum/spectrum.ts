@@ -35,6 +35,8 @@ export interface SpectrumMeta {
   object?: string;
   raDeg?: number;
   decDeg?: number;
+  /** Set when the header has position keywords that are not a sky position (and none that is). */
+  positionWarning?: string;
   /** Start of the observation, UTC, ISO 8601. */
   dateObsUtc?: string;
   /** Start of the observation as MJD (UTC). */

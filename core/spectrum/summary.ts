@@ -34,6 +34,8 @@ export interface SpectrumSummary {
   object: string | null;
   ra_deg: number | null;
   dec_deg: number | null;
+  /** Position keywords present but not a sky position: which, and that they were ignored. */
+  position_warning: string | null;
   date_obs_utc: string | null;
   mjd_obs: number | null;
   /** Header keyword(s) the observation time came from. */
@@ -89,6 +91,7 @@ export function summariseSpectrum(s: Spectrum): SpectrumSummary {
     object: m.object ?? null,
     ra_deg: m.raDeg ?? null,
     dec_deg: m.decDeg ?? null,
+    position_warning: m.positionWarning ?? null,
     date_obs_utc: m.dateObsUtc ?? null,
     mjd_obs: m.mjdObs ?? null,
     obs_time_from: m.obsTimeFrom ?? null,

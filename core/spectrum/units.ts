@@ -9,6 +9,8 @@ export interface WaveUnit {
   toAngstrom: number;
   /** True when the file named no unit and zvet inferred it from the values. */
   assumed: boolean;
+  /** When the values would fit another unit as well: which, and how to say so in the file. */
+  doubt?: string;
 }
 
 const UNITS: Array<[RegExp, string, number]> = [
@@ -37,5 +39,7 @@ export function guessWaveUnit(wave: ArrayLike<number>): WaveUnit {
   for (let i = 0; i < wave.length; i++) if (Math.abs(wave[i]) > max) max = Math.abs(wave[i]);
   if (max > 0 && max < 1e-4) return { name: 'm', toAngstrom: 1e10, assumed: true };
   if (max > 0 && max < 100) return { name: 'µm', toAngstrom: 1e4, assumed: true };
+  // An optical spectrum in nm ends between about 300 and 2500; in Å, only an ultraviolet one does.
+  if (max >= 300 && max < 2500) return { name: 'Å', toAngstrom: 1, assumed: true, doubt: `the largest wavelength, ${max}, would also be nm; if so, name the unit in the file, as in wavelength[nm]` };
   return { name: 'Å', toAngstrom: 1, assumed: true };
 }

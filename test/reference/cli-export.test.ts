@@ -25,6 +25,8 @@ const journal = [
   '{"v":1,"kind":"verdict","verdict":{"spectrum":"KRT-26-0012.fits","hdu":0,"status":"accepted","z":0.9,"zErr":0.001,"confidence":"tentative","objectClass":"galaxy","template":"passive","note":"","time":"2026-03-14T04:40:00.000Z","user":"observer"}}',
   '{"v":1,"kind":"undo","spectrum":"KRT-26-0012.fits","time":"2026-03-14T04:40:05.000Z"}',
   '{"v":1,"kind":"verdict","verdict":{"spectrum":"KRT-26-0021.fits","hdu":0,"status":"no-redshift","z":null,"zErr":null,"confidence":null,"objectClass":"unknown","template":null,"note":"S/N too low","time":"2026-03-14T08:30:00.000Z","user":"observer"}}',
+  // A spectrum that was moved out of the folder after it was vetted.
+  '{"v":1,"kind":"verdict","verdict":{"spectrum":"KRT-26-0099.fits","hdu":0,"status":"accepted","z":0.3,"zErr":0.0002,"confidence":"secure","objectClass":"galaxy","template":"passive","note":"","time":"2026-03-14T08:40:00.000Z","user":"observer"}}',
   '{"v":1,"kind":"verdict","verdict":{"spectrum":"KRT-26-0016.fi',
 ].join('\n');
 writeFileSync(join(night, 'kestrel-2026-03-14.verdicts.jsonl'), journal);
@@ -38,7 +40,10 @@ describe('zvet export on the demo worklist', () => {
   it.each(['csv', 'ecsv', 'fits'] as const)('writes the %s catalogue with every spectrum and the verdicts in force', (format) => {
     const out = join(base, `night.${format}`);
     const r = zvet('export', night, '--format', format, '--out', out);
-    expect(r.stderr).toMatch(/^zvet: warning: .*kestrel-2026-03-14\.verdicts\.jsonl: line 7 \(the last\) is incomplete/);
+    expect(r.stderr).toMatch(/^zvet: warning: .*kestrel-2026-03-14\.verdicts\.jsonl: line 8 \(the last\) is incomplete/);
+    // Nothing is left out without a word: the unreadable file and the verdict without a file are named.
+    expect(r.stderr).toContain('zvet: warning: KRT-26-0023_truncated.fits could not be read: its row gives the reason (read_problem)\n');
+    expect(r.stderr).toContain('zvet: warning: the journal has verdicts for KRT-26-0099.fits, no longer in the worklist: left out of the catalogue (the journal keeps them)\n');
     expect(r.status).toBe(0);
     expect(r.stdout).toBe(`wrote 13 rows to ${out} (${format}): 3 vetted, 10 pending, 1 unreadable\n`);
     const { rows, units } = readTableWithAstropy(out, ({ csv: 'ascii.csv', ecsv: 'ascii.ecsv', fits: 'fits' } as const)[format]);

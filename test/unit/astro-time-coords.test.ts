@@ -24,6 +24,13 @@ describe('calendar and MJD', () => {
     expect(() => mjdFromIsoUtc('2026-03-14T05:00:00+02:00')).toThrow(/time zones/);
   });
 
+  it('takes second 60 only in the last minute of a day that ends with a leap second (IERS Bulletin C)', () => {
+    // 2016 December 31 and 2015 June 30 ended with leap seconds; 2026 March 14 and 2017 December 31 did not.
+    expect(mjdFromIsoUtc('2016-12-31T23:59:60.5')).toBeCloseTo(mjdFromCalendar(2016, 12, 31) + 86400.5 / 86400, 12);
+    expect(() => mjdFromIsoUtc('2015-06-30T23:59:60')).not.toThrow();
+    for (const text of ['2026-03-14T05:12:60', '2017-12-31T23:59:60', '2016-12-31T22:59:60']) expect(() => mjdFromIsoUtc(text), text).toThrow(/second 60/);
+  });
+
   it('TT = UTC + 37 s + 32.184 s after 2017 (IERS Bulletin C)', () => {
     const mjd = mjdFromIsoUtc('2026-03-14T05:00:00');
     expect(taiMinusUtcS(mjd)).toBe(37);

@@ -44,6 +44,16 @@ describe('zvet cosmo', () => {
     expect(r.stdout).toMatch(/source: Planck 2018/);
     // ΩΛ = 1 − 0.3111 printed as the number it is, not its binary rounding (0.6889000000000001).
     expect(r.stdout.split('\n')[0]).toBe('model planck18: H0 = 67.66 km/s/Mpc, Ωm = 0.3111, ΩΛ = 0.6889, Ωk = 0');
+    expect(JSON.parse(zvet('cosmo', '0.1', '--json').stdout)[0].model.ol).toBe(0.6889);
+  });
+
+  it('takes redshifts written in decimal only', () => {
+    for (const bad of ['0x10', '0b1', 'Infinity', '']) {
+      const r = zvet('cosmo', bad);
+      expect(r.status, bad).toBe(2);
+      expect(r.stderr).toContain('is not a number');
+    }
+    expect(JSON.parse(zvet('cosmo', '1e-1', '--json').stdout)[0].z).toBe(0.1);
   });
 });
 
@@ -74,6 +84,8 @@ describe('zvet bary', () => {
     [['--ra', '1', '--dec', '1', '--utc', '2026-03-14T05:00:00', '--site', 'atlantis'], /--site: no site "atlantis"/],
     [['--ra', '1', '--dec', '1', '--utc', '2026-03-14T05:00:00', '--site', 'kestrel-ridge', '--lat', '3'], /either --site or --lat/],
     [['--ra', '1', '--dec', '1', '--utc', '2026-03-14T05:00:00', '--lat', 'north', '--lon', '3'], /--lat: "north" is not a number/],
+    [['--ra', '1', '--dec', '1', '--utc', '2026-03-14T05:12:60', '--site', 'kestrel-ridge'], /--utc: .*second 60 exists only/],
+    [['--ra', '1', '--dec', '1', '--utc', '2026-03-14T05:00:00', '--lat', '0x10', '--lon', '3'], /--lat: "0x10" is not a number/],
   ])('usage mistake %j → one line, exit 2', (args, message) => {
     const r = zvet('bary', ...args);
     expect(r.status).toBe(2);

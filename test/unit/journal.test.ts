@@ -86,6 +86,25 @@ describe('journal format', () => {
     expect(r.warnings).toEqual(['j: line 2 cannot be read and was skipped (not valid JSON)']);
   });
 
+  it('skips a hand-edited line whose z or σz cannot be, naming line and reason', () => {
+    const record = (v: object) => `${JSON.stringify({ v: 1, kind: 'verdict', verdict: v })}\n`;
+    const text = [
+      record(verdict('a.fits', -1.5)),
+      record({ ...verdict('b.fits', 0.2), zErr: -1e-4 }),
+      record({ ...verdict('c.fits', 0.3), z: null }),
+      record({ ...verdict('d.fits', null), z: 0.4 }),
+      serialiseVerdictRecord(verdict('e.fits', 0.5)),
+    ].join('');
+    const r = replayJournal(text, 'j');
+    expect(zOf(r.state.current())).toEqual({ 'e.fits': 0.5 });
+    expect(r.warnings.map((w) => w.replace(/^j: line (\d) .*\((.*)\)$/, '$1: $2'))).toEqual([
+      '1: verdict: z must be above −1, not -1.5',
+      '2: verdict: zErr must not be negative, not -0.0001',
+      '3: verdict: status "accepted" needs a z',
+      '4: verdict: status "no-redshift" carries no z',
+    ]);
+  });
+
   it('skips a line from a newer format version with a warning', () => {
     const r = replayJournal('{"v":2,"kind":"verdict","verdict":{}}\n', 'j');
     expect(r.warnings[0]).toMatch(/line 1 .*format version 2 is newer/);

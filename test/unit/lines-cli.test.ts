@@ -2,7 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
-import { OPEN_SPECTRA, ZVET_BIN } from '../support/paths.js';
+import { DEMO_WORKLIST, OPEN_SPECTRA, ZVET_BIN } from '../support/paths.js';
 
 const run = (...args: string[]) => spawnSync(process.execPath, [ZVET_BIN, ...args], { encoding: 'utf8' });
 const SF = join(OPEN_SPECTRA, 'sdss', 'spec-0395-51783-0525.fits');
@@ -35,5 +35,19 @@ describe('zvet lines', () => {
     const missing = run('lines', join(OPEN_SPECTRA, 'no-such-file.fits'), '--z', '0.1');
     expect(missing.status).toBe(2);
     expect(missing.stderr).toMatch(/no-such-file\.fits/);
+  });
+
+  it('refuses an instrumental FWHM wider than the fit windows (1000 Å made lines 1000 Å wide, EW limits negative)', () => {
+    const wide = run('lines', SF, '--z', '0.0178204', '--instrumental-fwhm', '1000');
+    expect(wide.status).toBe(2);
+    expect(wide.stderr).toBe('zvet: --instrumental-fwhm: 1000 Å is wider than the line fit can work with at z = 0.0178204 (at most 30.5 Å, a third of the narrowest fit window: [O I] 6302, 90 Å rest)\n');
+    expect(run('lines', SF, '--z', '0.0178204', '--instrumental-fwhm', '3', '--json').status).toBe(0);
+  });
+
+  it('prints an AGN host\'s SFR as an upper limit', () => {
+    const r = run('lines', join(DEMO_WORKLIST, 'KRT-26-0014.fits'), '--z', '0.08762');
+    expect(r.status, r.stderr).toBe(0);
+    expect(r.stdout).toMatch(/SFR < [\d.]+ M☉\/yr \(upper limit: an AGN contributes to Hα\) \(Kennicutt 1998/);
+    expect(r.stdout).not.toMatch(/SFR = /);
   });
 });

@@ -3,7 +3,7 @@
 // once; an output that cannot be written, and more workers than make sense, are usage errors
 // (exit 2) named in one line before any work.
 import { spawnSync } from 'node:child_process';
-import { copyFileSync, mkdirSync, mkdtempSync, rmSync, symlinkSync } from 'node:fs';
+import { copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, symlinkSync } from 'node:fs';
 import { availableParallelism, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -63,6 +63,16 @@ describe('zvet measure paths and outputs', () => {
     const r = zvet(DEMO_WORKLIST, '--out', '/dev/full');
     expect(r.status).toBe(2);
     expect(r.stderr.trimEnd().split('\n').at(-1)).toBe('zvet: /dev/full: the disk is full');
+  });
+
+  it('takes the format from the --out name, and refuses a name of another format', () => {
+    const r = zvet(GOOD, '--out', join(dir, 'rows.xml'));
+    expect(r.status).toBe(2);
+    expect(r.stderr).toBe(`zvet: --out ${join(dir, 'rows.xml')}: zvet measure writes CSV or JSON Lines; name the file .csv or .jsonl, or give --format\n`);
+    expect(existsSync(join(dir, 'rows.xml'))).toBe(false);
+    expect(zvet(GOOD, '--out', join(dir, 'rows.ndjson')).status).toBe(0);
+    expect(JSON.parse(readFileSync(join(dir, 'rows.ndjson'), 'utf8').split('\n')[0]).status).toBe('ok');
+    expect(zvet(GOOD, '--out', join(dir, 'rows.xml'), '--format', 'csv').status).toBe(0);
   });
 
   it(`refuses more than ${MAX_JOBS_PER_CORE} workers per core (exit 2)`, () => {

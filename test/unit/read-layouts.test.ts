@@ -176,6 +176,16 @@ describe('metadata keywords', () => {
     expect(m.decDeg).toBeCloseTo(-(1 + 2 / 60 + 28.7 / 3600), 9);
     expect(m.object).toBe('KRT-26-0017');
   });
+  it('says so when the position keywords are not a sky position, and takes the next pair that is', () => {
+    const bad = read([card('RA', '99:99:99'), card('DEC', 95)]);
+    expect(bad.raDeg).toBeUndefined();
+    expect(bad.positionWarning).toBe('RA = "99:99:99", DEC = 95 is not a sky position (RA 0–360° or 0–24 h, Dec −90…+90°): ignored');
+    const next = read([card('RA', '99:99:99'), card('DEC', 95), card('OBJCTRA', '09:43:44.6'), card('OBJCTDEC', '-01:02:28.7')]);
+    expect(next.raDeg).toBeCloseTo((9 + 43 / 60 + 44.6 / 3600) * 15, 9);
+    expect(next.positionWarning).toBeUndefined();
+    // (0, 0) is a placeholder, not a refused position.
+    expect(read([card('RA', 0), card('DEC', 0)]).positionWarning).toBeUndefined();
+  });
   it('DATE-OBS + TIME-OBS, MJD-OBS and JD give both ISO UTC and MJD', () => {
     expect(read([card('DATE-OBS', '2026-03-14'), card('TIME-OBS', '03:12:30.5')])).toMatchObject({ dateObsUtc: '2026-03-14T03:12:30.500Z' });
     // MJD 61113.0 = 2026-03-14T00:00 UTC (MJD 40587 = 1970-01-01).

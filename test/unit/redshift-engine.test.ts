@@ -341,6 +341,14 @@ describe('measureRedshift on synthetic spectra', () => {
     // Normalised over the overlap, noise peaks land anywhere: not mostly at the range ends.
     expect(atEdge).toBeLessThanOrEqual(4);
   });
+
+  it('refuses a flux that is the same at every usable pixel (a blank or zeroed file), saying so', () => {
+    for (const value of [0, 3.5]) {
+      const s = synthetic(null, 1, 7);
+      s.flux.fill(value);
+      expect(() => measureRedshift(s)).toThrow(`the flux is ${value} at every usable pixel: there is no feature to measure a redshift from`);
+    }
+  });
 });
 
 /** χ² of a model against a spectrum over the pixels where the model is defined, and their number. */

@@ -43,6 +43,12 @@ describe('text spectra', () => {
     expect(s.provenance.waveUnitInFile).toBe('µm (assumed from the values)');
     expect(s.waveAngstrom[0]).toBeCloseTo(airToVacuum(11000), 6);
   });
+  it('unlabelled wavelengths that would also be nm are read as Å, and the doubt is said', () => {
+    const s = readSpectrum(enc(rows(12, (i) => `${650 + i} 1`)), 'nm.txt');
+    expect(s.provenance.waveUnitInFile).toBe('Å (assumed from the values; the largest wavelength, 661, would also be nm; if so, name the unit in the file, as in wavelength[nm])');
+    expect(readSpectrum(enc(rows(12, (i) => `${6500 + i} 1`)), 'a.txt').provenance.waveUnitInFile).toBe('Å (assumed from the values)');
+    expect(readSpectrum(enc(`wavelength[nm] flux\n${rows(12, (i) => `${650 + i} 1`)}`), 'n.txt').provenance.waveUnitInFile).toBe('nm');
+  });
   it('a column named wave_vac says vacuum; NaN flux pixels are masked', () => {
     const s = readSpectrum(enc(`wave_vac flux\n${rows(12, (i) => `${5000 + i} ${i === 2 ? 'nan' : 1}`)}`), 'v.txt');
     expect(s.provenance.medium).toBe('vacuum');

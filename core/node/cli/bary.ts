@@ -79,7 +79,7 @@ function siteFromOptions(opts: BaryOptions): ResolvedSite {
   }
   if (opts.lat === undefined || opts.lon === undefined) throw new UsageError('the site is missing: give --site NAME, or --lat and --lon (and --height)');
   const site = {
-    name: 'site given by --lat/--lon/--height',
+    name: 'as given by --lat/--lon/--height',
     latitudeDeg: numberOption('--lat', opts.lat),
     longitudeDeg: numberOption('--lon', opts.lon),
     heightM: opts.height === undefined ? 0 : numberOption('--height', opts.height),

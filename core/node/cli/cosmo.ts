@@ -60,6 +60,11 @@ export function modelFromOptions(opts: Pick<CosmoOptions, 'h0' | 'om' | 'ol' | '
   return { name: 'custom', h0, omegaM, omegaL, source: `user-set ${set}; other values from ${preset.name} (${preset.source})` };
 }
 
+/** A parameter as it was defined: ΩΛ = 1 − 0.3111 is 0.6889, not its binary rounding 0.6889000000000001. */
+function asDefined(x: number): number {
+  return Number(x.toPrecision(12));
+}
+
 function jsonRow(d: Distances, model: CosmologyModel) {
   return {
     z: d.z,
@@ -72,7 +77,7 @@ function jsonRow(d: Distances, model: CosmologyModel) {
     lookback_gyr: d.lookbackGyr,
     age_gyr: Number.isFinite(d.ageGyr) ? d.ageGyr : null,
     kpc_per_arcsec: d.kpcPerArcsec,
-    model: { name: model.name, h0: model.h0, om: model.omegaM, ol: model.omegaL, source: model.source },
+    model: { name: model.name, h0: model.h0, om: model.omegaM, ol: asDefined(model.omegaL), source: model.source },
   };
 }
 
@@ -87,7 +92,7 @@ function formatTable(rows: Distances[], model: CosmologyModel): string {
   const line = (cells: string[]) => cells.map((c, i) => c.padStart(widths[i])).join('  ');
   const ok = 1 - model.omegaM - model.omegaL;
   return [
-    `model ${model.name}: H0 = ${model.h0} km/s/Mpc, Ωm = ${model.omegaM}, ΩΛ = ${Number(model.omegaL.toPrecision(12))}, Ωk = ${Math.abs(ok) < 1e-12 ? 0 : Number(ok.toPrecision(6))}`,
+    `model ${model.name}: H0 = ${model.h0} km/s/Mpc, Ωm = ${model.omegaM}, ΩΛ = ${asDefined(model.omegaL)}, Ωk = ${Math.abs(ok) < 1e-12 ? 0 : Number(ok.toPrecision(6))}`,
     `source: ${model.source}`,
     line(header),
     ...body.map(line),

@@ -31,6 +31,11 @@ function chooseFormat(opts: ExportOptions): CatalogueFormat {
   return format as CatalogueFormat;
 }
 
+/** "a.fits" or "3 spectra (a.fits, b.fits, c.fits)". */
+function listOf(spectra: string[]): string {
+  return spectra.length === 1 ? spectra[0] : `${spectra.length} spectra (${spectra.join(', ')})`;
+}
+
 export function registerExport(program: Command): void {
   withCosmologyOptions(program.command('export'))
     .description('write the catalogue of a worklist (verdicts and file metadata, one row per spectrum)')
@@ -46,5 +51,7 @@ export function registerExport(program: Command): void {
       for (const w of worklist.journal.warnings) process.stderr.write(`zvet: warning: ${w}\n`);
       const r = await exportCatalogue(worklist, format, opts.out, { cosmology, site });
       process.stdout.write(`wrote ${r.rows} rows to ${r.path} (${format}): ${r.vetted} vetted, ${r.pending} pending, ${r.unreadable} unreadable\n`);
+      if (r.unreadableSpectra.length) process.stderr.write(`zvet: warning: ${listOf(r.unreadableSpectra)} could not be read: ${r.unreadableSpectra.length === 1 ? 'its row gives' : 'their rows give'} the reason (read_problem)\n`);
+      if (r.notInWorklist.length) process.stderr.write(`zvet: warning: the journal has verdicts for ${listOf(r.notInWorklist)}, no longer in the worklist: left out of the catalogue (the journal keeps them)\n`);
     }));
 }

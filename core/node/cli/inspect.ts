@@ -9,6 +9,7 @@ import { pixelTable, summariseSpectrum, type SpectrumSummary } from '../../spect
 import { readSpectrumFile } from '../read-spectrum-file.js';
 import { runAction } from './run-action.js';
 import { UsageError } from './usage-error.js';
+import { parseDecimal } from '../../util/decimal.js';
 
 interface InspectOptions {
   hdu?: string;
@@ -45,8 +46,8 @@ export function registerInspect(program: Command): void {
 }
 
 function parseHdu(text: string): number {
-  const n = Number(text);
-  if (!Number.isInteger(n) || n < 0) throw new UsageError(`--hdu: "${text}" is not an HDU number (0 = primary)`);
+  const n = parseDecimal(text);
+  if (n === null || !Number.isInteger(n) || n < 0) throw new UsageError(`--hdu: "${text}" is not an HDU number (0 = primary)`);
   return n;
 }
 
@@ -76,7 +77,7 @@ export function formatSummary(s: SpectrumSummary): string {
     ['error given as', s.error_kind === 'none' ? 'none' : `${s.error_kind} (shown as 1σ)`],
     ['sky', s.has_sky ? 'yes' : 'no'],
     ['object', s.object ?? '—'],
-    ['RA, Dec', s.ra_deg === null || s.dec_deg === null ? '—' : `${s.ra_deg.toFixed(6)}°, ${s.dec_deg.toFixed(6)}°`],
+    ['RA, Dec', s.ra_deg === null || s.dec_deg === null ? (s.position_warning ? `—; WARNING: ${s.position_warning}` : '—') : `${s.ra_deg.toFixed(6)}°, ${s.dec_deg.toFixed(6)}°`],
     ['observed (UTC)', `${s.date_obs_utc === null ? '—' : `${s.date_obs_utc} (MJD ${fixed(s.mjd_obs, 5)}) from ${s.obs_time_from}`}${s.obs_time_warning ? `; WARNING: ${s.obs_time_warning}` : ''}`],
     ['exposure', fixed(s.exposure_s, 1, ' s')],
     ['site', site],

@@ -6,6 +6,7 @@
 import type { Command } from 'commander';
 import { analyseHost, type HostAnalysis } from '../../hosts/analyse.js';
 import type { AttenuationCurve } from '../../hosts/attenuation.js';
+import { maxInstrumentalFwhmAngstrom } from '../../hosts/measure-lines.js';
 import { readSpectrumFile } from '../read-spectrum-file.js';
 import { modelFromOptions } from './cosmo.js';
 import { numberOption } from './number-option.js';
@@ -41,6 +42,10 @@ export function registerLines(program: Command): void {
       const curve = (opts.curve ?? 'calzetti2000') as AttenuationCurve;
       if (!CURVES.includes(curve)) throw new UsageError(`--curve: no curve "${opts.curve}" (known: ${CURVES.join(', ')})`);
       const instrumentalFwhmAngstrom = opts.instrumentalFwhm === undefined ? undefined : numberOption('--instrumental-fwhm', opts.instrumentalFwhm, 0);
+      const widest = maxInstrumentalFwhmAngstrom(z);
+      if (instrumentalFwhmAngstrom !== undefined && instrumentalFwhmAngstrom > widest.fwhmAngstrom) {
+        throw new UsageError(`--instrumental-fwhm: ${opts.instrumentalFwhm} Å is wider than the line fit can work with at z = ${z} (at most ${widest.fwhmAngstrom.toFixed(1)} Å, a third of the narrowest fit window: ${widest.window})`);
+      }
       const cosmology = modelFromOptions({ preset: opts.preset });
       const spectrum = await readSpectrumFile(file, { hdu });
       const analysis = analyseHost(spectrum, z, { cosmology, attenuation: curve, instrumentalFwhmAngstrom });

@@ -27,6 +27,7 @@ import { modelFromOptions, withCosmologyOptions } from './cosmo.js';
 import { SITE_OPTION_HELP, siteOption } from './site-option.js';
 import { EXIT_OK, EXIT_SOME_FAILED, runAction } from './run-action.js';
 import { UsageError } from './usage-error.js';
+import { parseDecimal } from '../../util/decimal.js';
 
 interface MeasureCliOptions {
   out?: string;
@@ -54,7 +55,7 @@ export function registerMeasure(program: Command, columns: MeasureColumn[] = MEA
     .description('automatic redshift candidates for spectrum files and folders (suggestions until vetted)')
     .argument('<paths...>', 'spectrum files or folders (searched recursively)')
     .option('--out <file>', 'write the table here ("-" = standard output)', '-')
-    .option('--format <format>', 'csv or jsonl (default: from --out, else csv)')
+    .option('--format <format>', 'csv or jsonl (default: from the --out name, .jsonl/.ndjson or .csv; else csv)')
     .option('--jobs <n>', 'worker threads (default: all cores, one per 200 spectra in shorter batches)')
     .option('--templates <list>', 'comma-separated template names (default: all)')
     .option('--zmin <z>', 'lowest redshift searched by the galaxy and QSO templates; the star template (z = 0 ± 0.005, ±1500 km/s) is searched only when [zmin, zmax] includes 0, and is narrowed only by a bound inside ±0.005 on its own side of 0')
@@ -70,7 +71,7 @@ export function registerMeasure(program: Command, columns: MeasureColumn[] = MEA
 async function measure(paths: string[], opts: MeasureCliOptions, baseColumns: MeasureColumn[]): Promise<number> {
   const cosmology = modelFromOptions(opts);
   const columns = [...baseColumns, ...measureFrameColumns({ site: siteOption(opts.site), cosmology }), ...(opts.lines ? MEASURE_LINE_COLUMNS : [])];
-  const format = opts.format ?? (opts.out && opts.out.endsWith('.jsonl') ? 'jsonl' : 'csv');
+  const format = opts.format ?? formatFromOut(opts.out);
   if (format !== 'csv' && format !== 'jsonl') throw new UsageError(`--format: "${format}" is not csv or jsonl`);
   const jobs = opts.jobs === undefined ? undefined : positiveInt(opts.jobs, '--jobs');
   if (jobs !== undefined && jobs > maxJobs()) throw new UsageError(`--jobs: ${jobs} is more than ${maxJobs()} (${MAX_JOBS_PER_CORE} per core, ${availableParallelism()} cores here); workers beyond the cores only add memory`);
@@ -159,14 +160,23 @@ function closeOutput(stream: WriteStream): Promise<void> {
   });
 }
 
+/** The format a --out name asks for: .jsonl/.ndjson, .csv, or no extension (CSV); another extension is a usage error. */
+function formatFromOut(out: string | undefined): 'csv' | 'jsonl' {
+  if (!out || out === '-') return 'csv';
+  const ext = /\.([^./\\]+)$/.exec(out)?.[1]?.toLowerCase();
+  if (ext === undefined || ext === 'csv' || ext === 'txt') return 'csv';
+  if (ext === 'jsonl' || ext === 'ndjson') return 'jsonl';
+  throw new UsageError(`--out ${out}: zvet measure writes CSV or JSON Lines; name the file .csv or .jsonl, or give --format`);
+}
+
 function positiveInt(text: string, flag: string): number {
-  const n = Number(text);
-  if (!Number.isInteger(n) || n < 1) throw new UsageError(`${flag}: "${text}" is not a positive whole number`);
+  const n = parseDecimal(text);
+  if (n === null || !Number.isInteger(n) || n < 1) throw new UsageError(`${flag}: "${text}" is not a positive whole number`);
   return n;
 }
 
 function finite(text: string, flag: string): number {
-  const n = Number(text);
-  if (!Number.isFinite(n) || n <= -1) throw new UsageError(`${flag}: "${text}" is not a redshift (a number above −1)`);
+  const n = parseDecimal(text);
+  if (n === null || n <= -1) throw new UsageError(`${flag}: "${text}" is not a redshift (a number above −1)`);
   return n;
 }

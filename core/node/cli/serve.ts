@@ -12,6 +12,7 @@ import { createHostHandlers } from '../host/handlers.js';
 import { startHostServer } from '../host/http-server.js';
 import { runAction } from './run-action.js';
 import { UsageError } from './usage-error.js';
+import { parseDecimal } from '../../util/decimal.js';
 
 /** dist/renderer/, beside the bundled dist/cli.js. */
 function rendererRoot(): string {
@@ -19,8 +20,8 @@ function rendererRoot(): string {
 }
 
 function parsePort(text: string): number {
-  const port = Number(text);
-  if (!Number.isInteger(port) || port < 0 || port > 65535) throw new UsageError(`--port: "${text}" is not a port number (0–65535; 0 picks a free one)`);
+  const port = parseDecimal(text);
+  if (port === null || !Number.isInteger(port) || port < 0 || port > 65535) throw new UsageError(`--port: "${text}" is not a port number (0–65535; 0 picks a free one)`);
   return port;
 }
 
