@@ -6,6 +6,7 @@
 import type { SpectrumView, VerdictInput } from '../../core/api/host-api.js';
 import type { Confidence, ObjectClass, Verdict } from '../../core/catalogue/verdict.js';
 import type { Candidate, TemplateClass } from '../../core/redshift/types.js';
+import { parseDecimal } from '../../core/util/decimal.js';
 import { nudgeZ } from '../science/z-math.js';
 
 export type TrialSource = 'candidate' | 'typed' | 'line' | 'nudged' | 'saved' | 'none';
@@ -71,16 +72,14 @@ export function noRedshiftTrial(): Trial {
   return { z: null, zErr: null, template: null, candidateIndex: null, source: 'saved', detail: 'saved as no redshift', nudgedKmS: 0 };
 }
 
-/** Redshifts a person may type; Number() alone would also take "0x10" or "Infinity". */
+/** Redshifts a person may type. */
 const TYPED_Z_MIN = -0.01;
 const TYPED_Z_MAX = 12;
-const DECIMAL = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 
 /** A typed redshift, or why the text is not one. */
 export function parseTypedZ(text: string): number | { refused: string } {
-  const t = text.trim().replace(/^−/, '-');
-  const z = Number(t);
-  if (!DECIMAL.test(t) || z < TYPED_Z_MIN || z > TYPED_Z_MAX) return { refused: `"${text.trim()}" is not a redshift between −0.01 and 12` };
+  const z = parseDecimal(text.trim().replace(/^−/, '-'));
+  if (z === null || z < TYPED_Z_MIN || z > TYPED_Z_MAX) return { refused: `"${text.trim()}" is not a redshift between −0.01 and 12` };
   return z;
 }
 
