@@ -65,14 +65,15 @@ export function renderDerived(box: HTMLElement, live: LiveResult<FrameResult> | 
       ['mid-exposure', f.midExposureUtc ? `${f.midExposureUtc.replace('T', ' ').slice(0, 19)} UTC` : '—'],
     ]),
     !star && frameZ > CZ_IS_NOT_A_SPEED_ABOVE_Z ? el('p', { class: 'why', id: 'cz-note' }, 'cz is c·z, the redshift in km/s: at this z it is far from any speed (above z = 1 it exceeds c).') : null,
-    el('p', { class: 'why', id: 'frame-reason' }, `Correction applied: ${f.correction}. ${f.reason}`),
+    // The reason names the correction applied (or why none was), so it is shown alone.
+    el('p', { class: 'why', id: 'frame-reason' }, `${f.reason.charAt(0).toUpperCase()}${f.reason.slice(1)}.`),
     star ? el('p', { class: 'why', id: 'star-note' }, 'Class star: the redshift is a line-of-sight velocity (relativistic Doppler), not a distance, so no cosmological distances are given.') : distances(f, cosmology, onCosmology));
 }
 
 function distances(f: FrameResult, cosmology: string, onCosmology: (preset: string) => void): HTMLElement {
   const d = f.distances;
   return el('div', {},
-    el('h2', {}, `Distances (${cosmology}${f.distancesFrom ? `, from the ${f.distancesFrom} z` : ''})`),
+    el('h2', {}, `Distances (${cosmology}${f.distancesFrom ? `, from the ${f.distancesFrom === 'cmb' ? 'CMB-frame' : f.distancesFrom} z` : ''})`),
     cosmologyPicker(cosmology, onCosmology),
     d ? dl([
       ['comoving', fmtNum(d.comovingMpc, 1, 'Mpc')],

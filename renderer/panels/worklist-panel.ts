@@ -60,7 +60,11 @@ export function renderWorklist(state: AppState, parts: { filters: HTMLElement; i
   const saving = new Map(state.saves.map((q) => [q.input.id, q.state]));
   if (!wl) return openForm(state, parts.items, on.open);
   const shown = wl.items.filter((it) => passesFilter(it, state.filter));
-  fill(parts.items, ...(shown.length ? shown.map((it) => row(it, it.id === state.currentId, saving, on.pick)) : [el('li', { class: 'empty' }, `no spectra are ${state.filter}`)]));
+  // The spectrum in view stays in view when the filter leaves it out, and the list says so.
+  const hidden = state.currentId !== null && !shown.some((it) => it.id === state.currentId);
+  fill(parts.items,
+    hidden ? el('li', { class: 'empty', id: 'hidden-current' }, `${state.currentId}, in view, is not ${state.filter}: n and p move among the ${state.filter} ones`) : null,
+    ...(shown.length ? shown.map((it) => row(it, it.id === state.currentId, saving, on.pick)) : [el('li', { class: 'empty' }, `no spectra are ${state.filter}`)]));
   parts.items.querySelector('[aria-current="true"]')?.scrollIntoView({ block: 'nearest' });
   fill(parts.warnings, ...wl.warnings.map((w) => el('p', {}, `⚠ ${w}`)));
 }

@@ -123,7 +123,7 @@ export function buildSpectrumFigure(input: SpectrumFigureInput): SpectrumFigure 
   const annotations: Partial<Annotations>[] = [];
   for (const band of TELLURIC_BANDS) {
     shapes.push({ type: 'rect', xref: 'x', yref: 'paper', x0: band.loAngstrom, x1: band.hiAngstrom, y0: 0, y1: 1, fillcolor: THEME.telluric, line: { width: 0 }, layer: 'below' });
-    annotations.push({ x: (band.loAngstrom + band.hiAngstrom) / 2, xref: 'x', yref: 'paper', y: 0.5, text: band.name, textangle: '-90', showarrow: false, font: { size: 12, color: THEME.muted } });
+    annotations.push({ x: (band.loAngstrom + band.hiAngstrom) / 2, xref: 'x', yref: 'paper', y: 0.5, text: band.name, textangle: '-90', showarrow: false, font: { size: 12, color: THEME.muted }, bgcolor: 'rgba(20, 23, 28, 0.75)' });
   }
   for (const run of maskedRuns(wave, arrays.mask)) {
     shapes.push({ type: 'rect', xref: 'x', yref: 'paper', x0: run.loAngstrom, x1: run.hiAngstrom, y0: 0, y1: 1, fillcolor: THEME.masked, line: { width: 0 }, layer: 'below' });

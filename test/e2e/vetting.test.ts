@@ -315,6 +315,8 @@ describe('vetting in the window', () => {
     await press('f');
     await expect.poll(() => page.locator('#filters [aria-pressed="true"]').textContent()).toContain('secure');
     expect(await page.locator('#worklist-items li[data-id]').count()).toBe(1);
+    // The unreadable file stays in view, and the list says why it is not in it.
+    expect(await page.locator('#hidden-current').textContent()).toBe('KRT-26-0023_truncated.fits, in view, is not secure: n and p move among the secure ones');
     await shot('worklist-filtered');
     for (let i = 0; i < 4; i++) await press('f');
     await expect.poll(() => page.locator('#filters [aria-pressed="true"]').textContent()).toContain('all');
