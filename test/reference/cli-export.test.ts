@@ -4,7 +4,7 @@
 // and fitsverify read what it writes.
 import { spawnSync } from 'node:child_process';
 import { afterAll, describe, expect, it } from 'vitest';
-import { cpSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { cpSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { DEMO_WORKLIST, ZVET_BIN } from '../support/paths.js';
@@ -61,6 +61,22 @@ describe('zvet export on the demo worklist', () => {
     // Nothing but the catalogues was added to the worklist copy, and no temporary file stays.
     expect(readdirSync(base).filter((n) => n.includes('.tmp'))).toEqual([]);
     expect(readFileSync(join(night, 'kestrel-2026-03-14.verdicts.jsonl'), 'utf8')).toBe(journal);
+  });
+
+  it('refuses to write over the journal, a spectrum or anything but a plain file', () => {
+    const folderNamedCsv = join(base, 'a-folder.csv');
+    mkdirSync(folderNamedCsv);
+    for (const [out, why] of [
+      [join(night, 'kestrel-2026-03-14.verdicts.jsonl'), 'it would overwrite the journal of verdicts'],
+      [join(night, 'KRT-26-0011.fits'), 'it would overwrite a spectrum of the worklist'],
+      [folderNamedCsv, 'it is not a plain file'],
+    ]) {
+      const before = out.endsWith('.csv') ? null : readFileSync(out);
+      const r = zvet('export', night, '--format', 'csv', '--out', out);
+      expect(r.status, out).toBe(2);
+      expect(r.stderr.trimEnd().split('\n').at(-1)).toBe(`zvet: --out ${out}: ${why}`);
+      if (before) expect(readFileSync(out).equals(before)).toBe(true);
+    }
   });
 
   it('takes the format from the --out ending, and refuses what it cannot do with one line and exit 2', () => {

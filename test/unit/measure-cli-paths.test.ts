@@ -75,6 +75,29 @@ describe('zvet measure paths and outputs', () => {
     expect(zvet(GOOD, '--out', join(dir, 'rows.xml'), '--format', 'csv').status).toBe(0);
   });
 
+  it('never empties an input: --out that is an input is refused, an earlier output in a walked folder is left out', () => {
+    const night = join(dir, 'night-out');
+    mkdirSync(night);
+    copyFileSync(GOOD, join(night, 'KRT-26-0011.fits'));
+    copyFileSync(join(DEMO_WORKLIST, 'KRT-26-0018.csv'), join(night, 'KRT-26-0018.csv'));
+    const before = readFileSync(join(night, 'KRT-26-0018.csv'), 'utf8');
+    const clash = zvet(join(night, 'KRT-26-0011.fits'), join(night, 'KRT-26-0018.csv'), '--out', join(night, 'KRT-26-0018.csv'));
+    expect(clash.status).toBe(2);
+    expect(clash.stderr).toBe(`zvet: --out ${join(night, 'KRT-26-0018.csv')} is also an input: it would be emptied before it is read\n`);
+    expect(readFileSync(join(night, 'KRT-26-0018.csv'), 'utf8')).toBe(before);
+    // Run twice into the folder it walks: the second run does not measure the first one's rows.
+    for (let run = 0; run < 2; run++) expect(zvet(night, '--out', join(night, 'rows.csv')).status).toBe(0);
+    const rows = readFileSync(join(night, 'rows.csv'), 'utf8').trim().split('\n');
+    expect(rows).toHaveLength(3);
+    expect(rows.some((r) => r.includes('rows.csv'))).toBe(false);
+  });
+
+  it('stops quietly when the reader of its output stops early (| head)', () => {
+    const r = spawnSync('bash', ['-c', `"${process.execPath}" "${ZVET_BIN}" measure "${DEMO_WORKLIST}" --jobs 1 | head -c 10`], { encoding: 'utf8', timeout: 120_000 });
+    expect(r.stdout).toBe('file,hdu,s');
+    expect(r.stderr).toBe('');
+  });
+
   it(`refuses more than ${MAX_JOBS_PER_CORE} workers per core (exit 2)`, () => {
     const most = MAX_JOBS_PER_CORE * availableParallelism();
     const r = zvet(GOOD, '--jobs', String(most + 1));

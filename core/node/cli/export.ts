@@ -8,6 +8,7 @@
 import type { Command } from 'commander';
 import { CATALOGUE_FORMATS, formatFromFileName, type CatalogueFormat } from '../../catalogue/export.js';
 import { exportCatalogue } from '../export-catalogue.js';
+import { replaceProblem } from '../output-target.js';
 import { Worklist } from '../worklist.js';
 import { modelFromOptions, withCosmologyOptions } from './cosmo.js';
 import { runAction } from './run-action.js';
@@ -48,6 +49,8 @@ export function registerExport(program: Command): void {
       const cosmology = modelFromOptions(opts);
       const site = siteOption(opts.site);
       const worklist = await Worklist.open(worklistPath);
+      const problem = await replaceProblem(opts.out, [{ files: [worklist.journalPath], what: 'the journal of verdicts' }, { files: worklist.entries.map((e) => e.absPath), what: 'a spectrum of the worklist' }]);
+      if (problem) throw new UsageError(`--out ${opts.out}: ${problem}`);
       for (const w of worklist.journal.warnings) process.stderr.write(`zvet: warning: ${w}\n`);
       const r = await exportCatalogue(worklist, format, opts.out, { cosmology, site });
       process.stdout.write(`wrote ${r.rows} rows to ${r.path} (${format}): ${r.vetted} vetted, ${r.pending} pending, ${r.unreadable} unreadable\n`);

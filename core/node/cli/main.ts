@@ -6,7 +6,13 @@ import { registerCosmo } from './cosmo.js';
 import { registerBary } from './bary.js';
 import { registerExport } from './export.js';
 import { registerLines } from './lines.js';
-import { EXIT_USAGE_OR_UNREADABLE } from './run-action.js';
+import { EXIT_USAGE_OR_UNREADABLE, isClosedPipe } from './run-action.js';
+
+// Output piped into a reader that stops early (| head): end quietly instead of with an error.
+process.stdout.on('error', (err) => {
+  if (!isClosedPipe(err)) throw err;
+  process.exit(0);
+});
 
 const program = new Command('zvet')
   .description('Measure and vet redshifts of 1-D spectra. Automatic redshifts are suggestions until a person vets them.')

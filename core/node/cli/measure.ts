@@ -11,15 +11,16 @@
 import { SingleBar } from 'cli-progress';
 import type { Command } from 'commander';
 import { createWriteStream, type WriteStream } from 'node:fs';
-import { readFile } from 'node:fs/promises';
+import { readFile, realpath } from 'node:fs/promises';
 import { availableParallelism } from 'node:os';
-import { basename } from 'node:path';
+import { basename, resolve } from 'node:path';
 import { MEASURE_LINE_COLUMNS, measureFrameColumns } from '../../catalogue/measure-derived-columns.js';
 import { csvCells, csvHeader, csvLine, jsonlLine, MEASURE_COLUMNS, type MeasureColumn } from '../../redshift/measure-columns.js';
 import { resolveTemplates, TemplateChoiceError } from '../../redshift/template-set.js';
 import type { MeasureOptions } from '../../redshift/types.js';
 import { LineListError, parseUserLineList } from '../../redshift/user-line-list.js';
 import { defaultJobs, MAX_JOBS_PER_CORE, maxJobs, MeasurePool, type MeasureFileResult } from '../measure-pool.js';
+import { realTarget } from '../output-target.js';
 import { readSpectrumFile } from '../read-spectrum-file.js';
 import { listSpectrumFiles } from '../spectrum-files.js';
 import { ChunkedLines } from './chunked-lines.js';
@@ -101,12 +102,14 @@ async function measure(paths: string[], opts: MeasureCliOptions, baseColumns: Me
     if (err instanceof TemplateChoiceError) throw new UsageError(err.message);
     throw err;
   }
-  const files = await listSpectrumFiles(paths, { followLinks: true });
+  const listed = await listSpectrumFiles(paths, { followLinks: true });
+  const files = opts.out === undefined || opts.out === '-' ? listed : await withoutOutput(listed, paths, opts.out);
   if (files.length === 0) throw new UsageError('no spectrum files found in the paths given');
 
   const out = opts.out === undefined || opts.out === '-' ? process.stdout : await openOutput(opts.out);
   const lines = new ChunkedLines(out);
-  const bar = process.stderr.isTTY ? new SingleBar({ format: 'measuring [{bar}] {value}/{total} spectra', stream: process.stderr, hideCursor: true }) : null;
+  // No bar when the rows themselves go to the same terminal: the two would interleave.
+  const bar = process.stderr.isTTY && !(out === process.stdout && process.stdout.isTTY) ? new SingleBar({ format: 'measuring [{bar}] {value}/{total} spectra', stream: process.stderr, hideCursor: true }) : null;
   bar?.start(files.length, 0);
 
   // Never more workers than spectra.
@@ -158,6 +161,18 @@ function closeOutput(stream: WriteStream): Promise<void> {
     stream.once('error', () => resolve());
     stream.end(resolve);
   });
+}
+
+/**
+ * The inputs without the output file: one found by a folder walk is an earlier run's output and
+ * is left out; one named as an input is a usage error (it would be emptied before it is read).
+ */
+async function withoutOutput(files: string[], named: string[], out: string): Promise<string[]> {
+  const target = await realTarget(out);
+  const isTarget = async (f: string) => basename(f) === basename(target) && (await realpath(f).catch(() => resolve(f))) === target;
+  for (const p of named) if (await isTarget(p)) throw new UsageError(`--out ${out} is also an input: it would be emptied before it is read`);
+  const keep = await Promise.all(files.map(async (f) => !(await isTarget(f))));
+  return files.filter((_, i) => keep[i]);
 }
 
 /** The format a --out name asks for: .jsonl/.ndjson, .csv, or no extension (CSV); another extension is a usage error. */

@@ -16,10 +16,16 @@ export function runAction<A extends unknown[]>(action: (...args: A) => Promise<n
       const code = await action(...args);
       process.exitCode = typeof code === 'number' ? code : EXIT_OK;
     } catch (err) {
+      // A reader that stopped early (| head) closed the pipe: stop quietly, as other tools do.
+      if (isClosedPipe(err)) return;
       process.stderr.write(`zvet: ${describeFailure(err)}\n`);
       process.exitCode = EXIT_USAGE_OR_UNREADABLE;
     }
   };
+}
+
+export function isClosedPipe(err: unknown): boolean {
+  return (err as NodeJS.ErrnoException)?.code === 'EPIPE';
 }
 
 /** One line describing why something failed, without a stack trace. */

@@ -4,9 +4,10 @@
  * exist, it must not be a symlink, a folder, the journal or one of the spectra, and a path inside
  * the worklist must not lead out of it through a symlinked folder.
  */
-import { lstat, realpath } from 'node:fs/promises';
+import { realpath } from 'node:fs/promises';
 import { basename, dirname, isAbsolute, join, resolve } from 'node:path';
 import type { ExportFormat } from '../../api/host-api.js';
+import { replaceProblem } from '../output-target.js';
 import { HostFailure } from './host-failure.js';
 import { isInside } from './static-files.js';
 
@@ -40,11 +41,7 @@ export async function resolveExportPath(target: ExportTarget, format: ExportForm
   if (isInside(resolve(target.root), path) && !isInside(realRoot, realFolder)) {
     throw refuse('its folder leads out of the worklist through a symlink');
   }
-  const existing = await lstat(path).catch(() => null);
-  if (existing?.isSymbolicLink()) throw refuse('it is a symlink; name a plain file');
-  if (existing && !existing.isFile()) throw refuse('it is not a plain file');
-  const finalPath = join(realFolder, basename(path));
-  const protectedPaths = await Promise.all([target.journalPath, ...target.spectra].map((p) => realpath(p).catch(() => resolve(p))));
-  if (protectedPaths.includes(finalPath)) throw refuse('it would overwrite the journal or a spectrum');
-  return finalPath;
+  const problem = await replaceProblem(path, [{ files: [target.journalPath], what: 'the journal of verdicts' }, { files: target.spectra, what: 'a spectrum of the worklist' }]);
+  if (problem) throw refuse(problem);
+  return join(realFolder, basename(path));
 }
