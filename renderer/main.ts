@@ -48,7 +48,7 @@ function live<T>(slot: LiveSlot<T> | null, state: AppState): LiveResult<T> | nul
   return { result: slot.result, error: slot.error, stale: slot.key !== keyOf(state.currentId, state.trial.z) };
 }
 
-let lastTab: { tab: string; slot: unknown; stale: boolean; settings: unknown; view: unknown; star: boolean } | null = null;
+let lastTab: { tab: string; slot: unknown; stale: boolean; settings: unknown; view: unknown; objectClass: string; vetted: boolean } | null = null;
 
 function renderTab(state: AppState): void {
   // The host panel's table and diagram want room: the side column widens while it is shown.
@@ -58,14 +58,15 @@ function renderTab(state: AppState): void {
   byId('tab-host').setAttribute('aria-selected', String(state.tab === 'host'));
   const slot = state.tab === 'derived' ? controller.derived : controller.host;
   const lv = state.tab === 'derived' ? live(controller.derived, state) : live(controller.host, state);
-  const star = gradeToSave(state.view, state.trial, state.grade).objectClass === 'star';
-  const now = { tab: state.tab, slot, stale: lv?.stale ?? true, settings: state.settings, view: state.view, star };
+  const objectClass = gradeToSave(state.view, state.trial, state.grade).objectClass;
+  const vetted = !!state.view?.verdict && state.view.verdict.status !== 'pending' && state.trial.source === 'saved';
+  const now = { tab: state.tab, slot, stale: lv?.stale ?? true, settings: state.settings, view: state.view, objectClass, vetted };
   if (lastTab && (Object.keys(now) as (keyof typeof now)[]).every((k) => lastTab![k] === now[k])) return;
   lastTab = now;
   const body = byId('tab-body');
   if (state.view?.error && !state.view.arrays) fill(body, el('p', { class: 'muted' }, 'nothing to derive: the file could not be read'));
-  else if (state.tab === 'derived') renderDerived(body, live(controller.derived, state), state.settings?.cosmologyPreset ?? 'planck18', (p) => void controller.setCosmology(p), star);
-  else renderHost(body, live(controller.host, state));
+  else if (state.tab === 'derived') renderDerived(body, live(controller.derived, state), state.settings?.cosmologyPreset ?? 'planck18', (p) => void controller.setCosmology(p), objectClass === 'star');
+  else renderHost(body, live(controller.host, state), { vetted, objectClass });
 }
 
 let overlayShown: AppState['modal'] = 'none';

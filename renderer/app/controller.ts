@@ -282,12 +282,13 @@ export class Controller {
     if ('refused' in input) return this.say(input.refused);
     // From now on the grade is the one being saved (pressed, no longer a suggestion).
     s.grade = { confidence: input.confidence, objectClass: input.objectClass, note: input.note };
+    const trialDropped = decision.kind === 'accept-best' && s.trial.z !== null && s.trial.candidateIndex !== 0 && s.trial.source !== 'saved';
     if (decision.kind === 'accept-best') s.trial = candidateTrial(s.view, 0);
     if (decision.kind === 'no-redshift') {
       // Nothing is left to mark or to derive: no trial z, no confidence.
       s.trial = noRedshiftTrial();
     }
-    s.message = null;
+    s.message = trialDropped ? 'accepted candidate 1 as measured; the trial z was not saved (Enter saves a trial z)' : null;
     void this.queue.enqueue(input);
     this.trialChanged();
   }

@@ -80,11 +80,10 @@ export class DecisionPanel {
     this.typedProblem.textContent = state.typedZProblem ?? '';
     this.typedProblem.hidden = !state.typedZProblem;
     const best = candidates(state.view)[0] ?? null;
-    const dv = t.z !== null && best ? velocityBetweenKmS(best.z, t.z) : null;
     fill(this.dynamicTop,
       el('span', { class: 'muted' }, 'trial z'),
-      el('span', { class: 'value', id: 'trial-z' }, t.z === null ? '—' : fmtZErr(t.z, t.zErr)),
-      el('span', { class: 'detail' }, t.detail || ' ', dv !== null && Math.abs(dv) >= 0.5 ? ` · ${dv >= 0 ? '+' : '−'}${Math.abs(dv).toFixed(0)} km/s from the best` : ''));
+      el('span', { class: 'value', id: 'trial-z' }, t.z === null ? '—' : t.source === 'typed' ? `${t.z} (no σ)` : fmtZErr(t.z, t.zErr)),
+      el('span', { class: 'detail' }, t.detail || ' ', best && t.z !== null ? offsetFromBest(best.z, t.z) : ''));
     const stepInfo = t.z === null ? '' : `10 km/s = Δz ${zStepFor(t.z, 10).toExponential(1)}`;
     const v = state.view?.verdict && state.view.verdict.status !== 'pending' ? state.view.verdict : null;
     const queued = state.saves.find((q) => q.input.id === state.currentId);
@@ -118,6 +117,17 @@ export class DecisionPanel {
     if (document.activeElement !== this.noteInput) this.noteInput.value = state.grade.note;
   }
 }
+
+/** How far the trial z is from the best: in km/s while that is a small velocity, else in z. */
+function offsetFromBest(bestZ: number, z: number): string {
+  const dv = velocityBetweenKmS(bestZ, z);
+  if (Math.abs(dv) < 0.5) return '';
+  if (Math.abs(dv) > LARGEST_OFFSET_KMS) return ` · Δz ${z >= bestZ ? '+' : '−'}${Math.abs(z - bestZ).toFixed(5)} from the best`;
+  return ` · ${dv >= 0 ? '+' : '−'}${Math.abs(dv).toFixed(0)} km/s from the best`;
+}
+
+/** Offsets beyond this are another redshift, not a velocity nudge (common practice, no source). */
+const LARGEST_OFFSET_KMS = 3000;
 
 function verdictLine(v: NonNullable<AppState['view']>['verdict'] & object): HTMLElement {
   const look = confidenceText(v.status === 'no-redshift' ? null : v.confidence);

@@ -56,7 +56,7 @@ export function renderDerived(box: HTMLElement, live: LiveResult<FrameResult> | 
     live.stale ? el('p', { class: 'muted' }, 'updating…') : null,
     el('h2', {}, 'Redshift frames'),
     dl([
-      ['z, as measured', fmtZ(f.zObs)],
+      ['z, trial (file frame)', fmtZ(f.zObs)],
       [`z, ${f.frame}`, `${fmtZ(frameZ)}${f.zErr !== null ? ` ± ${f.zErr.toPrecision(2)}` : ''}`],
       ...(star ? [] : [['z, CMB frame', fmtZ(f.zCmb)] as [string, string]]),
       ...velocityRows,

@@ -1,4 +1,5 @@
 /** The host-galaxy panel at the trial z: line table, [N II] diagram, class, Balmer decrement, SFR. */
+import type { ObjectClass } from '../../core/catalogue/verdict.js';
 import type { HostAnalysis } from '../../core/hosts/analyse.js';
 import { restLine } from '../../core/redshift/line-list.js';
 import { buildBptFigure } from '../plot/bpt-figure.js';
@@ -29,9 +30,21 @@ function sfrText(value: number | null, err: number | null, upperLimit: boolean):
   return upperLimit ? `< ${value.toPrecision(3)} M☉/yr (AGN)` : `${value.toPrecision(3)} ± ${(err ?? 0).toPrecision(2)} M☉/yr`;
 }
 
-export function renderHost(box: HTMLElement, live: LiveResult<HostAnalysis> | null): void {
+/** Whether the z is a saved verdict's, and the class it goes with: the panel says what that means. */
+export interface HostContext {
+  vetted: boolean;
+  objectClass: ObjectClass;
+}
+
+export function renderHost(box: HTMLElement, live: LiveResult<HostAnalysis> | null, context: HostContext): void {
   const h = usableResult(box, live, 'host lines');
   if (!h || !live) return;
+  const caveats = [
+    context.vetted ? null : 'At the trial z, not a vetted one: the lines and the class follow whatever z is tried.',
+    context.objectClass === 'star' || context.objectClass === 'qso'
+      ? `Class ${context.objectClass}: these diagnostics are meant for the emission lines of galaxies and narrow-line AGN.`
+      : null,
+  ].filter((c): c is string => c !== null);
   const unit = h.measurement.flux_unit;
   const c = h.classification;
   const plot = el('div', { class: 'bpt-plot', id: 'bpt-plot' });
@@ -45,8 +58,9 @@ export function renderHost(box: HTMLElement, live: LiveResult<HostAnalysis> | nu
   const sfr = h.sfr;
   fill(box,
     live.stale ? el('p', { class: 'muted' }, 'updating…') : null,
+    ...caveats.map((text) => el('p', { class: 'caveat host-context' }, text)),
     el('h2', {}, `Class: ${c.bpt}${c.agn_type ? ` (${c.agn_type})` : ''}${c.broad_balmer ? ', broad Balmer lines' : ''}`),
-    el('p', { class: 'why' }, `[S II] diagram: ${c.sii} · [O I] diagram: ${c.oi}${c.missing.length ? ` · lacking S/N ≥ 3: ${c.missing.join(', ')}` : ''}`),
+    el('p', { class: 'why' }, `[S II] diagram: ${c.sii} · [O I] diagram: ${c.oi}${c.missing.length ? ` · lacking S/N ≥ 3 (or outside the spectrum): ${c.missing.map(lineLabel).join(', ')}` : ''}`),
     plot,
     el('h2', {}, `Lines at z = ${h.z.toFixed(5)}`),
     el('table', { id: 'host-lines' },

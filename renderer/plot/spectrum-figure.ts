@@ -155,7 +155,7 @@ export function buildSpectrumFigure(input: SpectrumFigureInput): SpectrumFigure 
     yaxis: { ...axisCommon, range: yRange, autorange: false, title: { ...axisCommon.title, text: `flux (${input.fluxUnit})` } },
     // The marker lines and labels live on a hidden 0–1 axis, so zooming the flux leaves them put.
     yaxis2: { overlaying: 'y', range: [0, 1], autorange: false, visible: false, fixedrange: true },
-    yaxis3: { ...axisCommon, overlaying: 'y', side: 'right', showgrid: false, title: { ...axisCommon.title, text: 'sky' } },
+    yaxis3: { ...axisCommon, overlaying: 'y', side: 'right', showgrid: false, title: { ...axisCommon.title, text: `sky (${input.fluxUnit})` } },
     shapes,
     annotations,
   };

@@ -96,7 +96,8 @@ export function nudgedTrial(trial: Trial, velocityKmS: number): Trial {
   const total = trial.nudgedKmS + velocityKmS;
   const from = trial.source === 'nudged' ? trial.detail.replace(/^[+−-]?\d+ km\/s from /, '') : trial.detail;
   const sign = total >= 0 ? '+' : '−';
-  return { ...trial, z: nudgeZ(trial.z, velocityKmS), candidateIndex: null, source: 'nudged', detail: `${sign}${Math.abs(total)} km/s from ${from}`, nudgedKmS: total };
+  // The fit's σz belongs to the fitted z; the nudged z is the observer's, saved without a σ.
+  return { ...trial, z: nudgeZ(trial.z, velocityKmS), zErr: null, candidateIndex: null, source: 'nudged', detail: `${sign}${Math.abs(total)} km/s from ${from}`, nudgedKmS: total };
 }
 
 /** The grade as a spectrum opens: the saved one, else nothing chosen yet. */
@@ -118,14 +119,18 @@ export function suggestedGrade(view: SpectrumView | null, trial: Trial): { confi
   const objectClass = ofTrial ? CLASS_OF_TEMPLATE[ofTrial.templateClass] : 'unknown';
   if (trial.z === null) return { confidence: null, objectClass };
   const isBest = trial.source === 'candidate' && trial.candidateIndex === 0;
-  return { confidence: isBest && m && m.confidence !== 'none' ? m.confidence : 'tentative', objectClass };
+  // "None credible" suggests nothing: the observer must choose a confidence or say no redshift.
+  if (!isBest || !m) return { confidence: 'tentative', objectClass };
+  return { confidence: m.confidence === 'none' ? null : m.confidence, objectClass };
 }
 
-/** The grade as it will be saved: what was chosen, the suggestion elsewhere. */
-export function gradeToSave(view: SpectrumView | null, trial: Trial, grade: Grade): { confidence: Confidence; objectClass: ObjectClass; note: string } {
+/** The grade as it will be saved: what was chosen, the suggestion elsewhere (null: neither). */
+export function gradeToSave(view: SpectrumView | null, trial: Trial, grade: Grade): { confidence: Confidence | null; objectClass: ObjectClass; note: string } {
   const suggested = suggestedGrade(view, trial);
-  return { confidence: grade.confidence ?? suggested.confidence ?? 'tentative', objectClass: grade.objectClass ?? suggested.objectClass, note: grade.note };
+  return { confidence: grade.confidence ?? suggested.confidence, objectClass: grade.objectClass ?? suggested.objectClass, note: grade.note };
 }
+
+const NO_CONFIDENCE = 'the automatic measurement found nothing credible: choose a confidence first (s, l or t), or x for no redshift';
 
 export type Decision = { kind: 'accept-best' } | { kind: 'candidate'; index: number } | { kind: 'trial' } | { kind: 'no-redshift' } | { kind: 'regrade'; verdict: Verdict };
 
@@ -138,12 +143,14 @@ export function verdictFor(view: SpectrumView, decision: Decision, trial: Trial,
     case 'accept-best': {
       const best = candidates(view)[0];
       if (!best) return { refused: 'there is no automatic candidate to accept' };
+      if (confidence === null) return { refused: NO_CONFIDENCE };
       return { ...base, status: 'accepted', z: best.z, zErr: best.zErr, confidence, template: best.template };
     }
     case 'candidate': {
       const c = candidates(view)[decision.index];
       if (!c) return { refused: `there is no candidate ${decision.index + 1}` };
       if (decision.index === 0) return verdictFor(view, { kind: 'accept-best' }, trial, grade);
+      if (confidence === null) return { refused: NO_CONFIDENCE };
       return { ...base, status: 'revised', z: c.z, zErr: c.zErr, confidence, template: c.template };
     }
     case 'trial':
@@ -151,13 +158,14 @@ export function verdictFor(view: SpectrumView, decision: Decision, trial: Trial,
       // Enter on a verdict as it was saved keeps its status (only the grade may have changed).
       if (trial.source === 'saved' && view.verdict) return verdictFor(view, { kind: 'regrade', verdict: view.verdict }, trial, grade);
       if (trial.source === 'candidate' && trial.candidateIndex !== null) return verdictFor(view, { kind: 'candidate', index: trial.candidateIndex }, trial, grade);
+      if (confidence === null) return { refused: NO_CONFIDENCE };
       return { ...base, status: 'revised', z: trial.z, zErr: trial.source === 'saved' ? trial.zErr : null, confidence, template: trial.template };
     case 'no-redshift':
       // With no z there is no template to take a class from: unknown unless chosen.
       return { ...base, objectClass: grade.objectClass ?? 'unknown', status: 'no-redshift', z: null, zErr: null, confidence: null, template: null };
     case 'regrade': {
       const v = decision.verdict;
-      return { ...base, status: v.status, z: v.z, zErr: v.zErr, confidence: v.status === 'no-redshift' ? null : confidence, template: v.template };
+      return { ...base, status: v.status, z: v.z, zErr: v.zErr, confidence: v.status === 'no-redshift' ? null : (confidence ?? v.confidence), template: v.template };
     }
   }
 }

@@ -393,6 +393,7 @@ print(json.dumps({'rows': [{c: cell(r[c]) for c in ('spectrum', 'status', 'z')} 
     const outside = win.requests.filter((u) => !u.startsWith(origin) && !u.startsWith('data:') && !u.startsWith('blob:'));
     expect(outside).toEqual([]);
     expect(win.requests.length).toBeGreaterThan(10);
-    expect(win.errors.filter((e) => !e.startsWith('Failed to load resource'))).toEqual([]);
+    // The one failed request allowed is the journal write made to fail above (the host answers 503).
+    expect(win.errors.filter((e) => !e.includes('status of 503 (Service Unavailable)'))).toEqual([]);
   });
 });

@@ -32,6 +32,21 @@ describe('decisions', () => {
     expect(verdictFor(view(), { kind: 'accept-best' }, openingTrial(view()), openingGrade(view()))).toMatchObject({ confidence: 'likely', objectClass: 'galaxy' });
     expect(verdictFor(view(), { kind: 'candidate', index: 1 }, openingTrial(view()), openingGrade(view()))).toMatchObject({ confidence: 'tentative', objectClass: 'qso' });
   });
+  it('"none credible" suggests no confidence: accepting asks for one first', () => {
+    const hopeless = view();
+    hopeless.measurement!.confidence = 'none';
+    const t = openingTrial(hopeless);
+    expect(suggestedGrade(hopeless, t).confidence).toBeNull();
+    expect(verdictFor(hopeless, { kind: 'accept-best' }, t, openingGrade(hopeless))).toEqual({ refused: expect.stringMatching(/nothing credible: choose a confidence first/) });
+    expect(verdictFor(hopeless, { kind: 'trial' }, t, openingGrade(hopeless))).toHaveProperty('refused');
+    expect(verdictFor(hopeless, { kind: 'accept-best' }, t, { ...openingGrade(hopeless), confidence: 'tentative' })).toMatchObject({ status: 'accepted', confidence: 'tentative' });
+    expect(verdictFor(hopeless, { kind: 'no-redshift' }, t, openingGrade(hopeless))).toMatchObject({ status: 'no-redshift' });
+  });
+  it('a nudged z shows and saves no σz: the fit\'s σ belongs to the fitted z', () => {
+    const t = nudgedTrial(candidateTrial(view(), 0), 10);
+    expect(t.zErr).toBeNull();
+    expect(verdictFor(view(), { kind: 'trial' }, t, openingGrade(view()))).toMatchObject({ status: 'revised', zErr: null });
+  });
   it('a chosen grade is saved whatever the suggestion', () => {
     const chosen = { confidence: 'secure' as const, objectClass: 'star' as const, note: '' };
     expect(verdictFor(view(), { kind: 'candidate', index: 1 }, openingTrial(view()), chosen)).toMatchObject({ confidence: 'secure', objectClass: 'star' });

@@ -11,7 +11,7 @@ import { exportCatalogue } from '../export-catalogue.js';
 import { replaceProblem } from '../output-target.js';
 import { Worklist } from '../worklist.js';
 import { modelFromOptions, withCosmologyOptions } from './cosmo.js';
-import { runAction } from './run-action.js';
+import { EXIT_OK, EXIT_SOME_FAILED, runAction } from './run-action.js';
 import { SITE_OPTION_HELP, siteOption } from './site-option.js';
 import { UsageError } from './usage-error.js';
 
@@ -56,5 +56,7 @@ export function registerExport(program: Command): void {
       process.stdout.write(`wrote ${r.rows} rows to ${r.path} (${format}): ${r.vetted} vetted, ${r.pending} pending, ${r.unreadable} unreadable\n`);
       if (r.unreadableSpectra.length) process.stderr.write(`zvet: warning: ${listOf(r.unreadableSpectra)} could not be read: ${r.unreadableSpectra.length === 1 ? 'its row gives' : 'their rows give'} the reason (read_problem)\n`);
       if (r.notInWorklist.length) process.stderr.write(`zvet: warning: the journal has verdicts for ${listOf(r.notInWorklist)}, no longer in the worklist: left out of the catalogue (the journal keeps them)\n`);
+      // Written in full either way; exit 1 says some rows lack what their file would have given.
+      return r.unreadableSpectra.length ? EXIT_SOME_FAILED : EXIT_OK;
     }));
 }
