@@ -95,7 +95,9 @@ describe('zvet measure paths and outputs', () => {
   it('stops quietly when the reader of its output stops early (| head)', () => {
     const r = spawnSync('bash', ['-c', `"${process.execPath}" "${ZVET_BIN}" measure "${DEMO_WORKLIST}" --jobs 1 | head -c 10`], { encoding: 'utf8', timeout: 120_000 });
     expect(r.stdout).toBe('file,hdu,s');
-    expect(r.stderr).toBe('');
+    // Rows that fit the pipe's buffer before head exits end normally with the tally; a write
+    // after head exited ends quietly. Either way, no error line.
+    expect(r.stderr).not.toMatch(/EPIPE|^zvet: /m);
   });
 
   it(`refuses more than ${MAX_JOBS_PER_CORE} workers per core (exit 2)`, () => {
