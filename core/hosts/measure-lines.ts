@@ -5,6 +5,7 @@
  * it, a broad component. Lines below S/N 3 are reported as 3σ upper limits.
  */
 import { inUnitsOfNoise } from '../redshift/flux-scale.js';
+import { median } from '../redshift/continuum.js';
 import { REST_LINES } from '../redshift/line-list.js';
 import type { Spectrum } from '../spectrum/spectrum.js';
 import { fitGaussians, solveLinear, type FitBounds, type FitData, type FitResult } from './fit-gaussians.js';
@@ -71,7 +72,7 @@ export interface MeasureOptions {
 
 export const STELLAR_ABSORPTION_METHOD =
   'Under Hβ and Hα a Gaussian absorption component (same velocity as the emission, width free ' +
-  'between 8 and 25 Å rest, equivalent width up to 10 Å under Hβ and 5 Å under Hα) is fitted together with the emission and the local ' +
+  'between 8 and 25 Å rest, equivalent width up to about 10 Å under Hβ and 5 Å under Hα against the window\'s median flux) is fitted together with the emission and the local ' +
   'continuum; emission fluxes are those of the emission component alone, so they are corrected ' +
   'for the underlying stellar absorption. Fitting the absorption rather than adding a fixed ' +
   'equivalent-width correction is common practice (no single source); no correction is applied ' +
@@ -225,8 +226,10 @@ function planModel(group: LineGroup, lines: GroupLine[], data: FitData, z: numbe
     const rest = balmer.restWaveAngstrom;
     const sigmaRange = ABSORPTION_SIGMA_REST_ANGSTROM.map((a) => (C_KM_S * a) / rest);
     const sigma = addParam(sigmaRange[0], sigmaRange[1], 100, (C_KM_S * 10) / rest);
-    // Depth bound: the EW cap against the brightest flux in the window.
-    const flux = addParam(-ABSORPTION_MAX_EW_REST_ANGSTROM[balmer.id] * (1 + z) * yScale, 0, fluxScale, 0);
+    // Depth bound: the EW cap against the continuum, taken as the window's median flux (the
+    // brightest flux is the emission line's peak, which let a strong line's absorption run past the cap).
+    const continuumLevel = Math.abs(median(data.flux)) || yScale;
+    const flux = addParam(-ABSORPTION_MAX_EW_REST_ANGSTROM[balmer.id] * (1 + z) * continuumLevel, 0, fluxScale, 0);
     kinematics.push({ dv: narrowDv, sigma: { param: sigma } });
     terms.push({ restWaveAngstrom: rest, fluxParam: flux, ratio: 1, kinematics: kinematics.length - 1 });
     fluxParam.set(`${balmer.id}_abs`, flux);

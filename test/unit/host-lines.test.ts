@@ -101,6 +101,16 @@ describe('line measurement on injected Gaussians', () => {
     expect(abs.ew_rest).toBeLessThan(5.5);
   });
 
+  it('keeps the absorption under a strong Hα line within its cap (5 Å rest against the continuum)', () => {
+    // A deep, wide trough (EW 120 / (10 · 1.04) = 11.5 Å rest) under bright Hα: the fit may take
+    // only up to the cap, not a depth scaled to the emission peak (which allowed 15 Å).
+    const lines: InjectedLine[] = [...starForming().map((l) => (l.restWaveAngstrom === w('Halpha') ? { ...l, flux: 3000 } : l)), { restWaveAngstrom: w('Halpha'), flux: -120, sigmaKmS: 600 }];
+    const m = measureLines(syntheticSpectrum({ z: 0.04, lines, noise: 0.3, seed: 7, continuum: () => 10 }), 0.04);
+    const abs = m.stellar_absorption.find((a) => a.line === 'Halpha')!;
+    expect(abs.ew_rest).toBeGreaterThan(4);
+    expect(abs.ew_rest).toBeLessThan(5.5);
+  });
+
   it('separates a broad Hα component from the narrow lines', () => {
     const lines: InjectedLine[] = [...starForming(), { restWaveAngstrom: w('Halpha'), flux: 3000, sigmaKmS: 1800 }, { restWaveAngstrom: w('Hbeta'), flux: 900, sigmaKmS: 1800 }];
     const a = analyseHost(syntheticSpectrum({ z: 0.04, lines, noise: 0.4, seed: 6 }), 0.04);

@@ -79,7 +79,8 @@ export function formatAnalysis(file: string, a: HostAnalysis): string {
   out.push(fmt(header), ...rows.map(fmt));
   out.push('("< " = 3σ upper limit, S/N < 3)');
   if (a.measurement.not_covered.length) out.push(`not covered by the spectrum: ${a.measurement.not_covered.join(', ')}`);
-  for (const s of a.measurement.stellar_absorption) out.push(`stellar absorption under ${s.line}: EW ${num(s.ew_rest, 2)} ± ${num(s.ew_rest_err, 2)} Å rest (fitted)`);
+  // A component at a bound of its range (none, or the cap) has no error from the covariance.
+  for (const s of a.measurement.stellar_absorption) out.push(`stellar absorption under ${s.line}: EW ${num(s.ew_rest, 2)} Å rest ${s.ew_rest_err > 0 ? `± ${num(s.ew_rest_err, 2)} (fitted)` : '(at a bound of the fit: no error)'}`);
   out.push('');
   const c = a.classification;
   out.push(`class ([N II] BPT): ${c.bpt}${c.agn_type ? ` (${c.agn_type})` : ''}${c.broad_balmer ? '; broad Balmer lines: type-1 AGN' : ''}`);
