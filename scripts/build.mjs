@@ -47,4 +47,5 @@ copyFileSync('packaging/icons/512x512.png', 'dist/electron/icon.png');
 // full one (4.8 MB), which took about 2 s of a cold start to load.
 await build({ bundle: true, platform: 'browser', format: 'esm', target: 'es2022', sourcemap: true, logLevel: 'warning', outdir: 'dist/renderer', entryPoints: [{ in: 'renderer/main.ts', out: 'app' }, { in: 'renderer/app.css', out: 'app' }] });
 copyFileSync('renderer/index.html', 'dist/renderer/index.html');
+copyFileSync('packaging/icons/32x32.png', 'dist/renderer/favicon.png');
 copyFileSync('node_modules/plotly.js-basic-dist-min/plotly-basic.min.js', 'dist/renderer/plotly.min.js');

@@ -35,6 +35,8 @@ export interface HostSummary {
   ebvMag: number | null;
   sfrK98MsunYr: number | null;
   sfrKe12MsunYr: number | null;
+  /** True when an AGN contributes to Hα, so the SFRs are upper limits. */
+  sfrUpperLimit: boolean;
   sfrCaveat: string;
 }
 
@@ -63,6 +65,7 @@ export function summariseHost(h: HostAnalysis): HostSummary {
     ebvMag: h.balmer.ebv,
     sfrK98MsunYr: h.sfr.sfr_kennicutt98_msun_yr,
     sfrKe12MsunYr: h.sfr.sfr_ke12_msun_yr,
+    sfrUpperLimit: h.sfr.upper_limit,
     sfrCaveat: h.sfr.caveat,
   };
 }
@@ -84,6 +87,7 @@ export const HOST_DUST_SFR_FIELDS: readonly Field<HostSummary>[] = [
   { name: 'ebv_mag', unit: 'mag', type: 'float64', description: 'E(B-V) of the gas from the Balmer decrement (Calzetti et al. 2000 curve)', pick: (h) => h.ebvMag },
   { name: 'sfr_k98_msun_yr', unit: 'solMass/yr', type: 'float64', description: SFR_K98, pick: (h) => h.sfrK98MsunYr },
   { name: 'sfr_ke12_msun_yr', unit: 'solMass/yr', type: 'float64', description: SFR_KE12, pick: (h) => h.sfrKe12MsunYr },
+  { name: 'sfr_upper_limit', unit: null, type: 'bool', description: 'true when an AGN contributes to Halpha (BPT agn or composite, or broad Balmer lines): the SFRs are upper limits', pick: (h) => (h.sfrK98MsunYr === null ? null : h.sfrUpperLimit) },
 ];
 
 /** Line fluxes in the file's own unit (the `zvet measure` rows, with a flux_unit column). */

@@ -1,7 +1,8 @@
 /**
  * Columns appended to `zvet measure` rows: the best candidate's z in the barycentric (or
  * heliocentric) and CMB frames with the distances it implies, and, with --lines, the host
- * diagnostics the worker measured at that z. Rows without a best candidate get empty cells.
+ * diagnostics the worker measured at that z. Rows without a best candidate get empty cells, and
+ * a best candidate of the star template no distances.
  */
 import type { CosmologyModel } from '../astro/cosmology.js';
 import { correctFrames, type FrameResult } from '../astro/frames.js';
@@ -22,13 +23,18 @@ export interface MeasureRowExtras {
 
 export type MeasureRow = MeasureRowInput & MeasureRowExtras;
 
+function isStar(row: MeasureRow): boolean {
+  return row.measurement?.best?.templateClass === 'star';
+}
+
 /** Frame correction of the best candidate's z, or a one-line reason there is none. */
 function framesOfRow(row: MeasureRow, site: Site | undefined, cosmology: CosmologyModel): FrameResult | string {
   const best = row.measurement?.best;
   if (row.status !== 'ok' || !best) return 'no redshift to correct';
   if (!row.meta) return 'not corrected: the file metadata was not returned';
   try {
-    return correctFrames({ zObs: best.z, zErr: best.zErr, meta: row.meta, site, cosmology });
+    // A star's redshift is its own motion, not a distance (as in the catalogue).
+    return correctFrames({ zObs: best.z, zErr: best.zErr, meta: row.meta, site, cosmology: isStar(row) ? undefined : cosmology });
   } catch (err) {
     return `not corrected: ${(err as Error).message}`;
   }
@@ -53,7 +59,7 @@ export function measureFrameColumns(options: { site?: Site; cosmology: Cosmology
   return [
     ...FRAME_FIELDS.map(column),
     ...DISTANCE_FIELDS.map(column),
-    { key: 'cosmology', value: (row: MeasureRow) => (typeof framesOf(row) === 'string' ? null : model) },
+    { key: 'cosmology', value: (row: MeasureRow) => (typeof framesOf(row) === 'string' || isStar(row) ? null : model) },
   ];
 }
 

@@ -16,6 +16,8 @@ export interface ListOptions {
    * file from outside the worklist's folder.
    */
   followLinks: boolean;
+  /** When links are not followed, those with a spectrum's name or to a folder are added here (to be reported). */
+  leftOutLinks?: string[];
 }
 
 /**
@@ -47,7 +49,10 @@ async function walk(dir: string, walked: Set<string>, options: ListOptions): Pro
   for (const e of entries) {
     if (e.name.startsWith('.') || e.name === 'node_modules') continue;
     const p = join(dir, e.name);
-    if (e.isSymbolicLink() && !options.followLinks) continue;
+    if (e.isSymbolicLink() && !options.followLinks) {
+      if (options.leftOutLinks && (hasSpectrumExtension(e.name) || (await stat(p).catch(() => null))?.isDirectory())) options.leftOutLinks.push(p);
+      continue;
+    }
     // A link is what it points to; a broken link to a spectrum name is kept, to fail in its place.
     const target = e.isSymbolicLink() ? await stat(p).catch(() => null) : e;
     if (target?.isDirectory()) out.push(...(await walk(p, walked, options)));

@@ -32,13 +32,23 @@ export class Worklist {
   readonly journalPath: string;
   readonly entries: WorklistEntry[];
   readonly journal: VerdictJournal;
+  /** Symbolic links with a spectrum's name in the folder, left out (relative to the root). */
+  readonly leftOutLinks: string[];
 
-  private constructor(root: string, entries: WorklistEntry[], journal: VerdictJournal) {
+  private constructor(root: string, entries: WorklistEntry[], journal: VerdictJournal, leftOutLinks: string[]) {
     this.root = root;
     this.name = basename(root);
     this.journalPath = journal.path;
     this.entries = entries;
     this.journal = journal;
+    this.leftOutLinks = leftOutLinks;
+  }
+
+  /** One line on the links left out, or null when there are none. */
+  linksWarning(): string | null {
+    const n = this.leftOutLinks.length;
+    if (n === 0) return null;
+    return `${n === 1 ? 'a symbolic link is' : `${n} symbolic links are`} left out of the worklist (only files inside its folder are read): ${this.leftOutLinks.join(', ')}`;
   }
 
   /**
@@ -50,9 +60,10 @@ export class Worklist {
     if (!given.length) throw new Error('a worklist needs a folder or at least one file');
     const folders = await Promise.all(given.map(async (p) => ((await stat(p)).isDirectory() ? p : dirname(p))));
     const root = commonFolder(folders);
-    const files = await listSpectrumFiles(given);
+    const leftOut: string[] = [];
+    const files = await listSpectrumFiles(given, { followLinks: false, leftOutLinks: leftOut });
     const entries = [...new Set(files.map((f) => resolve(f)))].map((absPath) => ({ absPath, spectrum: relative(root, absPath).split(sep).join('/') }));
     const journal = await VerdictJournal.open(join(root, `${basename(root)}.verdicts.jsonl`));
-    return new Worklist(root, entries, journal);
+    return new Worklist(root, entries, journal, leftOut.map((p) => relative(root, p).split(sep).join('/')));
   }
 }

@@ -52,13 +52,16 @@ describe('zvet measure frame columns', () => {
       const zUnrounded = (1 + (row.z_bary as number)) / (1 + v / SPEED_OF_LIGHT_KMS) - 1;
       expect(Number(zUnrounded.toPrecision(8)), row.file).toBe(row.z);
       const lib = correctFrames({ zObs: zUnrounded, meta: spectrum.meta, cosmology: COSMOLOGY_PRESETS.planck18 });
-      expect(row).toMatchObject({ frame_correction: 'barycentric', z_corr_frame: 'barycentric', dist_from: 'cmb' });
+      // The Galactic star gets its frames but no distances (checked on its own below).
+      const star = row.template === 'star';
+      expect(row).toMatchObject({ frame_correction: 'barycentric', z_corr_frame: 'barycentric', dist_from: star ? null : 'cmb' });
       expect(v).toBe(lib.vCorrKmS);
       expect(Math.abs((row.z_bary as number) - lib.zBary!)).toBeLessThan(1e-14);
       expect(Math.abs((row.z_helio as number) - lib.zHelio!)).toBeLessThan(1e-14);
       expect(Math.abs((row.z_cmb as number) - lib.zCmb!)).toBeLessThan(1e-14);
-      expect(Math.abs((row.lum_dist_mpc as number) / lib.distances!.luminosityMpc - 1)).toBeLessThan(1e-12);
       expect(row.frame_reason).toMatch(/^barycentric correction .* applied: wavelengths topocentric/);
+      if (star) continue;
+      expect(Math.abs((row.lum_dist_mpc as number) / lib.distances!.luminosityMpc - 1)).toBeLessThan(1e-12);
       expect(row.cosmology).toMatch(/^planck18: H0 = 67.66 km\/s\/Mpc/);
     }
     expect(byName('KRT-26-0023_truncated.fits')).toMatchObject({ z_bary: null, z_cmb: null, v_corr_kms: null, frame_reason: null, lum_dist_mpc: null });
@@ -96,6 +99,13 @@ print(json.dumps(dict(bary_kms=v.to_value(u.km / u.s))))
     expect(row).toMatchObject({ frame_correction: 'none', z_corr_frame: 'heliocentric', z_bary: null, v_corr_kms: null, dist_from: 'cmb' });
     expect(Math.abs((row.z_helio as number) - row.z!)).toBeLessThan(1e-8);
     expect(row.frame_reason).toMatch(/already heliocentric .*SDSS.*not corrected again/);
+  });
+
+  it('gives a star (best template star) its frames but no distances, as the catalogue does', () => {
+    const star = byName('KRT-26-0016.fits');
+    expect(star.template).toBe('star');
+    expect(star.z_bary).not.toBeNull();
+    for (const key of ['dist_from', 'comoving_dist_mpc', 'lum_dist_mpc', 'dist_mod_mag', 'cosmology']) expect(star[key], key).toBeNull();
   });
 
   it('gives distances at z_cmb equal to astropy’s LambdaCDM (Tcmb0 = 0) within 1e-6', () => {
@@ -168,7 +178,8 @@ describe('zvet measure --lines', () => {
     // KRT-26-0020 passive (no emission lines).
     expect(byName('KRT-26-0011.fits')).toMatchObject({ bpt_class: 'star-forming', agn_type: null });
     expect(byName('KRT-26-0019.fits.gz')).toMatchObject({ bpt_class: 'star-forming', agn_type: null });
-    expect(byName('KRT-26-0014.fits')).toMatchObject({ bpt_class: 'agn', agn_type: 'seyfert' });
+    expect(byName('KRT-26-0014.fits')).toMatchObject({ bpt_class: 'agn', agn_type: 'seyfert', sfr_upper_limit: true });
+    expect(byName('KRT-26-0011.fits').sfr_upper_limit).toBe(false);
     expect(byName('KRT-26-0020.fits').bpt_class).toBe('insufficient');
     const dwarf = byName('KRT-26-0019.fits.gz');
     expect(dwarf.sfr_k98_msun_yr as number).toBeGreaterThan(0);

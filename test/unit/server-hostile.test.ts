@@ -176,6 +176,8 @@ describe('zvet serve: paths', () => {
     const list = JSON.parse((await call(server.port, server.token, 'listSpectra', {})).body);
     const ids = list.items.map((i: { id: string }) => i.id);
     expect(ids).toEqual(['KRT-26-0011.fits', 'KRT-26-0018.csv']);
+    // Left out, and said so.
+    expect(list.warnings).toContainEqual(expect.stringMatching(/^2 symbolic links are left out of the worklist \(only files inside its folder are read\): KRT-26-0099\.fits, linked-out$/));
     expect((await call(server.port, server.token, 'loadSpectrum', { id: 'KRT-26-0099.fits' })).status).toBe(404);
 
     const byName = await call(server.port, server.token, 'openWorklist', { files: [join(worklist, 'KRT-26-0011.fits'), join(worklist, 'KRT-26-0099.fits')] });

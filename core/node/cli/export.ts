@@ -51,7 +51,8 @@ export function registerExport(program: Command): void {
       const worklist = await Worklist.open(worklistPath);
       const problem = await replaceProblem(opts.out, [{ files: [worklist.journalPath], what: 'the journal of verdicts' }, { files: worklist.entries.map((e) => e.absPath), what: 'a spectrum of the worklist' }]);
       if (problem) throw new UsageError(`--out ${opts.out}: ${problem}`);
-      for (const w of worklist.journal.warnings) process.stderr.write(`zvet: warning: ${w}\n`);
+      const links = worklist.linksWarning();
+      for (const w of [...worklist.journal.warnings, ...(links ? [links] : [])]) process.stderr.write(`zvet: warning: ${w}\n`);
       const r = await exportCatalogue(worklist, format, opts.out, { cosmology, site });
       process.stdout.write(`wrote ${r.rows} rows to ${r.path} (${format}): ${r.vetted} vetted, ${r.pending} pending, ${r.unreadable} unreadable\n`);
       if (r.unreadableSpectra.length) process.stderr.write(`zvet: warning: ${listOf(r.unreadableSpectra)} could not be read: ${r.unreadableSpectra.length === 1 ? 'its row gives' : 'their rows give'} the reason (read_problem)\n`);

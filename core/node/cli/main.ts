@@ -8,10 +8,9 @@ import { registerExport } from './export.js';
 import { registerLines } from './lines.js';
 import { EXIT_USAGE_OR_UNREADABLE, isClosedPipe } from './run-action.js';
 
-// Output piped into a reader that stops early (| head): end quietly instead of with an error.
+// Output piped into a reader that stops early (| head): the failed write itself says so (run-action.ts).
 process.stdout.on('error', (err) => {
   if (!isClosedPipe(err)) throw err;
-  process.exit(0);
 });
 
 const program = new Command('zvet')

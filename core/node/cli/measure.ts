@@ -138,6 +138,7 @@ async function measure(paths: string[], opts: MeasureCliOptions, baseColumns: Me
     if (out !== process.stdout) await closeOutput(out as WriteStream);
   }
   // The last line on standard error says how the batch went, so a long run ends with its tally.
+  if (failed < files.length) process.stderr.write('the z and confidence of every row are automatic suggestions until a person vets them (zvet serve)\n');
   process.stderr.write(`${files.length} ${files.length === 1 ? 'spectrum' : 'spectra'}: ${files.length - failed} measured, ${failed} failed\n`);
   return failed ? EXIT_SOME_FAILED : EXIT_OK;
 }

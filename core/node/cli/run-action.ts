@@ -16,8 +16,13 @@ export function runAction<A extends unknown[]>(action: (...args: A) => Promise<n
       const code = await action(...args);
       process.exitCode = typeof code === 'number' ? code : EXIT_OK;
     } catch (err) {
-      // A reader that stopped early (| head) closed the pipe: stop quietly, as other tools do.
-      if (isClosedPipe(err)) return;
+      // A reader that stopped early (| head) closed the pipe: say so in words, exit 1 (not every
+      // input got its row).
+      if (isClosedPipe(err)) {
+        process.stderr.write('zvet: the reader of the output stopped (broken pipe, EPIPE): the rest was not written\n');
+        process.exitCode = EXIT_SOME_FAILED;
+        return;
+      }
       process.stderr.write(`zvet: ${describeFailure(err)}\n`);
       process.exitCode = EXIT_USAGE_OR_UNREADABLE;
     }

@@ -153,7 +153,8 @@ class Handlers implements HostHandlers {
       suggestion: s.cache.suggestions.get(id) ?? null,
       error: entry.refusal ?? s.cache.errors.get(id) ?? null,
     }));
-    const warnings = [...this.settings.warnings, ...s.worklist.journal.warnings, ...extra];
+    const links = s.worklist.linksWarning();
+    const warnings = [...this.settings.warnings, ...s.worklist.journal.warnings, ...(links ? [links] : []), ...extra];
     if (s.queued.length > 0) warnings.push(this.queueWarning(s));
     return { root: s.worklist.root, name: s.worklist.name, journalPath: s.worklist.journalPath, items, warnings };
   }
