@@ -7,7 +7,7 @@ import type { AppState } from './state.js';
 import { buildSpectrumFigure, FLUX_TRACE, fullWaveRange } from '../plot/spectrum-figure.js';
 import { buildCorrelationFigure } from '../plot/correlation-figure.js';
 import { loadPlotly, PLOT_CONFIG, type PlotElement } from '../plot/plotly.js';
-import { candidates } from '../state/decision.js';
+import { candidates, gradeToSave } from '../state/decision.js';
 
 export interface PlotEvents {
   rangeChanged(range: [number, number] | null): void;
@@ -36,6 +36,7 @@ export class Plots {
       arrays, fluxUnit: state.view?.meta?.fluxUnit ?? 'file units', z: state.trial.z, smoothing: state.smoothing, showSky: state.showSky,
       templateFlux, templateName: state.trial.template ?? state.view?.templateModel?.template ?? null, xRange: state.xRange,
       widthPx: this.spectrumEl.clientWidth || 900,
+      stellar: gradeToSave(state.view, state.trial, state.grade).objectClass === 'star',
       pick: state.linePick ? { featureAngstrom: state.linePick.waveAngstrom, clickAngstrom: state.linePick.clickAngstrom } : null,
     });
     this.lastRange = state.xRange ?? fig.fullRange;

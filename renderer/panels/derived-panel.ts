@@ -4,7 +4,7 @@
  */
 import type { FrameResult } from '../../core/astro/frames.js';
 import { SPEED_OF_LIGHT_KMS } from '../../core/astro/constants.js';
-import { radialVelocityKmS } from '../../core/astro/doppler.js';
+import { radialVelocityErrKmS, radialVelocityKmS } from '../../core/astro/doppler.js';
 import { COSMOLOGY_PRESETS } from '../../core/astro/cosmology.js';
 import { el, fill } from '../ui/dom.js';
 import { fmtNum, fmtZ } from '../ui/format.js';
@@ -50,7 +50,7 @@ export function renderDerived(box: HTMLElement, live: LiveResult<FrameResult> | 
   const frameZ = f.zBary ?? f.zHelio ?? f.zObs;
   const cz = (z: number | null): string => (z === null ? '—' : fmtNum(SPEED_OF_LIGHT_KMS * z, 1, 'km/s'));
   const velocityRows: [string, string][] = star
-    ? [[`radial velocity, ${f.frame}`, fmtNum(radialVelocityKmS(frameZ), 2, 'km/s')]]
+    ? [[`radial velocity, ${f.frame}`, f.zErr === null ? fmtNum(radialVelocityKmS(frameZ), 2, 'km/s') : `${radialVelocityKmS(frameZ).toFixed(2)} ± ${radialVelocityErrKmS(frameZ, f.zErr).toFixed(2)} km/s`]]
     : [[`cz, ${f.frame}`, cz(frameZ)], ['cz, CMB frame', cz(f.zCmb)]];
   fill(box,
     live.stale ? el('p', { class: 'muted' }, 'updating…') : null,

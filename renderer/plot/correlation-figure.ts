@@ -1,7 +1,7 @@
 /**
  * The correlation against z for one template, with every candidate marked (numbered as in the
- * candidate table; those from other templates drawn hollow at their own z) and the trial z as a
- * vertical line. Pure.
+ * candidate table; those from other templates drawn hollow at their own z, when that is inside
+ * this curve's range) and the trial z as a vertical line. Pure.
  */
 import type { Data, Layout } from 'plotly.js';
 import type { Candidate, CorrelationCurve } from '../../core/redshift/types.js';
@@ -38,7 +38,8 @@ export function labelSides(zs: readonly number[], zSpan: number): ('top center' 
 
 export function buildCorrelationFigure(curve: CorrelationCurve, candidates: readonly Candidate[], trialZ: number | null, chosenIndex: number | null): { data: Data[]; layout: Partial<Layout> } {
   const own = candidates.map((c, i) => ({ c, i })).filter(({ c }) => c.template === curve.template);
-  const other = candidates.map((c, i) => ({ c, i })).filter(({ c }) => c.template !== curve.template);
+  // Another template's candidate is drawn only inside this curve's z range, where it can be compared.
+  const other = candidates.map((c, i) => ({ c, i })).filter(({ c }) => c.template !== curve.template && curveAt(curve, c.z) !== null);
   const yOf = (c: Candidate) => curveAt(curve, c.z) ?? 0;
   const sides = labelSides(candidates.map((c) => c.z), (curve.z[curve.z.length - 1] ?? 1) - (curve.z[0] ?? 0) || 1);
   const markerTrace = (list: { c: Candidate; i: number }[], hollow: boolean): Data => ({

@@ -74,7 +74,9 @@ export function markersInRange(z: number, loAngstrom: number, hiAngstrom: number
     const rowEnds: number[] = [];
     for (const m of markers.filter((mk) => MARKER_STYLE[mk.kind].side === side)) {
       const halfWidth = ((m.label.length + 2) * geometry.charPx) / 2;
-      const centre = (m.labelWaveAngstrom - loAngstrom) * pxPerAngstrom;
+      // A label near an edge moves inward so that it is not cut off; its line stays where it is.
+      const centre = Math.min(Math.max((m.labelWaveAngstrom - loAngstrom) * pxPerAngstrom, halfWidth), Math.max(halfWidth, geometry.widthPx - halfWidth));
+      m.labelWaveAngstrom = loAngstrom + centre / pxPerAngstrom;
       let row = rowEnds.findIndex((end) => end + geometry.charPx <= centre - halfWidth);
       if (row < 0 && rowEnds.length < geometry.maxRows) row = rowEnds.length;
       if (row < 0) {

@@ -2,8 +2,13 @@
 
 /**
  * Flux range of the pixels inside [lo, hi] from the 1st to the 99.5th percentile, widened above
- * and below so that the data sit in the middle band between the rows of line labels.
+ * and below so that the data sit in the middle band between the rows of line labels; raised to
+ * the fourth-highest pixel where a strong line's peak reaches above that (a resolved line spans
+ * several pixels, a spike one or two), up to three spans above the data.
  */
+/** The pixel of this rank from the top sets the peak kept in view. */
+const PEAK_RANK = 4;
+
 export function robustRange(flux: readonly (number | null)[], wave: readonly (number | null)[], lo: number, hi: number): [number, number] {
   const inside: number[] = [];
   for (let i = 0; i < flux.length; i++) {
@@ -17,7 +22,8 @@ export function robustRange(flux: readonly (number | null)[], wave: readonly (nu
   const bottom = at(0.01);
   const top = at(0.995);
   const span = top - bottom || Math.abs(top) || 1;
-  return [bottom - 0.35 * span, top + 0.4 * span];
+  const peak = Math.min(inside[Math.max(0, inside.length - PEAK_RANK)], top + 3 * span);
+  return [bottom - 0.35 * span, Math.max(top + 0.4 * span, peak + 0.05 * span)];
 }
 
 /** The template multiplied by the least-squares factor a = Σ f·t / Σ t² over good pixels. */

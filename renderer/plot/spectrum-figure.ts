@@ -7,6 +7,7 @@
 import type { Annotations, Data, Layout, Shape } from 'plotly.js';
 import type { SpectrumArrays } from '../../core/api/host-api.js';
 import { THEME } from '../ui/theme.js';
+import { REST_LINES } from '../../core/redshift/line-list.js';
 import { MARKER_STYLE, markersInRange, type LineMarker } from './markers.js';
 import { maskedRuns, TELLURIC_BANDS } from './regions.js';
 import { smooth, smoothError, type SmoothingSetting } from './smoothing.js';
@@ -26,6 +27,8 @@ export interface SpectrumFigureInput {
   /** Visible observed range, Å; null for the whole spectrum. */
   xRange: [number, number] | null;
   widthPx: number;
+  /** A star's spectrum: only absorption (and Balmer) lines are marked, no nebular emission. */
+  stellar?: boolean;
   /** While a line is being picked: the feature's centre and the click it was found from, Å. */
   pick?: { featureAngstrom: number; clickAngstrom: number } | null;
 }
@@ -118,7 +121,8 @@ export function buildSpectrumFigure(input: SpectrumFigureInput): SpectrumFigure 
   // An invisible trace on the top axis, so plotly draws it.
   data.push({ type: 'scatter', mode: 'lines', x: [lo, hi].map((w) => w / (1 + (z ?? 0))), y: [null, null], xaxis: 'x2', hoverinfo: hover, showlegend: false });
 
-  const markers = z === null ? [] : markersInRange(z, lo, hi, { widthPx: input.widthPx, charPx: 7.5, maxRows: 4 });
+  const lines = input.stellar ? REST_LINES.filter((l) => l.kind !== 'emission') : REST_LINES;
+  const markers = z === null ? [] : markersInRange(z, lo, hi, { widthPx: input.widthPx, charPx: 7.5, maxRows: 4 }, lines);
   const shapes: Partial<Shape>[] = [];
   const annotations: Partial<Annotations>[] = [];
   for (const band of TELLURIC_BANDS) {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { buildCorrelationFigure, curveAt, labelSides } from '../../renderer/plot/correlation-figure.js';
 import { buildBptFigure, demarcationCurve } from '../../renderer/plot/bpt-figure.js';
+import { buildSpectrumFigure } from '../../renderer/plot/spectrum-figure.js';
 import { kauffmann03 } from '../../core/hosts/demarcation.js';
 import type { Candidate } from '../../core/redshift/types.js';
 
@@ -23,6 +24,10 @@ describe('correlation figure', () => {
     expect(other.marker.symbol).toBe('circle-open');
     expect(own.marker.symbol).toBe('circle');
   });
+  it('leaves out another template\'s candidate outside this curve\'s z range (it would stretch the axis)', () => {
+    const fig = buildCorrelationFigure(curve, [cand(0.1, 'sf'), cand(4.87, 'qso'), cand(0.2, 'qso')], 0.1, 0);
+    expect((fig.data[2] as { text: string[] }).text).toEqual(['3']);
+  });
   it('puts the numbers of candidates close in z on alternate sides of their markers', () => {
     // z span 5: 0.90 and 0.92 clash (0.4 % of the axis), 0.95 clashes with 0.92, 3.0 stands alone.
     expect(labelSides([0.92, 3.0, 0.9, 0.95], 5)).toEqual(['bottom center', 'top center', 'top center', 'top center']);
@@ -44,5 +49,21 @@ describe('[N II] diagram', () => {
     expect(with_.find((t) => t.name === 'this object')?.error_y?.array).toEqual([0.1]);
     const without = buildBptFigure({ ...point, log_oiii_hb: null }).data as { name: string }[];
     expect(without.some((t) => t.name === 'this object')).toBe(false);
+  });
+});
+
+describe('spectrum figure', () => {
+  const wave = Array.from({ length: 3000 }, (_, i) => 3800 + 1.8 * i);
+  const arrays = { waveAngstrom: wave, flux: wave.map(() => 1), error: wave.map(() => 0.1), mask: wave.map(() => 0), sky: null };
+  const figure = (stellar: boolean, pick: { featureAngstrom: number; clickAngstrom: number } | null = null) =>
+    buildSpectrumFigure({ arrays, fluxUnit: '1e-17 erg/s/cm2/Angstrom', z: 0.0001, smoothing: { kernel: 'boxcar', widthPx: 1 }, showSky: false, templateFlux: null, templateName: null, xRange: null, widthPx: 900, stellar, pick });
+  it('marks no nebular emission line on a star, and all kinds on a galaxy', () => {
+    expect(figure(true).markers.some((m) => m.kind === 'emission')).toBe(false);
+    expect(figure(true).markers.some((m) => m.label === 'Na D')).toBe(true);
+    expect(figure(false).markers.some((m) => m.label === '[O III]')).toBe(true);
+  });
+  it('draws the clicked point and the feature centre found from it while a line is picked', () => {
+    const shapes = figure(false, { featureAngstrom: 5447.1, clickAngstrom: 5439.5 }).layout.shapes as { x0: number; line: { dash?: string } }[];
+    expect(shapes.filter((s) => s.x0 === 5447.1 || s.x0 === 5439.5).map((s) => s.line.dash ?? 'solid')).toEqual(['dot', 'solid']);
   });
 });

@@ -40,6 +40,18 @@ describe('line markers', () => {
   });
 });
 
+describe('labels at the edges', () => {
+  it('move inward so that they are not cut off, while their lines stay at λ_rest·(1+z)', () => {
+    // [Ne V] 3427 at z = 0.06818 is at 3660.7 Å, 8 px from the left edge of a 1000 px plot.
+    const ms = markersInRange(0.06818, 3655, 9400, geometry);
+    const neV = ms.find((m) => m.label === '[Ne V]')!;
+    expect(neV.observedWaveAngstrom[0]).toBeCloseTo(3426.85 * 1.06818, 0);
+    const pxPerA = geometry.widthPx / (9400 - 3655);
+    expect((neV.labelWaveAngstrom - 3655) * pxPerA).toBeGreaterThanOrEqual(((neV.label.length + 2) * geometry.charPx) / 2 - 1e-9);
+    for (const m of ms) expect((9400 - m.labelWaveAngstrom) * pxPerA).toBeGreaterThanOrEqual(((m.label.length + 2) * geometry.charPx) / 2 - 1e-9);
+  });
+});
+
 describe('crowded labels', () => {
   it('a label with no room left in any row keeps its line and glyph but drops its name', () => {
     const ms = markersInRange(0.05, 3900, 4400, { widthPx: 120, charPx: 7.5, maxRows: 2 });

@@ -57,6 +57,15 @@ describe('shaded regions and scaling', () => {
     const [, hi] = robustRange(flux, wave, 0, 1e9);
     expect(hi).toBeLessThan(2);
   });
+  it('the y range keeps a strong line\'s peak of several pixels in view, up to three spans', () => {
+    // Continuum rising from 1 to 5, a line of peak 8 (σ = 3 px) on it at 3: its fourth-highest
+    // pixel is 3 + 8·exp(−2/9) = 9.41, above the 99.5th percentile (≈ 5) plus 40 % of the span.
+    const wave = Array.from({ length: 4000 }, (_, i) => 4000 + i);
+    const flux = wave.map((w, i) => 1 + (4 * i) / 4000 + 8 * Math.exp(-0.5 * ((w - 6000) / 3) ** 2));
+    const [, hi] = robustRange(flux, wave, 0, 1e9);
+    expect(hi).toBeGreaterThan(3 + 8 * Math.exp(-2 / 9));
+    expect(hi).toBeLessThan(5 + 3.1 * 4);
+  });
   it('scales a template onto the flux by least squares', () => {
     expect(scaleToSpectrum([2, 4, 6], [1, 2, 3], [0, 0, 0])).toEqual([2, 4, 6]);
     expect(scaleToSpectrum([2, 4, 600], [1, 2, 3], [0, 0, 1])).toEqual([2, 4, 6]);
