@@ -3,8 +3,9 @@
  * EXTNAME = 'CATALOGUE': float64 → D, int64 → K, bool → L, text → A (TUNITn units, each
  * column's description in the comment of its TTYPEn card, table meta as header keywords, the
  * table's comments as COMMENT cards wrapped at word boundaries).
- * FITS text is printable ASCII, so other characters are written as '?'; the CSV and ECSV
- * exports keep the full text.
+ * FITS text is printable ASCII (FITS Standard 4.0, binary-table character fields; from memory), so Greek letters are spelled out
+ * (Hα → Halpha), accents dropped, ±, −, Å, ″ and line breaks written in ASCII, and only what is
+ * left outside ASCII as '?'; the CSV and ECSV exports keep the full text.
  */
 import { writeFits, type ColumnFormat } from '../fits/write.js';
 import { checkTable, type ColumnType, type Table } from './table.js';
@@ -12,8 +13,21 @@ import { checkTable, type ColumnType, type Table } from './table.js';
 const COMMENT_WIDTH = 72;
 const FORMATS: Record<ColumnType, ColumnFormat> = { float64: 'D', int64: 'K', bool: 'L', string: 'A' };
 
+const GREEK: Record<string, string> = {
+  α: 'alpha', β: 'beta', γ: 'gamma', δ: 'delta', ε: 'epsilon', ζ: 'zeta', η: 'eta', θ: 'theta', ι: 'iota', κ: 'kappa',
+  λ: 'lambda', μ: 'mu', ν: 'nu', ξ: 'xi', ο: 'omicron', π: 'pi', ρ: 'rho', σ: 'sigma', τ: 'tau', υ: 'upsilon', φ: 'phi',
+  χ: 'chi', ψ: 'psi', ω: 'omega', Δ: 'Delta', Λ: 'Lambda', Σ: 'Sigma', Ω: 'Omega', Φ: 'Phi', Ψ: 'Psi', Γ: 'Gamma', Θ: 'Theta',
+};
+const SYMBOLS: Record<string, string> = { '±': '+/-', '−': '-', '–': '-', '—': '-', '×': 'x', 'Å': 'A', '″': '"', '′': "'", '°': ' deg', '…': '...', '“': '"', '”': '"', '‘': "'", '’': "'", '☉': 'sun' };
+
 function asciiOnly(text: string): string {
-  return text.replace(/[^\x20-\x7e]/g, '?');
+  return text
+    .replace(/\r?\n/g, ' / ')
+    .replace(/[α-ωΑ-Ω]/g, (c) => GREEK[c] ?? c)
+    .replace(/[±−–—×Å″′°…“”‘’☉]/g, (c) => SYMBOLS[c])
+    .normalize('NFKD')
+    .replace(/[\u0300-\u036f]/g, '')
+    .replace(/[^\x20-\x7e]/g, '?');
 }
 
 /** COMMENT card texts (at most 72 characters, FITS Standard 4.0 §4.4.2.4), broken between words. */

@@ -25,6 +25,6 @@ export function renderCandidates(state: AppState, box: HTMLElement, onTry: (inde
     el('div', { class: 'panel-head' }, el('h2', {}, 'Candidates'), el('span', { class: 'nowrap' }, 'suggested:'), m.confidence === 'none' ? el('span', {}, 'none credible') : confidenceBadge(m.confidence), el('span', { class: 'nowrap' }, `· ${m.nLines} lines`),
       el('button', { type: 'button', class: 'ghost nowrap', onclick: onRemeasure, title: 'Shift+M' }, 'measure again…')),
     el('table', {}, el('thead', {}, head), el('tbody', {}, ...rows)),
-    el('p', { class: 'muted', id: 'candidate-order' }, `1 is the best${refined ? `, its z and σz from the ${refined}` : ''}. Order: how much of the spectrum each explains (√Δχ², then lines detected), not r alone.`),
+    el('p', { class: 'muted', id: 'candidate-order' }, `1 = best${refined ? ` (z, σz from the ${refined})` : ''} · order: √Δχ², then lines, not r alone`),
     m.notes.length ? el('p', { class: 'muted' }, m.notes.join(' · ')) : null);
 }

@@ -113,7 +113,9 @@ export class DecisionPanel {
       el('div', { class: 'row stacked' }, el('span', { class: 'label' }, 'class (Shift + initial: G A Q S U)'), ...OBJECT_CLASSES.map(cls)),
       el('div', { class: `verdict-now${v ? '' : ' pending'}`, id: 'verdict-now', 'data-z': v ? String(v.z) : null },
         v ? verdictLine(v) : 'pending: not vetted yet',
-        queued ? el('div', { class: 'muted' }, queued.state === 'failed' ? `NOT SAVED: ${queued.reason}` : 'saving…') : null));
+        queued ? el('div', { class: 'muted' }, queued.state === 'failed' ? `NOT SAVED: ${queued.reason}` : 'saving…') : null),
+      // What the last key did or why it was refused, in full beside the buttons (the top bar may cut it).
+      state.message ? el('div', { class: 'decision-message', id: 'decision-message', role: 'status' }, state.message) : null);
     if (document.activeElement !== this.noteInput) this.noteInput.value = state.grade.note;
   }
 }

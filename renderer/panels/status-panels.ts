@@ -11,6 +11,7 @@ export function renderSaveState(state: AppState, line: HTMLElement, banner: HTML
       : failed ? el('span', {}, `${state.saves.length} not saved`)
         : state.lastSaved ? el('span', { class: 'saved' }, `✓ saved ${state.lastSaved.id} at ${state.lastSaved.time}`) : el('span', {}, 'nothing saved yet this session'),
     state.message ? el('span', { class: 'muted' }, ` · ${state.message}`) : null);
+  line.title = line.textContent ?? '';
   banner.hidden = !failed;
   if (failed) {
     fill(banner,

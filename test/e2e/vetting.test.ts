@@ -251,6 +251,11 @@ describe('vetting in the window', () => {
 
   it('marks a hopeless spectrum "no redshift"', async () => {
     await nextUntil('KRT-26-0021.fits');
+    // "None credible": no confidence is outlined as the suggestion, and one key cannot save the guess.
+    expect(await page.locator('#decision button.suggested:has-text("secure"), #decision button.suggested:has-text("likely"), #decision button.suggested:has-text("tentative")').count()).toBe(0);
+    await press('a');
+    await expect.poll(() => page.locator('#decision-message').textContent()).toContain('found nothing credible: choose a confidence first');
+    expect(await page.locator('#verdict-now').textContent()).toContain('pending');
     await press('x');
     expect((await savedAs('no-redshift')).z).toBeNull();
     // Nothing is left drawn or derived from a z, and no confidence is shown as chosen.

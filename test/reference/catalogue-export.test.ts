@@ -72,8 +72,8 @@ describe.each(['csv', 'ecsv', 'fits'] as const)('%s export read back by astropy'
     expect(first.hdu).toBe(0);
     expect(first.status).toBe('accepted');
     expect(first.class).toBe('galaxy');
-    // FITS text is ASCII: the Greek letter comes back as '?'.
-    expect(first.note).toBe(format === 'fits' ? 'H?, [N II], "clean", 2nd line?here' : accepted.note);
+    // FITS text is ASCII (FITS Standard 4.0, binary-table character fields; from memory): the Greek letter spelled out, the line break as " / ".
+    expect(first.note).toBe(format === 'fits' ? 'Halpha, [N II], "clean", 2nd line / here' : accepted.note);
     expect(pending.status).toBe('pending');
     expect(pending.z).toBeNull();
     expect(pending.exptime_s).toBeNull();
