@@ -47,6 +47,8 @@ export const MEASURE_COLUMNS: MeasureColumn[] = [
     key: 'candidates',
     value: (r) => (r.measurement?.candidates ?? []).map((c) => ({ z: round(c.z, 8)!, z_err: round(c.zErr, 3)!, r: round(c.r, 4)!, template: c.template })),
   },
+  // What the engine noticed (a short spectrum, a fit that did not converge, nothing credible).
+  { key: 'notes', value: (r) => r.measurement?.notes.join('; ') || null },
 ];
 
 /** Candidates after the best flattened into CSV columns: z_2, z_err_2, r_2, template_2, z_3 … */

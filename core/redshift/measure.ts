@@ -67,10 +67,15 @@ function toCandidate(s: Scored, p: PreparedSpectrum): Candidate {
   };
 }
 
+/** Below this observed span a line pattern can hardly be recognised (common practice, no source: low-resolution optical spectra span 3000 Å and more). */
+const SHORT_SPAN_ANGSTROM = 1500;
+
 function finish(p: PreparedSpectrum, distinct: Scored[], curves: CorrelationCurveData[], options: MeasureOptions): Measurement {
   const max = options.maxCandidates ?? 5;
   const candidates = distinct.slice(0, max).map((s) => toCandidate(s, p));
   const notes: string[] = [];
+  const span = p.native.waveAngstrom[p.native.waveAngstrom.length - 1] - p.native.waveAngstrom[0];
+  if (span < SHORT_SPAN_ANGSTROM) notes.push(`the spectrum spans only ${Math.round(span)} Å: few lines fall in it, so a redshift rests on one or two features (for a star, measure with the star template alone)`);
   const correlations = options.withCorrelation ? curves.map(displayCurve) : undefined;
   if (candidates.length === 0) {
     notes.push('no correlation peak: nothing in the spectrum matches a template');

@@ -342,6 +342,15 @@ describe('measureRedshift on synthetic spectra', () => {
     expect(atEdge).toBeLessThanOrEqual(4);
   });
 
+  it('says when the spectrum spans too little to recognise a line pattern (a 250 Å echelle order)', () => {
+    const s = synthetic(0.05, 1, 8);
+    const keep = Array.from(s.waveAngstrom, (w, i) => (w >= 6800 && w <= 7050 ? i : -1)).filter((i) => i >= 0);
+    const [a, b] = [keep[0], keep[keep.length - 1] + 1];
+    const short = { ...s, waveAngstrom: s.waveAngstrom.slice(a, b), flux: s.flux.slice(a, b), error: s.error.slice(a, b), mask: s.mask.slice(a, b) };
+    expect(measureRedshift(short).notes.join(' ')).toMatch(/spans only 2[45]\d Å: few lines fall in it/);
+    expect(measureRedshift(s).notes.join(' ')).not.toMatch(/spans only/);
+  });
+
   it('refuses a flux that is the same at every usable pixel (a blank or zeroed file), saying so', () => {
     for (const value of [0, 3.5]) {
       const s = synthetic(null, 1, 7);
