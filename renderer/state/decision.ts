@@ -119,8 +119,8 @@ export function suggestedGrade(view: SpectrumView | null, trial: Trial): { confi
   const objectClass = ofTrial ? CLASS_OF_TEMPLATE[ofTrial.templateClass] : 'unknown';
   if (trial.z === null) return { confidence: null, objectClass };
   const isBest = trial.source === 'candidate' && trial.candidateIndex === 0;
-  // "None credible" suggests nothing: the observer must choose a confidence or say no redshift.
   if (!isBest || !m) return { confidence: 'tentative', objectClass };
+  // "None credible" suggests nothing: the observer must choose a confidence or say no redshift.
   return { confidence: m.confidence === 'none' ? null : m.confidence, objectClass };
 }
 
@@ -150,7 +150,6 @@ export function verdictFor(view: SpectrumView, decision: Decision, trial: Trial,
       const c = candidates(view)[decision.index];
       if (!c) return { refused: `there is no candidate ${decision.index + 1}` };
       if (decision.index === 0) return verdictFor(view, { kind: 'accept-best' }, trial, grade);
-      if (confidence === null) return { refused: NO_CONFIDENCE };
       return { ...base, status: 'revised', z: c.z, zErr: c.zErr, confidence, template: c.template };
     }
     case 'trial':
@@ -158,7 +157,6 @@ export function verdictFor(view: SpectrumView, decision: Decision, trial: Trial,
       // Enter on a verdict as it was saved keeps its status (only the grade may have changed).
       if (trial.source === 'saved' && view.verdict) return verdictFor(view, { kind: 'regrade', verdict: view.verdict }, trial, grade);
       if (trial.source === 'candidate' && trial.candidateIndex !== null) return verdictFor(view, { kind: 'candidate', index: trial.candidateIndex }, trial, grade);
-      if (confidence === null) return { refused: NO_CONFIDENCE };
       return { ...base, status: 'revised', z: trial.z, zErr: trial.source === 'saved' ? trial.zErr : null, confidence, template: trial.template };
     case 'no-redshift':
       // With no z there is no template to take a class from: unknown unless chosen.
