@@ -60,6 +60,11 @@ export const COSMOLOGY_PRESETS: Record<string, CosmologyModel> = {
 };
 
 /** Curvature density Ω_k = 1 − Ωm − ΩΛ − Ωr (Hogg eq. 7). */
+/** A parameter as it was defined, for display: ΩΛ = 1 − 0.3111 is 0.6889, not its binary rounding 0.6889000000000001. */
+export function asDefined(x: number): number {
+  return Number(x.toPrecision(12));
+}
+
 export function omegaK(model: CosmologyModel): number {
   return 1 - model.omegaM - model.omegaL - (model.omegaR ?? 0);
 }

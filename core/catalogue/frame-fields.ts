@@ -3,7 +3,7 @@
  * its unit, unit string astropy and FITS read, datatype, description), shared by the rows of
  * `zvet measure` and by the catalogue, so both name and describe them the same way.
  */
-import type { CosmologyModel } from '../astro/cosmology.js';
+import { asDefined, type CosmologyModel } from '../astro/cosmology.js';
 import type { FrameResult } from '../astro/frames.js';
 import type { Cell, ColumnSpec } from './table.js';
 
@@ -36,5 +36,5 @@ export const DISTANCE_FIELDS: readonly Field<FrameResult>[] = [
 
 /** The model's name and parameters in one short line, e.g. "planck18: H0 = 67.66 km/s/Mpc, Om = 0.3111, OL = 0.6889". */
 export function cosmologyParameters(model: CosmologyModel): string {
-  return `${model.name}: H0 = ${model.h0} km/s/Mpc, Om = ${model.omegaM}, OL = ${Number(model.omegaL.toPrecision(12))}`;
+  return `${model.name}: H0 = ${model.h0} km/s/Mpc, Om = ${model.omegaM}, OL = ${asDefined(model.omegaL)}`;
 }

@@ -64,6 +64,7 @@ export async function exportCatalogue(worklist: Worklist, format: CatalogueForma
   const table = { ...buildCatalogue(sources, meta, options.columns ?? EXPORT_COLUMNS), comments: [...DERIVED_COMMENTS] };
   await writeFileAtomic(outPath, serialiseTable(table, format));
   const vetted = sources.filter((s) => s.verdict && s.verdict.status !== 'pending').length;
+  const unreadableSpectra = sources.filter((s) => s.readProblem !== null).map((s) => s.spectrum);
   const listed = new Set(sources.map((s) => s.spectrum));
   const notInWorklist = [...worklist.journal.current()].filter(([spectrum, v]) => !listed.has(spectrum) && v.status !== 'pending').map(([spectrum]) => spectrum);
   return {
@@ -71,8 +72,8 @@ export async function exportCatalogue(worklist: Worklist, format: CatalogueForma
     rows: sources.length,
     vetted,
     pending: sources.length - vetted,
-    unreadable: sources.filter((s) => s.readProblem !== null).length,
-    unreadableSpectra: sources.filter((s) => s.readProblem !== null).map((s) => s.spectrum),
+    unreadable: unreadableSpectra.length,
+    unreadableSpectra,
     notInWorklist,
   };
 }

@@ -62,8 +62,10 @@ export class Worklist {
     const root = commonFolder(folders);
     const leftOut: string[] = [];
     const files = await listSpectrumFiles(given, { followLinks: false, leftOutLinks: leftOut });
-    const entries = [...new Set(files.map((f) => resolve(f)))].map((absPath) => ({ absPath, spectrum: relative(root, absPath).split(sep).join('/') }));
+    // Ids are paths below the root with forward slashes on every system.
+    const idOf = (p: string) => relative(root, p).split(sep).join('/');
+    const entries = [...new Set(files.map((f) => resolve(f)))].map((absPath) => ({ absPath, spectrum: idOf(absPath) }));
     const journal = await VerdictJournal.open(join(root, `${basename(root)}.verdicts.jsonl`));
-    return new Worklist(root, entries, journal, leftOut.map((p) => relative(root, p).split(sep).join('/')));
+    return new Worklist(root, entries, journal, leftOut.map(idOf));
   }
 }

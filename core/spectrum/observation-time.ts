@@ -20,7 +20,6 @@ export interface HeaderObservationTime extends ObservationTime {
 /** A DATE-OBS with a time of day and a numeric time may differ by this much before it is flagged. */
 const DATE_AGREEMENT_DAYS = 1;
 
-
 export function observationTime(k: Keywords): HeaderObservationTime | { obsTimeWarning: string } | undefined {
   const dateKey = firstString(k, ['DATE-OBS', 'DATE_OBS', 'UTDATE_S']);
   const timeKey = firstString(k, ['TIME-OBS', 'TIME_OBS', 'UT', 'UTC', 'UTSTART', 'UT-START']);

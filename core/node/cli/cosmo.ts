@@ -3,7 +3,7 @@
  * time, age and scale at each redshift (Hogg 1999), for a preset model or user values.
  */
 import type { Command } from 'commander';
-import { COSMOLOGY_PRESETS, distances, type CosmologyModel, type Distances } from '../../astro/cosmology.js';
+import { asDefined, COSMOLOGY_PRESETS, distances, type CosmologyModel, type Distances } from '../../astro/cosmology.js';
 import { numberOption } from './number-option.js';
 import { runAction } from './run-action.js';
 import { UsageError } from './usage-error.js';
@@ -58,11 +58,6 @@ export function modelFromOptions(opts: Pick<CosmoOptions, 'h0' | 'om' | 'ol' | '
     opts.ol !== undefined ? `ΩΛ = ${omegaL}` : opts.om !== undefined ? 'ΩΛ = 1 − Ωm (flat)' : null,
   ].filter(Boolean).join(', ');
   return { name: 'custom', h0, omegaM, omegaL, source: `user-set ${set}; other values from ${preset.name} (${preset.source})` };
-}
-
-/** A parameter as it was defined: ΩΛ = 1 − 0.3111 is 0.6889, not its binary rounding 0.6889000000000001. */
-function asDefined(x: number): number {
-  return Number(x.toPrecision(12));
 }
 
 function jsonRow(d: Distances, model: CosmologyModel) {
