@@ -17,7 +17,7 @@ afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 function zvet(...args: string[]) {
   const r = spawnSync(process.execPath, [ZVET_BIN, 'measure', ...args], { encoding: 'utf8', timeout: 120_000 });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
+  return { status: r.status, signal: r.signal, error: r.error, stdout: r.stdout, stderr: r.stderr };
 }
 
 describe('zvet measure paths and outputs', () => {
@@ -86,7 +86,10 @@ describe('zvet measure paths and outputs', () => {
     expect(clash.stderr).toBe(`zvet: --out ${join(night, 'KRT-26-0018.csv')} is also an input: it would be emptied before it is read\n`);
     expect(readFileSync(join(night, 'KRT-26-0018.csv'), 'utf8')).toBe(before);
     // Run twice into the folder it walks: the second run does not measure the first one's rows.
-    for (let run = 0; run < 2; run++) expect(zvet(night, '--out', join(night, 'rows.csv')).status).toBe(0);
+    for (let run = 0; run < 2; run++) {
+      const r = zvet(night, '--out', join(night, 'rows.csv'));
+      expect(r.status, `run ${run + 1}: signal ${r.signal}, ${r.error?.message ?? ''} ${r.stderr}`).toBe(0);
+    }
     const rows = readFileSync(join(night, 'rows.csv'), 'utf8').trim().split('\n');
     expect(rows).toHaveLength(3);
     expect(rows.some((r) => r.includes('rows.csv'))).toBe(false);
