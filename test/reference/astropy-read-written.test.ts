@@ -1,7 +1,7 @@
 // Files written by Debian's astropy (each BITPIX with BSCALE/BZERO/BLANK, CONTINUE long strings,
 // an IRAF-style multispec image with BANDIDn, an AWAV air axis in nm, a WAVE-LOG axis, a
 // DC-FLAG log10 axis, a per-pixel table with TUNITn/TSCALn/TZEROn/TNULLn, a single-row array
-// table, an ASCII table and a gzip file), read back by zvet. The expected values are what
+// table, an ASCII table, a 1-D SDSS COEFF0/COEFF1 image and a gzip file), read back by zvet. The expected values are what
 // astropy itself reads from those files; wavelengths of WCS axes come from astropy.wcs
 // (FITS WCS Papers I and III), air ones taken to vacuum by Morton (1991) eq. 3 in Python.
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
@@ -102,6 +102,15 @@ for k, v in [('CTYPE1', 'LINEAR'), ('CRVAL1', 3.6), ('CD1_1', 1e-4), ('CRPIX1', 
 hdu.writeto(os.path.join(out_dir, 'dcflag.fits'))
 add('dcflag.fits', vac_from_air(10 ** (3.6 + 1e-4 * np.arange(n))), flux, 'air', 'fits-image-1d')
 
+# SDSS 1-D image: lambda = 10^(COEFF0 + COEFF1 i) in vacuum (SDSS data model), IVAR companion.
+hdu = fits.PrimaryHDU(data=flux.astype('>f4'))
+for k, v in [('TELESCOP', 'SDSS 2.5-M'), ('COEFF0', 3.5791), ('COEFF1', 1e-4)]:
+    hdu.header[k] = v
+iv = fits.ImageHDU(data=np.full(n, 0.25, dtype='>f4'), name='IVAR')
+fits.HDUList([hdu, iv]).writeto(os.path.join(out_dir, 'coeff-1d.fits'))
+back = fits.open(os.path.join(out_dir, 'coeff-1d.fits'))
+add('coeff-1d.fits', 10 ** (back[0].header['COEFF0'] + back[0].header['COEFF1'] * np.arange(n)), back[0].data.astype(float), 'vacuum', 'fits-image-1d', error=1 / np.sqrt(back[1].data.astype(float)))
+
 # IRAF multispec/equispec 3-D image: bands along axis 3 named by BANDIDn.
 spec = rng.normal(20, 2, n); raw = spec + 3; sky = rng.normal(3, 0.1, n); sig = np.full(n, 1.5)
 cube = np.stack([spec, raw, sky, sig])[:, None, :]
@@ -184,7 +193,7 @@ describe('files written by astropy read back in zvet', () => {
   it('astropy wrote every case', () => {
     expect(cases.map((c) => c.file)).toEqual([
       'bitpix8.fits', 'bitpix16.fits', 'bitpix32.fits', 'bitpix64.fits', 'bitpix-32.fits', 'bitpix-64.fits',
-      'continue-awav-nm.fits', 'wave-log.fits', 'dcflag.fits', 'multispec.fits', 'table-rows.fits',
+      'continue-awav-nm.fits', 'wave-log.fits', 'dcflag.fits', 'coeff-1d.fits', 'multispec.fits', 'table-rows.fits',
       'table-arrays.fits', 'ascii-table.fits', 'multispec.fits.gz',
     ]);
   });

@@ -7,12 +7,10 @@
  *   SPECTRUM', 'ERROR' (σ), 'MASK'), λ = 10^(COEFF0 + COEFF1·i), i from 0, vacuum (SDSS data model).
  */
 import { readImage } from '../../fits/image.js';
-import type { Dispersion } from '../spectrum.js';
-import type { WaveUnit } from '../units.js';
 import { ERROR_KIND, maskFrom, sdssMaskFrom, sigmaFrom } from '../columns.js';
 import { bunit, headerParts, type HduContext, type LayoutDraft, type LayoutVerdict } from './layout.js';
 import { sdssDefaults } from './surveys.js';
-import { axisProblem, linearAxis } from './wavelength-axis.js';
+import { axisProblem, coeffAxis, hasCoeffAxis, linearAxis, type WavelengthAxis } from './wavelength-axis.js';
 
 type BandRole = 'flux' | 'sigma' | 'ivar' | 'variance' | 'sky' | 'mask' | 'other';
 
@@ -32,7 +30,7 @@ interface Bands {
   /** Offset of band b (0-based) in the image values, for aperture 1. */
   offset(band: number): number;
   labels: string[];
-  wave: () => { wave: Float64Array; unit: WaveUnit; dispersion: Dispersion };
+  wave: () => WavelengthAxis;
   format: string;
 }
 
@@ -42,17 +40,11 @@ export function matchBandedImage(ctx: HduContext): LayoutVerdict {
   const [n, n2, n3 = 1] = hdu.axes;
   if (hdu.axes.length > 3 && hdu.axes.slice(3).some((a) => a !== 1)) return `${hdu.axes.length}-D image is not a spectrum layout zvet reads`;
   let bands: Bands;
-  if (k.number('COEFF0') !== undefined && k.number('COEFF1') !== undefined && hdu.axes.length === 2) {
-    const c0 = k.number('COEFF0')!;
-    const c1 = k.number('COEFF1')!;
+  if (hasCoeffAxis(k) && hdu.axes.length === 2) {
     bands = {
       offset: (b) => b * n,
       labels: Array.from({ length: n2 }, (_, b) => k.string(`ARRAY${b + 1}`) ?? ''),
-      wave: () => ({
-        wave: Float64Array.from({ length: n }, (_, i) => 10 ** (c0 + c1 * i)),
-        unit: { name: 'Å', toAngstrom: 1, assumed: false },
-        dispersion: 'log10',
-      }),
+      wave: () => coeffAxis(k, n),
       format: 'fits-survey-image',
     };
   } else {

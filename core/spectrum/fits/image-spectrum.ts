@@ -1,6 +1,6 @@
 /**
  * 1-D spectra stored as images: one image HDU (primary or extension) with a linear, log10
- * (DC-FLAG = 1) or `-LOG` wavelength axis, and optional companion HDUs of the same length named
+ * (DC-FLAG = 1 or SDSS COEFF0/COEFF1) or `-LOG` wavelength axis, and optional companion HDUs of the same length named
  * for their content (EXTNAME 'ERROR', 'SIGMA', 'IVAR', 'VARIANCE', 'SKY', 'MASK', …).
  * GALAH files (Kos et al. 2017): HDU 0 counts and HDU 1 'normalized' are spectra; the
  * 'relative_error' HDU is σ/flux, so σ = relative_error × |flux|; 'sky' is in counts and goes
@@ -10,8 +10,8 @@ import { readImage } from '../../fits/image.js';
 import type { FitsHdu } from '../../fits/parse.js';
 import { ERROR_KIND, maskFrom, sigmaFrom, type ErrorRole } from '../columns.js';
 import { bunit, headerParts, type HduContext, type LayoutDraft, type LayoutVerdict } from './layout.js';
-import { GALAH_DEFAULTS } from './surveys.js';
-import { axisProblem, linearAxis } from './wavelength-axis.js';
+import { GALAH_DEFAULTS, sdssDefaults } from './surveys.js';
+import { axisProblem, coeffAxis, hasCoeffAxis, linearAxis, type WavelengthAxis } from './wavelength-axis.js';
 
 type CompanionRole = ErrorRole | 'relative' | 'sky' | 'mask' | 'auxiliary';
 
@@ -49,12 +49,11 @@ export function matchImage1d(ctx: HduContext): LayoutVerdict {
   const role = companionRole(ctx.hdu);
   if (role) return `'${ctx.hdu.extname}' image accompanies a spectrum`;
   const problem = axisProblem(ctx.keywords);
-  if (problem) return `1-D image with ${problem}`;
-  return { format: 'fits-image-1d', read: () => readImage1d(ctx, n) };
+  if (problem && !hasCoeffAxis(ctx.keywords)) return `1-D image with ${problem}`;
+  return { format: 'fits-image-1d', read: () => readImage1d(ctx, n, problem ? coeffAxis(ctx.keywords, n) : linearAxis(ctx.keywords, n)) };
 }
 
-function readImage1d(ctx: HduContext, n: number): LayoutDraft {
-  const { wave, unit, dispersion } = linearAxis(ctx.keywords, n);
+function readImage1d(ctx: HduContext, n: number, { wave, unit, dispersion }: WavelengthAxis): LayoutDraft {
   const flux = readImage(ctx.hdu).values;
   const mask = new Uint8Array(n);
   let error: Float64Array | undefined;
@@ -81,7 +80,7 @@ function readImage1d(ctx: HduContext, n: number): LayoutDraft {
       hasMask = true;
     }
   }
-  const parts = headerParts(ctx, galah ? GALAH_DEFAULTS : {});
+  const parts = headerParts(ctx, galah ? GALAH_DEFAULTS : (sdssDefaults(ctx.keywords) ?? {}));
   return {
     format: galah ? 'fits-image-1d (GALAH)' : 'fits-image-1d',
     wave,

@@ -4,6 +4,7 @@
  * p the 1-based pixel). `-LOG` axes (WCS Paper III, Greisen et al. 2006, eq. 5):
  * λ = CRVAL·exp(CDELT·(p − CRPIX)/CRVAL). IRAF's DC-FLAG = 1: λ = 10^(CRVAL + CDELT·(p − CRPIX)).
  * The unit comes from CUNITi, else the IRAF WAT1_001 'units=' word, else the values.
+ * SDSS images carry instead λ = 10^(COEFF0 + COEFF1·i), i from 0, in Å (SDSS data model).
  */
 import type { Keywords } from '../keywords.js';
 import type { Dispersion } from '../spectrum.js';
@@ -52,6 +53,17 @@ export function linearAxis(k: Keywords, length: number, axis = 1): WavelengthAxi
     for (let i = 0; i < length; i++) wave[i] = crval + delta * (i + 1 - crpix);
   }
   return { wave, unit: axisUnit(k, axis, wave), dispersion };
+}
+
+/** True when the header carries the SDSS log10 solution COEFF0/COEFF1. */
+export function hasCoeffAxis(k: Keywords): boolean {
+  return k.number('COEFF0') !== undefined && k.number('COEFF1') !== undefined;
+}
+
+export function coeffAxis(k: Keywords, length: number): WavelengthAxis {
+  const c0 = k.number('COEFF0')!;
+  const c1 = k.number('COEFF1')!;
+  return { wave: Float64Array.from({ length }, (_, i) => 10 ** (c0 + c1 * i)), unit: { name: 'Å', toAngstrom: 1, assumed: false }, dispersion: 'log10' };
 }
 
 function step(k: Keywords, axis: number): number | undefined {
