@@ -144,3 +144,12 @@ export function correctFrames(input: FrameInput): FrameResult {
   if (zDist < 0) return { ...result, reason: `${reason}; no distances for a negative redshift` };
   return { ...result, distances: distances(zDist, input.cosmology), distancesFrom };
 }
+
+/** correctFrames, or null where the header's values cannot be used (a bad RA/Dec or time). */
+export function framesOrNull(input: FrameInput): FrameResult | null {
+  try {
+    return correctFrames(input);
+  } catch {
+    return null;
+  }
+}

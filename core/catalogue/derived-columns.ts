@@ -42,7 +42,7 @@ export function deriveForCatalogue(verdict: Verdict | null, spectrum: Spectrum, 
   }
   if (!HOST_CLASSES.has(verdict!.objectClass)) return { frames, framesProblem, host: null, hostProblem: null };
   try {
-    return { frames, framesProblem, host: summariseHost(analyseHost(spectrum, z, { cosmology: options.cosmology })), hostProblem: null };
+    return { frames, framesProblem, host: summariseHost(analyseHost(spectrum, z, { cosmology: options.cosmology, frames })), hostProblem: null };
   } catch (err) {
     return { frames, framesProblem, host: null, hostProblem: `host lines not measured: ${(err as Error).message}` };
   }

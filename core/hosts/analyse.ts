@@ -4,6 +4,7 @@
  * to rerun whenever the redshift changes.
  */
 import { COSMOLOGY_PRESETS, distances, type CosmologyModel } from '../astro/cosmology.js';
+import type { FrameResult } from '../astro/frames.js';
 import type { Spectrum } from '../spectrum/spectrum.js';
 import type { AttenuationCurve } from './attenuation.js';
 import { balmerDecrement, type BalmerDecrement } from './balmer.js';
@@ -19,6 +20,11 @@ export interface HostAnalysisOptions {
   attenuation?: AttenuationCurve;
   /** Instrumental FWHM, observed Å, removed from the line widths. */
   instrumentalFwhmAngstrom?: number;
+  /**
+   * The frame correction of z (made with the same cosmology): the SFR then takes its luminosity
+   * distance, at z_cmb where known, as the distance columns do; without it, D_L at z as measured.
+   */
+  frames?: FrameResult | null;
 }
 
 export interface HostAnalysis {
@@ -29,6 +35,11 @@ export interface HostAnalysis {
   balmer: BalmerDecrement;
   sfr: StarFormation;
   measurement: Omit<LineMeasurementSet, 'lines'> & { stellar_absorption_method: string; flux_unit: string };
+}
+
+function luminosityDistance(z: number, cosmology: CosmologyModel, frames: FrameResult | null | undefined): { luminosityDistanceMpc: number; luminosityDistanceFrom: string } {
+  if (frames?.distances && frames.distancesFrom) return { luminosityDistanceMpc: frames.distances.luminosityMpc, luminosityDistanceFrom: frames.distancesFrom };
+  return { luminosityDistanceMpc: z > 0 ? distances(z, cosmology).luminosityMpc : 0, luminosityDistanceFrom: 'measured' };
 }
 
 export function analyseHost(spectrum: Spectrum, z: number, options: HostAnalysisOptions = {}): HostAnalysis {
@@ -46,7 +57,7 @@ export function analyseHost(spectrum: Spectrum, z: number, options: HostAnalysis
     haFlux: ha && !ha.limit ? { flux: ha.flux, err: ha.flux_err } : null,
     haCorrected: balmer.halpha_flux_corrected !== null ? { flux: balmer.halpha_flux_corrected, err: balmer.halpha_flux_corrected_err! } : null,
     fluxUnit: spectrum.fluxUnit,
-    luminosityDistanceMpc: z > 0 ? distances(z, cosmology).luminosityMpc : 0,
+    ...luminosityDistance(z, cosmology, options.frames),
     cosmology: `${cosmology.name}: ${cosmology.source}`,
     extraCaveat: agnCaveat,
   });

@@ -34,6 +34,8 @@ export interface StarFormation {
   l_halpha_uncorrected_erg_s: number | null;
   dust_corrected: boolean;
   luminosity_distance_mpc: number | null;
+  /** The z the distance is at: 'cmb' (as the catalogue's distance columns), another frame, or 'measured' (no frame correction). */
+  luminosity_distance_from: string;
   cosmology: string;
   sfr_kennicutt98_msun_yr: number | null;
   sfr_kennicutt98_err_msun_yr: number | null;
@@ -54,6 +56,7 @@ export interface StarFormationInput {
   haCorrected: { flux: number; err: number } | null;
   fluxUnit: string;
   luminosityDistanceMpc: number;
+  luminosityDistanceFrom: string;
   cosmology: string;
   /** Extra caveat (an AGN contributing to Hα), which makes the SFRs upper limits. */
   extraCaveat: string | null;
@@ -63,6 +66,7 @@ export function starFormation(input: StarFormationInput): StarFormation {
   const unit = parseFluxDensityUnit(input.fluxUnit);
   const base = {
     luminosity_distance_mpc: input.luminosityDistanceMpc,
+    luminosity_distance_from: input.luminosityDistanceFrom,
     cosmology: input.cosmology,
     imf: { kennicutt98: 'Salpeter (1955), 0.1–100 M☉', ke12: 'Kroupa (2001), 0.1–100 M☉' },
     flux_unit: input.fluxUnit,
@@ -92,4 +96,10 @@ export function starFormation(input: StarFormationInput): StarFormation {
     sfr_ke12_err_msun_yr: (sfrKennicuttEvans12(l) * lErr) / l,
     note: input.haCorrected ? null : 'Hα not corrected for dust (no usable Balmer decrement)',
   };
+}
+
+/** Which z a luminosity distance is at, in words for a reader. */
+export function distanceBasis(from: string): string {
+  const frameZ: Record<string, string> = { cmb: 'z_cmb', barycentric: 'z_bary', heliocentric: 'z_helio' };
+  return frameZ[from] ? `at ${frameZ[from]}` : 'at z as measured (no frame correction)';
 }

@@ -10,7 +10,7 @@ import { Worker } from 'node:worker_threads';
 import type { CosmologyModel } from '../astro/cosmology.js';
 import type { MeasureRowExtras } from '../catalogue/measure-derived-columns.js';
 import type { Measurement, MeasureOptions } from '../redshift/types.js';
-import type { Spectrum } from '../spectrum/spectrum.js';
+import type { Site, Spectrum } from '../spectrum/spectrum.js';
 
 /** Carries the spectrum's metadata always, and host diagnostics when asked for. */
 export interface MeasureFileResult extends MeasureRowExtras {
@@ -37,8 +37,14 @@ export interface WorkerRequest {
   path: string;
   options: MeasureOptions;
   includeSpectrum: boolean;
-  /** Measure the host lines at the best z, with this cosmology for the SFR; null = don't. */
-  hostLines: { cosmology: CosmologyModel } | null;
+  /** Measure the host lines at the best z, null = don't. */
+  hostLines: HostLinesRequest | null;
+}
+
+/** The cosmology and site of the rows' frame correction, whose luminosity distance the SFR takes. */
+export interface HostLinesRequest {
+  cosmology: CosmologyModel;
+  site?: Site;
 }
 
 export interface WorkerReply {
@@ -110,7 +116,7 @@ export class MeasurePool {
     for (let i = 0; i < jobs; i++) this.slots.push(this.spawn());
   }
 
-  measureFile(path: string, options: MeasureOptions & { includeSpectrum?: boolean; hostLines?: { cosmology: CosmologyModel } } = {}): Promise<MeasureFileResult> {
+  measureFile(path: string, options: MeasureOptions & { includeSpectrum?: boolean; hostLines?: HostLinesRequest } = {}): Promise<MeasureFileResult> {
     if (this.closed) return Promise.reject(new Error('MeasurePool is closed'));
     const { includeSpectrum, hostLines, ...measureOptions } = options;
     return new Promise((resolve) => {

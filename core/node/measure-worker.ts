@@ -7,10 +7,11 @@ import { parentPort } from 'node:worker_threads';
 import { summariseHost } from '../catalogue/host-fields.js';
 import { analyseHost } from '../hosts/analyse.js';
 import { measureRedshift, type StageTimes } from '../redshift/measure.js';
-import type { MeasureOptions } from '../redshift/types.js';
+import type { Candidate, MeasureOptions } from '../redshift/types.js';
+import { framesOrNull } from '../astro/frames.js';
 import { SpectrumReadError, type Spectrum } from '../spectrum/spectrum.js';
 import { readSpectrumFile } from './read-spectrum-file.js';
-import type { MeasureFileResult, WorkerRequest, WorkerReply } from './measure-pool.js';
+import type { HostLinesRequest, MeasureFileResult, WorkerRequest, WorkerReply } from './measure-pool.js';
 
 if (!parentPort) throw new Error('measure-worker must run in a worker thread');
 const port = parentPort;
@@ -33,7 +34,7 @@ async function handle(req: WorkerRequest): Promise<void> {
     times.readMs = performance.now() - t0;
     const measurement = measureRedshift(spectrum, req.options as MeasureOptions, times);
     result = { file: req.path, hdu: spectrum.provenance.hdu, status: 'ok', error: null, measurement, meta: spectrum.meta };
-    if (req.hostLines) Object.assign(result, hostLinesAt(spectrum, measurement.best?.z, req.hostLines));
+    if (req.hostLines) Object.assign(result, hostLinesAt(spectrum, measurement.best, req.hostLines));
   } catch (err) {
     if (!times.readMs) times.readMs = performance.now() - t0;
     result = { file: req.path, hdu: spectrum?.provenance.hdu ?? null, status: 'error', error: oneLine(err), measurement: null };
@@ -54,10 +55,11 @@ async function handle(req: WorkerRequest): Promise<void> {
   }
 }
 
-function hostLinesAt(spectrum: Spectrum, z: number | undefined, options: NonNullable<WorkerRequest['hostLines']>): Pick<MeasureFileResult, 'lines' | 'linesNote'> {
-  if (z === undefined) return { lines: null, linesNote: 'no redshift to measure the lines at' };
+function hostLinesAt(spectrum: Spectrum, best: Candidate | null, { cosmology, site }: HostLinesRequest): Pick<MeasureFileResult, 'lines' | 'linesNote'> {
+  if (!best) return { lines: null, linesNote: 'no redshift to measure the lines at' };
   try {
-    return { lines: summariseHost(analyseHost(spectrum, z, options)), linesNote: null };
+    const frames = framesOrNull({ zObs: best.z, zErr: best.zErr, meta: spectrum.meta, site, cosmology });
+    return { lines: summariseHost(analyseHost(spectrum, best.z, { cosmology, frames })), linesNote: null };
   } catch (err) {
     return { lines: null, linesNote: `lines not measured: ${oneLine(err)}` };
   }

@@ -1,6 +1,7 @@
 /** The host-galaxy panel at the trial z: line table, [N II] diagram, class, Balmer decrement, SFR. */
 import type { ObjectClass } from '../../core/catalogue/verdict.js';
 import type { HostAnalysis } from '../../core/hosts/analyse.js';
+import { distanceBasis } from '../../core/hosts/sfr.js';
 import { restLine } from '../../core/redshift/line-list.js';
 import { buildBptFigure } from '../plot/bpt-figure.js';
 import { loadPlotly, PLOT_CONFIG } from '../plot/plotly.js';
@@ -71,6 +72,7 @@ export function renderHost(box: HTMLElement, live: LiveResult<HostAnalysis> | nu
     el('dl', {},
       el('dt', {}, 'Hα/Hβ'), el('dd', {}, h.balmer.decrement === null ? '—' : `${h.balmer.decrement.toFixed(2)} ± ${(h.balmer.decrement_err ?? 0).toFixed(2)}`),
       el('dt', {}, `E(B−V), ${h.balmer.curve}`), el('dd', {}, fmtNum(h.balmer.ebv, 3, 'mag')),
+      el('dt', {}, 'D_L'), el('dd', {}, sfr.luminosity_distance_mpc ? `${sfr.luminosity_distance_mpc.toFixed(1)} Mpc ${distanceBasis(sfr.luminosity_distance_from)}` : '—'),
       el('dt', {}, 'L(Hα)'), el('dd', {}, sfr.l_halpha_erg_s === null ? '—' : `${sig(sfr.l_halpha_erg_s)} erg/s${sfr.dust_corrected ? ' (dust-corr.)' : ''}`),
       el('dt', {}, 'SFR, Kennicutt 98'), el('dd', {}, sfrText(sfr.sfr_kennicutt98_msun_yr, sfr.sfr_kennicutt98_err_msun_yr, sfr.upper_limit)),
       el('dt', {}, 'SFR, Kennicutt & Evans 12'), el('dd', {}, sfrText(sfr.sfr_ke12_msun_yr, sfr.sfr_ke12_err_msun_yr, sfr.upper_limit))),

@@ -84,7 +84,11 @@ print(json.dumps([c.comoving_distance(z).to_value(u.Mpc), c.luminosity_distance(
   it('carries the host diagnostics for a vetted galaxy or AGN, equal to analyseHost in erg/s/cm2', async () => {
     for (const [name, z] of [['KRT-26-0014.fits', 0.08762], ['KRT-26-0019.fits.gz', 0.02968]] as const) {
       const spectrum = await readSpectrumFile(join(night, name));
-      const lib = analyseHost(spectrum, z, { cosmology: COSMOLOGY_PRESETS.planck18 });
+      // The catalogue's SFR takes the luminosity distance of its own distance columns (at z_cmb).
+      const frames = correctFrames({ zObs: z, zErr: 0.0001, meta: spectrum.meta, cosmology: COSMOLOGY_PRESETS.planck18 });
+      const lib = analyseHost(spectrum, z, { cosmology: COSMOLOGY_PRESETS.planck18, frames });
+      expect(lib.sfr.luminosity_distance_from).toBe('cmb');
+      expect(Math.abs((by[name].lum_dist_mpc as number) / lib.sfr.luminosity_distance_mpc! - 1)).toBeLessThan(1e-12);
       const ha = lib.lines.find((l) => l.name === 'Halpha' && l.component === 'narrow')!;
       // 1e-17 erg/s/cm2/Angstrom × Å in the demo files.
       expect(spectrum.fluxUnit).toBe('1e-17 erg/s/cm2/Angstrom');

@@ -172,6 +172,20 @@ describe('zvet measure --lines', () => {
     }
   }, 60_000);
 
+  it('takes the SFR’s luminosity distance from the row’s own lum_dist_mpc (at z_cmb), not from D_L at the measured z', async () => {
+    // L = 4π D_L² F (Kennicutt 1998): at one flux the SFRs scale as D_L², so the row's SFR over
+    // the SFR at D_L(z as measured) must be (lum_dist_mpc / D_L(z))². The demo hosts lie at
+    // z ≈ 0.03–0.1, where the frame correction and the CMB dipole move D_L by ~1 %.
+    for (const name of ['KRT-26-0011.fits', 'KRT-26-0019.fits.gz']) {
+      const row = byName(name);
+      const atMeasuredZ = analyseHost(await readSpectrumFile(row.file), row.z!, { cosmology: COSMOLOGY_PRESETS.planck18 }).sfr;
+      expect(atMeasuredZ.luminosity_distance_from).toBe('measured');
+      const dlRatio = (row.lum_dist_mpc as number) / atMeasuredZ.luminosity_distance_mpc!;
+      expect(Math.abs(dlRatio - 1), name).toBeGreaterThan(1e-3);
+      expect(Math.abs((row.sfr_k98_msun_yr as number) / atMeasuredZ.sfr_kennicutt98_msun_yr! / dlRatio ** 2 - 1), name).toBeLessThan(1e-5);
+    }
+  }, 60_000);
+
   it('classifies the demo hosts: the star-forming ones star-forming, the Seyfert 2 agn/seyfert, the passive host insufficient', () => {
     // Demo truth (sample-spectra/truth.csv): KRT-26-0011 star-forming host, KRT-26-0019
     // low-metallicity star-forming dwarf, KRT-26-0014 Seyfert 2 above Kewley et al. (2001),

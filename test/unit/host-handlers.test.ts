@@ -175,6 +175,10 @@ describe('host handlers: spectra and measurements', () => {
     const host = await h.hostAnalysis({ id: 'KRT-26-0011.fits', z: zTrue });
     expect(host.z).toBe(zTrue);
     expect(host.lines.some((l) => l.name === 'Halpha' && !l.limit)).toBe(true);
+    // The SFR takes the derived panel's luminosity distance (at z_cmb), so the two panels agree.
+    const derived = await h.derived({ id: 'KRT-26-0011.fits', z: zTrue, zErr: null });
+    expect(host.sfr.luminosity_distance_from).toBe('cmb');
+    expect(host.sfr.luminosity_distance_mpc).toBe(derived.distances!.luminosityMpc);
   });
 });
 

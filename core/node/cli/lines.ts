@@ -1,16 +1,20 @@
 /**
  * `zvet lines FILE --z Z [--json] [--hdu N] [--preset NAME] [--curve calzetti2000|ccm89]
- * [--instrumental-fwhm Å]`: emission-line fluxes, equivalent widths and widths at a given
- * redshift, the diagnostic-diagram classes, the Balmer decrement and the Hα star-formation rate.
+ * [--instrumental-fwhm Å] [--site NAME]`: emission-line fluxes, equivalent widths and widths at a
+ * given redshift, the diagnostic-diagram classes, the Balmer decrement and the Hα star-formation
+ * rate, with the luminosity distance at the CMB-frame z where the header allows that correction.
  */
 import type { Command } from 'commander';
+import { framesOrNull } from '../../astro/frames.js';
 import { analyseHost, type HostAnalysis } from '../../hosts/analyse.js';
 import type { AttenuationCurve } from '../../hosts/attenuation.js';
 import { maxInstrumentalFwhmAngstrom } from '../../hosts/measure-lines.js';
+import { distanceBasis } from '../../hosts/sfr.js';
 import { readSpectrumFile } from '../read-spectrum-file.js';
 import { modelFromOptions } from './cosmo.js';
 import { numberOption } from './number-option.js';
 import { runAction } from './run-action.js';
+import { SITE_OPTION_HELP, siteOption } from './site-option.js';
 import { UsageError } from './usage-error.js';
 
 interface LinesOptions {
@@ -20,6 +24,7 @@ interface LinesOptions {
   preset?: string;
   curve?: string;
   instrumentalFwhm?: string;
+  site?: string;
 }
 
 const CURVES: AttenuationCurve[] = ['calzetti2000', 'ccm89'];
@@ -35,6 +40,7 @@ export function registerLines(program: Command): void {
     .option('--preset <name>', 'cosmology for the luminosity distance (planck18, round70; default planck18)')
     .option('--curve <name>', `attenuation curve: ${CURVES.join(', ')} (default calzetti2000)`)
     .option('--instrumental-fwhm <angstrom>', 'instrumental FWHM in observed Å, removed from the line widths')
+    .option('--site <name>', SITE_OPTION_HELP)
     .action(runAction(async (file: string, opts: LinesOptions) => {
       const z = numberOption('--z', opts.z, 0);
       const hdu = opts.hdu === undefined ? undefined : numberOption('--hdu', opts.hdu, 0);
@@ -48,7 +54,8 @@ export function registerLines(program: Command): void {
       }
       const cosmology = modelFromOptions({ preset: opts.preset });
       const spectrum = await readSpectrumFile(file, { hdu });
-      const analysis = analyseHost(spectrum, z, { cosmology, attenuation: curve, instrumentalFwhmAngstrom });
+      const frames = framesOrNull({ zObs: z, meta: spectrum.meta, site: siteOption(opts.site), cosmology });
+      const analysis = analyseHost(spectrum, z, { cosmology, attenuation: curve, instrumentalFwhmAngstrom, frames });
       process.stdout.write(opts.json ? `${JSON.stringify({ file, ...analysis })}\n` : formatAnalysis(file, analysis));
     }));
 }
@@ -93,7 +100,7 @@ export function formatAnalysis(file: string, a: HostAnalysis): string {
   out.push(`Balmer decrement Hα/Hβ = ${num(b.decrement, 2)} ± ${num(b.decrement_err, 2)} (intrinsic ${b.intrinsic}, case B)`);
   out.push(`E(B−V) = ${num(b.ebv, 3)} ± ${num(b.ebv_err, 3)} mag, ${b.curve_source}: k(Hβ) = ${num(b.k_hbeta, 2)}, k(Hα) = ${num(b.k_halpha, 2)}; ${b.note}`);
   const s = a.sfr;
-  out.push(`L(Hα) = ${sci(s.l_halpha_erg_s)} ± ${sci(s.l_halpha_err_erg_s, 1)} erg/s${s.dust_corrected ? ' (dust-corrected)' : ''}; D_L = ${num(s.luminosity_distance_mpc, 1)} Mpc (${s.cosmology.split(':')[0]})`);
+  out.push(`L(Hα) = ${sci(s.l_halpha_erg_s)} ± ${sci(s.l_halpha_err_erg_s, 1)} erg/s${s.dust_corrected ? ' (dust-corrected)' : ''}; D_L = ${num(s.luminosity_distance_mpc, 1)} Mpc (${distanceBasis(s.luminosity_distance_from)}, ${s.cosmology.split(':')[0]})`);
   const sfrText = (v: number | null, err: number | null) => (s.upper_limit && v !== null ? `SFR < ${num(v, 3)} M☉/yr (upper limit: an AGN contributes to Hα)` : `SFR = ${num(v, 3)} ± ${num(err, 3)} M☉/yr`);
   out.push(`${sfrText(s.sfr_kennicutt98_msun_yr, s.sfr_kennicutt98_err_msun_yr)} (Kennicutt 1998, ${s.imf.kennicutt98})`);
   out.push(`${sfrText(s.sfr_ke12_msun_yr, s.sfr_ke12_err_msun_yr)} (Kennicutt & Evans 2012, ${s.imf.ke12})`);

@@ -71,7 +71,8 @@ export function registerMeasure(program: Command, columns: MeasureColumn[] = MEA
 
 async function measure(paths: string[], opts: MeasureCliOptions, baseColumns: MeasureColumn[]): Promise<number> {
   const cosmology = modelFromOptions(opts);
-  const columns = [...baseColumns, ...measureFrameColumns({ site: siteOption(opts.site), cosmology }), ...(opts.lines ? MEASURE_LINE_COLUMNS : [])];
+  const site = siteOption(opts.site);
+  const columns = [...baseColumns, ...measureFrameColumns({ site, cosmology }), ...(opts.lines ? MEASURE_LINE_COLUMNS : [])];
   const format = opts.format ?? formatFromOut(opts.out);
   if (format !== 'csv' && format !== 'jsonl') throw new UsageError(`--format: "${format}" is not csv or jsonl`);
   const jobs = opts.jobs === undefined ? undefined : positiveInt(opts.jobs, '--jobs');
@@ -121,7 +122,7 @@ async function measure(paths: string[], opts: MeasureCliOptions, baseColumns: Me
   try {
     if (format === 'csv') await lines.write(csvLine(csvHeader(columns)));
     for (let i = 0; i < files.length; i++) {
-      while (submitted < files.length && submitted < i + ahead) pending.push(pool.measureFile(files[submitted++], { ...options, hostLines: opts.lines ? { cosmology } : undefined }));
+      while (submitted < files.length && submitted < i + ahead) pending.push(pool.measureFile(files[submitted++], { ...options, hostLines: opts.lines ? { cosmology, site } : undefined }));
       const result = await pending.shift()!;
       if (result.status !== 'ok') failed++;
       await lines.write(format === 'csv' ? csvLine(csvCells(columns, result)) : jsonlLine(columns, result));

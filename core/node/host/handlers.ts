@@ -16,7 +16,7 @@ import type {
   WorklistState,
 } from '../../api/host-api.js';
 import { COSMOLOGY_PRESETS, type CosmologyModel } from '../../astro/cosmology.js';
-import { correctFrames, type FrameResult } from '../../astro/frames.js';
+import { correctFrames, framesOrNull, type FrameInput, type FrameResult } from '../../astro/frames.js';
 import type { Verdict } from '../../catalogue/verdict.js';
 import { analyseHost, type HostAnalysis } from '../../hosts/analyse.js';
 import { templateModelFlux } from '../../redshift/template-model.js';
@@ -251,15 +251,20 @@ class Handlers implements HostHandlers {
   async derived(req: { id: string; z: number; zErr: number | null }): Promise<FrameResult> {
     const s = this.requireSession();
     const spectrum = await this.spectrumOf(s, req.id);
-    const settings = await this.settings.get();
-    const site = siteFor(spectrum, settings);
-    return correctFrames({ zObs: req.z, zErr: req.zErr ?? undefined, meta: spectrum.meta, site, cosmology: cosmologyOf(settings) });
+    return correctFrames({ zObs: req.z, zErr: req.zErr ?? undefined, ...(await this.frameContext(spectrum)) });
   }
 
   async hostAnalysis(req: { id: string; z: number }): Promise<HostAnalysis> {
     const s = this.requireSession();
     const spectrum = await this.spectrumOf(s, req.id);
-    return analyseHost(spectrum, req.z, { cosmology: cosmologyOf(await this.settings.get()) });
+    const context = await this.frameContext(spectrum);
+    return analyseHost(spectrum, req.z, { cosmology: context.cosmology, frames: framesOrNull({ zObs: req.z, ...context }) });
+  }
+
+  /** What a frame correction needs besides z: the file's metadata, the site and the settings' cosmology. */
+  private async frameContext(spectrum: Spectrum): Promise<Omit<FrameInput, 'zObs'> & { cosmology: CosmologyModel }> {
+    const settings = await this.settings.get();
+    return { meta: spectrum.meta, site: siteFor(spectrum, settings), cosmology: cosmologyOf(settings) };
   }
 
   // ---- verdicts ----------------------------------------------------------------------------
