@@ -5,24 +5,31 @@
  * packed transform of w·s and w, FFT roundoff relative to the larger) lose the flux entirely.
  */
 import type { Spectrum } from '../spectrum/spectrum.js';
-import { median } from './continuum.js';
+import { medianInPlace } from './continuum.js';
 
 /** Median 1σ error over the usable pixels; median |flux| where there are no errors; 1 when neither is a positive number. */
 export function fluxScale(s: Spectrum): number {
-  const errors: number[] = [];
-  const fluxes: number[] = [];
-  for (let i = 0; i < s.flux.length; i++) {
-    if (s.mask[i] !== 0 || !Number.isFinite(s.flux[i])) continue;
-    if (Number.isFinite(s.error[i]) && s.error[i] > 0) errors.push(s.error[i]);
-    if (s.flux[i] !== 0) fluxes.push(Math.abs(s.flux[i]));
+  const n = s.flux.length;
+  const errors = new Float64Array(n), fluxes = new Float64Array(n);
+  let ne = 0, nf = 0;
+  for (let i = 0; i < n; i++) {
+    const f = s.flux[i], e = s.error[i];
+    if (s.mask[i] !== 0 || !Number.isFinite(f)) continue;
+    if (Number.isFinite(e) && e > 0) errors[ne++] = e;
+    if (f !== 0) fluxes[nf++] = Math.abs(f);
   }
-  const scale = errors.length ? median(errors) : fluxes.length ? median(fluxes) : 1;
+  const scale = ne ? medianInPlace(errors, ne) : nf ? medianInPlace(fluxes, nf) : 1;
   return Number.isFinite(scale) && scale > 0 ? scale : 1;
+}
+
+function divided(a: Float64Array, scale: number): Float64Array {
+  const out = new Float64Array(a.length);
+  for (let i = 0; i < a.length; i++) out[i] = a[i] / scale;
+  return out;
 }
 
 /** The spectrum with flux, error and sky divided by its flux scale (a copy; the input is not touched), and the scale. */
 export function inUnitsOfNoise(s: Spectrum): { spectrum: Spectrum; scale: number } {
   const scale = fluxScale(s);
-  const scaled = (a: Float64Array) => a.map((v) => v / scale);
-  return { spectrum: { ...s, flux: scaled(s.flux), error: scaled(s.error), ...(s.sky ? { sky: scaled(s.sky) } : {}) }, scale };
+  return { spectrum: { ...s, flux: divided(s.flux, scale), error: divided(s.error, scale), ...(s.sky ? { sky: divided(s.sky, scale) } : {}) }, scale };
 }
