@@ -63,14 +63,20 @@ function emissionLines(set: NonNullable<Target['lines']>, hbeta: number): Emissi
   return lines;
 }
 
-/** Stellar absorption (rest EW, Å) of old populations, K stars and young populations. */
+/**
+ * Stellar absorption (rest EW, Å) of old populations, K stars and young populations. The Balmer
+ * lines of an old population are wider than its 220 km/s dispersion: the stars' own line wings
+ * spread them over about ±15 Å (the Lick Hβ central band is 28.75 Å wide, Worthey et al. 1994,
+ * ApJS 94, 687; from memory), taken here as σ = 500 km/s (8 Å at Hβ).
+ */
+const OLD_BALMER_SIGMA_KM_S = 500;
 const OLD_STARS: AbsorptionLine[] = [
   { id: 'CaK', ewRestAngstrom: 9, sigmaKmS: 220 }, { id: 'CaH', ewRestAngstrom: 8, sigmaKmS: 220 },
-  { id: 'Hdelta', ewRestAngstrom: 1.2, sigmaKmS: 220 }, { id: 'Gband', ewRestAngstrom: 5, sigmaKmS: 600 },
-  { id: 'Hgamma', ewRestAngstrom: 1.5, sigmaKmS: 220 }, { id: 'Hbeta', ewRestAngstrom: 1.5, sigmaKmS: 220 },
+  { id: 'Hdelta', ewRestAngstrom: 1.2, sigmaKmS: OLD_BALMER_SIGMA_KM_S }, { id: 'Gband', ewRestAngstrom: 5, sigmaKmS: 600 },
+  { id: 'Hgamma', ewRestAngstrom: 1.5, sigmaKmS: OLD_BALMER_SIGMA_KM_S }, { id: 'Hbeta', ewRestAngstrom: 1.5, sigmaKmS: OLD_BALMER_SIGMA_KM_S },
   { id: 'Mgb5169', ewRestAngstrom: 1.5, sigmaKmS: 220 }, { id: 'Mgb5174', ewRestAngstrom: 1.8, sigmaKmS: 220 },
   { id: 'Mgb5185', ewRestAngstrom: 1.7, sigmaKmS: 220 }, { id: 'NaD2', ewRestAngstrom: 2.0, sigmaKmS: 220 },
-  { id: 'NaD1', ewRestAngstrom: 1.6, sigmaKmS: 220 }, { id: 'Halpha', ewRestAngstrom: 1.0, sigmaKmS: 220 },
+  { id: 'NaD1', ewRestAngstrom: 1.6, sigmaKmS: 220 }, { id: 'Halpha', ewRestAngstrom: 1.0, sigmaKmS: OLD_BALMER_SIGMA_KM_S },
   { id: 'CaT8500', ewRestAngstrom: 1.0, sigmaKmS: 220 }, { id: 'CaT8544', ewRestAngstrom: 2.8, sigmaKmS: 220 },
   { id: 'CaT8665', ewRestAngstrom: 2.4, sigmaKmS: 220 },
 ];
