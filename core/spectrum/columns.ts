@@ -3,7 +3,9 @@
  * without regard to case. Shared by the FITS table readers and the text reader.
  */
 
-export type ColumnRole = 'wave' | 'loglam' | 'flux' | 'sigma' | 'ivar' | 'variance' | 'mask' | 'sky' | 'contam' | 'sensitivity';
+import type { ErrorKind } from './spectrum.js';
+
+export type ColumnRole = 'wave' | 'loglam' | 'flux' | 'sigma' | 'ivar' | 'variance' | 'snr' | 'mask' | 'sky' | 'contam' | 'sensitivity';
 
 /** Names per role, in order of preference (common practice, no single source). */
 export const COLUMN_NAMES: Record<ColumnRole, string[]> = {
@@ -13,6 +15,7 @@ export const COLUMN_NAMES: Record<ColumnRole, string[]> = {
   sigma: ['error', 'err', 'sigma', 'noise', 'flux_err', 'flux_error', 'fluxerr', 'e_flux', 'err_flux', 'error_flux', 'uncertainty', 'unc', 'flux_unc', 'stddev', 'std', 'dflux', 'sig'],
   ivar: ['ivar', 'inverse_variance', 'invvar', 'flux_ivar', 'inv_var'],
   variance: ['variance', 'var', 'flux_var', 'flux_variance'],
+  snr: ['snr', 's/n', 's2n', 'sn_ratio', 'signal_to_noise', 'sig_to_noise'],
   mask: ['and_mask', 'mask', 'badpix', 'bad', 'flag', 'flags', 'quality', 'dq', 'pixel_mask'],
   sky: ['sky', 'sky_flux', 'skyflux', 'background', 'bkg'],
   contam: ['contam', 'contamination'],
@@ -29,24 +32,25 @@ export function findByRole<T>(role: ColumnRole, lookup: (name: string) => T | un
 }
 
 /** Roles whose column gives an uncertainty, in order of preference. */
-export const ERROR_ROLES = ['sigma', 'ivar', 'variance'] as const;
+export const ERROR_ROLES = ['sigma', 'ivar', 'variance', 'snr'] as const;
 export type ErrorRole = (typeof ERROR_ROLES)[number];
 
 /**
  * 1σ errors from the file's uncertainty column: σ as is, σ = 1/√ivar (ivar ≤ 0 or non-finite:
- * bad pixel, σ = NaN), σ = √variance. Marks bad pixels in `mask`. `out` may be `values` itself.
+ * bad pixel, σ = NaN), σ = √variance, σ = |flux|/(S/N) (S/N ≤ 0 or flux 0: bad pixel, as S/N
+ * then says nothing of σ). Marks bad pixels in `mask`. `out` may be `values` itself.
  */
-export function sigmaFrom(role: ErrorRole, values: Float64Array, mask: Uint8Array, out: Float64Array = new Float64Array(values.length)): Float64Array {
+export function sigmaFrom(role: ErrorRole, values: Float64Array, mask: Uint8Array, flux: Float64Array, out: Float64Array = new Float64Array(values.length)): Float64Array {
   for (let i = 0; i < values.length; i++) {
     const v = values[i];
-    const s = role === 'sigma' ? v : role === 'ivar' ? (v > 0 ? 1 / Math.sqrt(v) : NaN) : v >= 0 ? Math.sqrt(v) : NaN;
+    const s = role === 'sigma' ? v : role === 'ivar' ? (v > 0 ? 1 / Math.sqrt(v) : NaN) : role === 'variance' ? (v >= 0 ? Math.sqrt(v) : NaN) : v > 0 ? Math.abs(flux[i]) / v : NaN;
     out[i] = s;
     if (!(Number.isFinite(s) && s > 0)) mask[i] = 1;
   }
   return out;
 }
 
-export const ERROR_KIND: Record<ErrorRole, 'sigma' | 'ivar' | 'variance'> = { sigma: 'sigma', ivar: 'ivar', variance: 'variance' };
+export const ERROR_KIND: Record<ErrorRole, ErrorKind> = { sigma: 'sigma', ivar: 'ivar', variance: 'variance', snr: 'snr' };
 
 /** Bad-pixel flags from a mask column: any non-zero (or non-finite) value is bad. */
 export function maskFrom(values: Float64Array, mask: Uint8Array): void {

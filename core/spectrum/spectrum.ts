@@ -5,7 +5,7 @@
  */
 
 /** How the file gave its uncertainties, before conversion to 1σ. */
-export type ErrorKind = 'sigma' | 'ivar' | 'variance' | 'none';
+export type ErrorKind = 'sigma' | 'ivar' | 'variance' | 'snr' | 'none';
 
 /** Medium of the wavelengths as stored in the file (internally everything is vacuum). */
 export type WavelengthMedium = 'air' | 'vacuum';

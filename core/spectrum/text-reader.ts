@@ -1,12 +1,12 @@
 /**
  * Plain-text spectra: whitespace-, comma- or tab-separated columns, '#' comments, an optional
  * header row naming the columns (with units: 'wave_A', 'wavelength[nm]', 'lambda (um)'),
- * 2–4 columns read as wavelength, flux, error (σ, or ivar/variance when the header says so)
+ * 2–4 columns read as wavelength, flux, error (σ, or ivar/variance/S/N when the header says so)
  * and mask. Comment lines 'KEY = value' or 'KEY: value' are kept as header cards, so that
  * OBJECT, RA, DATE-OBS, AIRORVAC, SPECSYS and the like work as in FITS.
  */
 import { FitsHeader, parseFitsNumber, type FitsCard } from '../fits/header.js';
-import { COLUMN_NAMES, ERROR_KIND, findByRole, maskFrom, sigmaFrom, type ColumnRole, type ErrorRole } from './columns.js';
+import { COLUMN_NAMES, ERROR_KIND, ERROR_ROLES, findByRole, maskFrom, sigmaFrom, type ColumnRole } from './columns.js';
 import type { MediumDecision, SpectrumDraft } from './draft.js';
 import { stackKeywords } from './keywords.js';
 import { ASSUMED_AIR, mediumFromKeywords, mediumFromName } from './medium.js';
@@ -102,11 +102,10 @@ export function readTextSpectrum(bytes: Uint8Array, fileName: string): SpectrumD
   const mask = new Uint8Array(n);
   let error: Float64Array | undefined;
   let errorKind: SpectrumDraft['errorKind'] = 'none';
-  const errorRoles: ErrorRole[] = ['sigma', 'ivar', 'variance'];
-  for (const role of errorRoles) {
+  for (const role of ERROR_ROLES) {
     const at = named ? roleIndex(role, -1) : ncols >= 3 && role === 'sigma' ? 2 : -1;
     if (at >= 0) {
-      error = sigmaFrom(role, arr(at), mask);
+      error = sigmaFrom(role, arr(at), mask, flux);
       errorKind = ERROR_KIND[role];
       break;
     }

@@ -148,6 +148,13 @@ describe('tables', () => {
     expect(s.error[0]).toBeCloseTo(0.2, 6);
     expect(s.provenance.errorKind).toBe('variance');
   });
+  it('per-pixel table with an SNR column: σ = |flux| / SNR', () => {
+    const cols = ['WAVE', 'FLUX', 'SNR'].map((name) => ({ name, form: 'D' }));
+    const rows = flux.map((f, i) => beBytes('f64', [5000 + i, f, 25]));
+    const s = readSpectrum(fitsBytes([EMPTY_PRIMARY, binTable(24, N, cols, concat(...rows))]), 'snr.fits');
+    expect(s.provenance.errorKind).toBe('snr');
+    expect(s.error[7]).toBeCloseTo(Math.abs(flux[7]) / 25, 12);
+  });
   it('grism table: (flux − contam)/sensitivity and error/sensitivity; sensitivity 0 masked', () => {
     const cols = ['wave', 'flux', 'error', 'contam', 'sensitivity'].map((name) => ({ name, form: 'D', unit: name === 'sensitivity' ? 'E/S / 1E-17 CGS' : undefined }));
     const rows = flux.map((f, i) => beBytes('f64', [11000 + 46 * i, f, 0.2, 1, i === 0 ? 0 : 2]));

@@ -33,6 +33,17 @@ describe('text spectra', () => {
     expect(s.meta).toMatchObject({ raDeg: 150.1, decDeg: 2.2 });
     expect(s.provenance.medium).toBe('vacuum');
   });
+  it('an S/N column, named in a commented or a plain header row, gives σ = |flux| / (S/N), not σ = S/N', () => {
+    // A pipeline's S/N per pixel is flux/σ (common practice, no source); S/N ≤ 0 says nothing of σ.
+    const data = rows(12, (i) => `${5000 + i} ${i - 3} ${i === 5 ? 0 : 20}`);
+    for (const text of [`# wave flux snr\n${data}`, `wave flux S/N\n${data}`]) {
+      const s = readSpectrum(enc(text), 'a.txt');
+      expect(s.provenance.errorKind).toBe('snr');
+      expect(s.error[0]).toBeCloseTo(3 / 20, 12);
+      expect(s.error[10]).toBeCloseTo(7 / 20, 12);
+      expect([s.mask[5], s.mask[3], s.mask[4]]).toEqual([1, 1, 0]);
+    }
+  });
   it('a commented header row just above the data names the columns; CRLF line ends', () => {
     const s = readSpectrum(enc(`# flux wave\r\n${rows(12, (i) => `${i + 1} ${7000 + i}`).replace(/\n/g, '\r\n')}`), 'a.dat');
     expect(s.waveAngstrom[0]).toBeCloseTo(airToVacuum(7000), 9);

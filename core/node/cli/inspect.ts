@@ -74,7 +74,7 @@ export function formatSummary(s: SpectrumSummary): string {
     ['in the file', `${s.medium_in_file} wavelengths in ${s.wave_unit_in_file}: ${s.medium_reason}`],
     ['dispersion', s.dispersion],
     ['flux unit', s.flux_unit],
-    ['error given as', s.error_kind === 'none' ? 'none' : `${s.error_kind} (shown as 1σ)`],
+    ['error given as', s.error_kind === 'none' ? 'none' : s.error_kind === 'snr' ? 'S/N per pixel (σ = |flux| / S/N)' : `${s.error_kind} (shown as 1σ)`],
     ['sky', s.has_sky ? 'yes' : 'no'],
     ['object', s.object ?? '—'],
     ['RA, Dec', s.ra_deg === null || s.dec_deg === null ? (s.position_warning ? `—; WARNING: ${s.position_warning}` : '—') : `${s.ra_deg.toFixed(6)}°, ${s.dec_deg.toFixed(6)}°`],

@@ -73,7 +73,7 @@ function readBanded(ctx: HduContext, bands: Bands, n: number): LayoutDraft {
   for (const role of ['sigma', 'ivar', 'variance'] as const) {
     const b = find(role);
     if (b >= 0) {
-      error = sigmaFrom(role, band(b), mask);
+      error = sigmaFrom(role, band(b), mask, flux);
       errorKind = ERROR_KIND[role];
       break;
     }

@@ -71,7 +71,7 @@ function readImage1d(ctx: HduContext, n: number, { wave, unit, dispersion }: Wav
       errorKind = 'sigma';
       for (let i = 0; i < n; i++) if (!(error[i] > 0)) mask[i] = 1;
     } else if ((role === 'sigma' || role === 'ivar' || role === 'variance') && !error) {
-      error = sigmaFrom(role, values, mask, values);
+      error = sigmaFrom(role, values, mask, flux, values);
       errorKind = ERROR_KIND[role];
     } else if (role === 'sky' && !sky && !(galah && ctx.hdu.index !== 0)) {
       sky = values;

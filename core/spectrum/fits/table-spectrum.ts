@@ -53,7 +53,7 @@ function readTable(
     if (col && !col.isText) {
       const values = get(col);
       if (values.length === n) {
-        error = sigmaFrom(role, values, mask, values);
+        error = sigmaFrom(role, values, mask, flux, values);
         errorKind = ERROR_KIND[role];
       } else error = values; // length mismatch is reported by finish
       break;
