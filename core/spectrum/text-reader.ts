@@ -73,9 +73,12 @@ export function readTextSpectrum(bytes: Uint8Array, fileName: string): SpectrumD
       ncols = fields.length;
       if (ncols < 2 || ncols > 4) fail(`line ${ln + 1} has ${ncols} columns; zvet reads 2 to 4 (wavelength, flux, error, mask)`);
       for (let c = 0; c < ncols; c++) columns.push([]);
-      // A commented-out header row just above the data ('# wave flux err') names the columns too.
+      // A commented-out header row just above the data ('# wave flux err') names the columns
+      // too, when it names a wavelength and a flux column; a column it names in words zvet does
+      // not know ('continuum') is then left unread rather than taken by position as the error.
       const commented = lastComment?.split(delimiter);
-      if (!headerRow && commented?.length === ncols && commented.every((f) => parseNumber(f) === null && describeColumn(f).role)) {
+      const roles = commented?.map((f) => describeColumn(f).role);
+      if (!headerRow && commented?.length === ncols && commented.every((f) => parseNumber(f) === null) && roles!.includes('wave') && roles!.includes('flux')) {
         headerRow = commented;
       }
     }

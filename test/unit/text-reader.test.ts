@@ -44,6 +44,11 @@ describe('text spectra', () => {
       expect([s.mask[5], s.mask[3], s.mask[4]]).toEqual([1, 1, 0]);
     }
   });
+  it('a commented header naming a column zvet does not know leaves it unread, not taken as the error', () => {
+    const s = readSpectrum(enc(`# wave flux continuum\n${rows(12, (i) => `${5000 + i} ${i + 1} 4`)}`), 'a.txt');
+    expect(s.provenance.format).toBe('text (named columns)');
+    expect(s.provenance.errorKind).toBe('none');
+  });
   it('a commented header row just above the data names the columns; CRLF line ends', () => {
     const s = readSpectrum(enc(`# flux wave\r\n${rows(12, (i) => `${i + 1} ${7000 + i}`).replace(/\n/g, '\r\n')}`), 'a.dat');
     expect(s.waveAngstrom[0]).toBeCloseTo(airToVacuum(7000), 9);
