@@ -31,10 +31,16 @@ export interface Grade {
   note: string;
 }
 
+/**
+ * The class suggested with a template. A narrow-line AGN template fitting best says that strong
+ * [O III] and the other narrow lines are there, not what excites them: a metal-poor star-forming
+ * dwarf fits it too. So it suggests 'galaxy', never false for a narrow-line emitter; 'agn' is
+ * the observer's choice, from the host panel's diagnostic diagram.
+ */
 export const CLASS_OF_TEMPLATE: Record<TemplateClass, ObjectClass> = {
   'star-forming': 'galaxy',
   passive: 'galaxy',
-  agn: 'agn',
+  agn: 'galaxy',
   qso: 'qso',
   star: 'star',
   user: 'unknown',

@@ -24,6 +24,10 @@ describe('decisions', () => {
     expect(saved.z).toBe(t.z);
     expect(saved.zErr).toBe(t.zErr);
   });
+  it('suggests galaxy, not agn, when the narrow-line AGN template fits best (a star-forming dwarf fits it too)', () => {
+    const v: SpectrumView = { ...view(), measurement: { ...view().measurement!, candidates: [cand(0.03, 'agn-narrow', 'agn')], best: cand(0.03, 'agn-narrow', 'agn') } };
+    expect(suggestedGrade(v, openingTrial(v)).objectClass).toBe('galaxy');
+  });
   it('opens with no grade chosen; the suggestion is shown and saved for the best only', () => {
     expect(openingGrade(view())).toEqual({ confidence: null, objectClass: null, note: '' });
     expect(suggestedGrade(view(), openingTrial(view()))).toEqual({ confidence: 'likely', objectClass: 'galaxy' });
