@@ -9,7 +9,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { readSpectrum } from '../../core/spectrum/read.js';
-import { astropyJson } from '../support/tools.js';
+import { astropyJson, PYTHON_VAC_FROM_AIR } from '../support/tools.js';
 
 interface Case {
   file: string;
@@ -32,14 +32,7 @@ out_dir = sys.argv[1]
 cases = []
 rng = np.random.default_rng(7)
 n = 64
-
-def vac_from_air(w):
-    # Morton (1991, ApJS 77, 119) eq. 3, inverted by iteration; >= 2000 A only.
-    w = np.asarray(w, dtype=float); v = w.copy()
-    for _ in range(8):
-        s2 = (1e4 / v) ** 2
-        v = np.where(w >= 2000, w * (1 + (6432.8 + 2949810 / (146 - s2) + 25540 / (41 - s2)) * 1e-8), w)
-    return v
+${PYTHON_VAC_FROM_AIR}
 
 def clean(a):
     return None if a is None else [None if not np.isfinite(x) else float(x) for x in np.asarray(a, dtype=float)]

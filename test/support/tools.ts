@@ -24,6 +24,20 @@ iers.conf.auto_max_age = None
 `;
 
 /**
+ * Python source of vac_from_air(w): air wavelengths (Å) to vacuum, Morton (1991, ApJS 77, 119)
+ * eq. 3 inverted by iteration, ≥ 2000 Å only; for the scripts that compare with zvet's own
+ * conversion. Needs numpy imported as np.
+ */
+export const PYTHON_VAC_FROM_AIR = String.raw`
+def vac_from_air(w):
+    w = np.asarray(w, dtype=float); v = w.copy()
+    for _ in range(8):
+        s2 = (1e4 / v) ** 2
+        v = np.where(w >= 2000, w * (1 + (6432.8 + 2949810 / (146 - s2) + 25540 / (41 - s2)) * 1e-8), w)
+    return v
+`;
+
+/**
  * Runs a Python script with Debian's astropy and returns its stdout parsed as JSON.
  * The script receives `args` as sys.argv[1:] and must print one JSON document.
  */

@@ -1,7 +1,8 @@
 /**
  * 2-D and 3-D images whose rows (or planes) are the bands of one spectrum:
  * - IRAF multispec/equispec (Valdes, "The IRAF/NOAO spectral world coordinate systems"):
- *   axis 1 is wavelength, axis 2 the apertures (zvet reads aperture 1), axis 3 the bands,
+ *   axis 1 is wavelength (equispec: a linear WCS; multispec: multispec-wcs.ts), axis 2 the
+ *   apertures (zvet reads aperture 1), axis 3 the bands,
  *   labelled by BANDIDn ('spectrum - background fit, …', 'sigma - …', 'background - …').
  * - The SDSS-I/II spSpec image: rows labelled ARRAYn ('SPECTRUM', 'CONTINUUM-SUBTRACTED
  *   SPECTRUM', 'ERROR' (σ), 'MASK'), λ = 10^(COEFF0 + COEFF1·i), i from 0, vacuum (SDSS data model).
@@ -11,6 +12,7 @@ import { ERROR_KIND, maskFrom, sdssMaskFrom, sigmaFrom } from '../columns.js';
 import { bunit, headerParts, type HduContext, type LayoutDraft, type LayoutVerdict } from './layout.js';
 import { sdssDefaults } from './surveys.js';
 import { axisProblem, coeffAxis, hasCoeffAxis, linearAxis, type WavelengthAxis } from './wavelength-axis.js';
+import { isMultispec, multispecAxis } from './multispec-wcs.js';
 
 type BandRole = 'flux' | 'sigma' | 'ivar' | 'variance' | 'sky' | 'mask' | 'other';
 
@@ -48,14 +50,16 @@ export function matchBandedImage(ctx: HduContext): LayoutVerdict {
       format: 'fits-survey-image',
     };
   } else {
-    const problem = axisProblem(k);
+    const multispec = isMultispec(k) ? multispecAxis(k, n) : null;
+    if (multispec && 'problem' in multispec) return `${hdu.axes.length}-D image: ${multispec.problem}`;
+    const problem = multispec ? undefined : axisProblem(k);
     if (problem) return `${hdu.axes.length}-D image with ${problem}`;
     // Bands lie along axis 3 (IRAF: axis 2 = apertures) or, for 2-D images, along axis 2.
     const bandAxisLength = hdu.axes.length === 3 ? n3 : n2;
     const stride = hdu.axes.length === 3 ? n * n2 : n;
     const labels = Array.from({ length: bandAxisLength }, (_, b) => k.string(`BANDID${b + 1}`) ?? '');
     if (hdu.axes.length === 2 && !labels.some((l) => l) && n2 > 8) return `2-D image of ${n}×${n2} pixels without band labels (not a 1-D spectrum)`;
-    bands = { offset: (b) => b * stride, labels, wave: () => linearAxis(k, n), format: 'fits-multispec' };
+    bands = { offset: (b) => b * stride, labels, wave: () => multispec ?? linearAxis(k, n), format: 'fits-multispec' };
   }
   return { format: bands.format, read: () => readBanded(ctx, bands, n) };
 }

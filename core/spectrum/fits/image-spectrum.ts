@@ -1,6 +1,6 @@
 /**
  * 1-D spectra stored as images: one image HDU (primary or extension) with a linear, log10
- * (DC-FLAG = 1 or SDSS COEFF0/COEFF1) or `-LOG` wavelength axis, and optional companion HDUs of the same length named
+ * (DC-FLAG = 1 or SDSS COEFF0/COEFF1), `-LOG` or IRAF multispec wavelength axis, and optional companion HDUs of the same length named
  * for their content (EXTNAME 'ERROR', 'SIGMA', 'IVAR', 'VARIANCE', 'SKY', 'MASK', …).
  * GALAH files (Kos et al. 2017): HDU 0 counts and HDU 1 'normalized' are spectra; the
  * 'relative_error' HDU is σ/flux, so σ = relative_error × |flux|; 'sky' is in counts and goes
@@ -12,6 +12,7 @@ import { ERROR_KIND, maskFrom, sigmaFrom, type ErrorRole } from '../columns.js';
 import { bunit, headerParts, type HduContext, type LayoutDraft, type LayoutVerdict } from './layout.js';
 import { GALAH_DEFAULTS, sdssDefaults } from './surveys.js';
 import { axisProblem, coeffAxis, hasCoeffAxis, linearAxis, type WavelengthAxis } from './wavelength-axis.js';
+import { isMultispec, multispecAxis } from './multispec-wcs.js';
 
 type CompanionRole = ErrorRole | 'relative' | 'sky' | 'mask' | 'auxiliary';
 
@@ -48,6 +49,11 @@ export function matchImage1d(ctx: HduContext): LayoutVerdict {
   if (n === undefined) return undefined;
   const role = companionRole(ctx.hdu);
   if (role) return `'${ctx.hdu.extname}' image accompanies a spectrum`;
+  if (isMultispec(ctx.keywords)) {
+    const axis = multispecAxis(ctx.keywords, n);
+    if ('problem' in axis) return `1-D image: ${axis.problem}`;
+    return { format: 'fits-image-1d', read: () => readImage1d(ctx, n, axis) };
+  }
   const problem = axisProblem(ctx.keywords);
   if (problem && !hasCoeffAxis(ctx.keywords)) return `1-D image with ${problem}`;
   return { format: 'fits-image-1d', read: () => readImage1d(ctx, n, problem ? coeffAxis(ctx.keywords, n) : linearAxis(ctx.keywords, n)) };
