@@ -35,11 +35,20 @@ export function parseWaveUnit(text: string): WaveUnit | undefined {
  * UV to mid-IR), below 1e-4 they are metres.
  */
 export function guessWaveUnit(wave: ArrayLike<number>): WaveUnit {
-  let max = 0;
-  for (let i = 0; i < wave.length; i++) if (Math.abs(wave[i]) > max) max = Math.abs(wave[i]);
+  let max = 0, min = Infinity;
+  for (let i = 0; i < wave.length; i++) {
+    const w = Math.abs(wave[i]);
+    if (w > max) max = w;
+    if (w > 0 && w < min) min = w;
+  }
   if (max > 0 && max < 1e-4) return { name: 'm', toAngstrom: 1e10, assumed: true };
   if (max > 0 && max < 100) return { name: 'µm', toAngstrom: 1e4, assumed: true };
-  // An optical spectrum in nm ends between about 300 and 2500; in Å, only an ultraviolet one does.
-  if (max >= 300 && max < 2500) return { name: 'Å', toAngstrom: 1, assumed: true, doubt: `the largest wavelength, ${max}, would also be nm; if so, name the unit in the file, as in wavelength[nm]` };
+  // An optical or near-infrared spectrum in nm ends between about 300 and 2500; in Å only an
+  // ultraviolet one does, and one ending below 1000 Å, or reaching from below 900 Å past
+  // 1000 Å, would be extreme-ultraviolet work, which no redshift survey does (our judgement, no
+  // source): those are nm.
+  const nmDoubt = (unit: string, other: string) => `the wavelengths (${min} – ${max}) are taken as ${unit}; if they are ${other}, name the unit in the file, as in wavelength[${other === 'Å' ? 'A' : 'nm'}]`;
+  if (max >= 100 && (max < 1000 || (max < 2500 && min < 900))) return { name: 'nm', toAngstrom: 10, assumed: true, doubt: nmDoubt('nm', 'Å') };
+  if (max >= 1000 && max < 2500) return { name: 'Å', toAngstrom: 1, assumed: true, doubt: nmDoubt('Å', 'nm') };
   return { name: 'Å', toAngstrom: 1, assumed: true };
 }

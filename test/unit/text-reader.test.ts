@@ -59,9 +59,15 @@ describe('text spectra', () => {
     expect(s.provenance.waveUnitInFile).toBe('µm (assumed from the values)');
     expect(s.waveAngstrom[0]).toBeCloseTo(airToVacuum(11000), 6);
   });
-  it('unlabelled wavelengths that would also be nm are read as Å, and the doubt is said', () => {
+  it('unlabelled wavelengths below 1000 are nm (in Å they would be extreme ultraviolet); 1000–2500 from above 900 stay Å; the doubt is said', () => {
     const s = readSpectrum(enc(rows(12, (i) => `${650 + i} 1`)), 'nm.txt');
-    expect(s.provenance.waveUnitInFile).toBe('Å (assumed from the values; the largest wavelength, 661, would also be nm; if so, name the unit in the file, as in wavelength[nm])');
+    expect(s.provenance.waveUnitInFile).toBe('nm (assumed from the values; the wavelengths (650 – 661) are taken as nm; if they are Å, name the unit in the file, as in wavelength[A])');
+    expect(s.waveAngstrom[0]).toBeCloseTo(airToVacuum(6500), 6);
+    // An optical-to-infrared range in nm (300–2280 nm) reaches past 1000 from below 900.
+    expect(readSpectrum(enc(rows(12, (i) => `${300 + 180 * i} 1`)), 'x.txt').provenance.waveUnitInFile).toMatch(/^nm /);
+    // A far-ultraviolet range in Å (1150–1700 Å).
+    const uv = readSpectrum(enc(rows(12, (i) => `${1150 + 50 * i} 1`)), 'uv.txt');
+    expect(uv.provenance.waveUnitInFile).toBe('Å (assumed from the values; the wavelengths (1150 – 1700) are taken as Å; if they are nm, name the unit in the file, as in wavelength[nm])');
     expect(readSpectrum(enc(rows(12, (i) => `${6500 + i} 1`)), 'a.txt').provenance.waveUnitInFile).toBe('Å (assumed from the values)');
     expect(readSpectrum(enc(`wavelength[nm] flux\n${rows(12, (i) => `${650 + i} 1`)}`), 'n.txt').provenance.waveUnitInFile).toBe('nm');
   });
