@@ -75,6 +75,8 @@ export interface SpectrumMetaView {
   exposureS: number | null;
   mediumInFile: 'air' | 'vacuum';
   mediumReason: string;
+  /** The wavelength unit guessed from the values with a doubt (e.g. nm or Å), else null. */
+  waveUnitDoubt: string | null;
   velocityFrame: string;
   velocityFrameReason: string;
   site: { name?: string; latitudeDeg?: number; longitudeDeg?: number; heightM?: number } | null;

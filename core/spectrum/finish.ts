@@ -80,6 +80,7 @@ export function finishSpectrum(draft: SpectrumDraft, fileName: string, override?
       dispersion: draft.dispersion,
       errorKind: draft.errorKind,
       waveUnitInFile: draft.waveUnit.assumed ? `${draft.waveUnit.name} (assumed from the values${draft.waveUnit.doubt ? `; ${draft.waveUnit.doubt}` : ''})` : draft.waveUnit.name,
+      waveUnitDoubt: draft.waveUnit.doubt ?? null,
       hasMask: draft.mask !== undefined,
       hasSky: draft.sky !== undefined,
       flipped,

@@ -66,6 +66,8 @@ export interface SpectrumProvenance {
   errorKind: ErrorKind;
   /** Unit of the wavelengths in the file before conversion to Å. */
   waveUnitInFile: string;
+  /** Why the unit, guessed from the values, may be wrong; null when the file names it or the values leave no doubt. */
+  waveUnitDoubt: string | null;
   hasMask: boolean;
   hasSky: boolean;
   /** Pixels in the file with wavelengths in reverse order were flipped. */

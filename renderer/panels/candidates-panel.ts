@@ -9,7 +9,10 @@ export function renderCandidates(state: AppState, box: HTMLElement, onTry: (inde
   const list = candidates(state.view);
   const m = state.view?.measurement;
   if (!m || list.length === 0) {
-    fill(box, el('p', { class: 'muted' }, state.view?.error ? 'no candidates: the file could not be read' : m ? 'the correlation found no candidate' : 'no measurement yet'));
+    const v = state.view;
+    // A file that was read but could not be measured (a flat spectrum) shows why; one that could not be read says so.
+    const why = v?.error ? (v.arrays ? `no candidates: ${v.error}` : 'no candidates: the file could not be read') : m ? 'the correlation found no candidate' : 'no measurement yet';
+    fill(box, el('p', { class: 'muted', id: 'no-candidates' }, why));
     return;
   }
   const refined = m.refinement.method === 'line-fit' ? 'joint line fit' : m.refinement.method === 'template-chi2' ? 'template χ² fit' : null;

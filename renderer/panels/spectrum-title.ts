@@ -16,6 +16,7 @@ export function renderSpectrumTitle(state: AppState, box: HTMLElement, move: (ac
   const facts = meta
     ? [
         el('span', {}, `${meta.format}${meta.hdu !== null ? `, HDU ${meta.hdu}` : ''}`),
+        meta.waveUnitDoubt ? el('span', { class: 'warn', id: 'wave-unit-doubt', title: meta.waveUnitDoubt }, `⚠ wavelength unit guessed: ${meta.waveUnitDoubt}`) : null,
         el('span', { title: meta.mediumReason }, meta.mediumInFile === 'vacuum' ? 'vacuum wavelengths in the file' : `${meta.mediumInFile} wavelengths in the file, shown in vacuum`),
         el('span', { title: meta.velocityFrameReason }, `frame: ${meta.velocityFrame}`),
         meta.dateObsUtc ? el('span', {}, `${readableUtc(meta.dateObsUtc)} UTC${meta.exposureS ? `, ${meta.exposureS} s` : ''}`) : null,

@@ -1,7 +1,7 @@
 // The host handlers on a temporary copy of the demo worklist, with the real worklist, journal,
 // worker pool and exporters. Truth values come from the demo generator's truth.csv (invented
 // data, seeded). The exporters' own formats are checked by their tests; here only where they go.
-import { cpSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { cpSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
@@ -105,6 +105,17 @@ describe('host handlers: spectra and measurements', () => {
     const zTrue = truth.get('KRT-26-0011.fits')!;
     expect(Math.abs(view.measurement!.best!.z - zTrue) / (1 + zTrue)).toBeLessThan(300 / 299_792.458);
     expect(JSON.parse(JSON.stringify(view)).arrays.flux).toHaveLength(n);
+  });
+
+  it('says when the wavelength unit was guessed with a doubt (the window shows it above the plot)', async () => {
+    const h = handlers();
+    await h.openWorklist({ path: folder });
+    expect((await h.loadSpectrum({ id: 'KRT-26-0011.fits' })).meta!.waveUnitDoubt).toBeNull();
+    const nm = join(tmp, 'nm-night');
+    mkdirSync(nm);
+    writeFileSync(join(nm, 'unlabelled.txt'), Array.from({ length: 400 }, (_, i) => `${(380 + 1.3 * i).toFixed(2)} ${10 + (i % 7)}`).join('\n'));
+    await h.openWorklist({ path: nm });
+    expect((await h.loadSpectrum({ id: 'unlabelled.txt' })).meta!.waveUnitDoubt).toMatch(/taken as nm; if they are Å/);
   });
 
   it('draws the best template over the spectrum, and any template at any trial z', async () => {

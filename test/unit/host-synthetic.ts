@@ -2,6 +2,12 @@
 import type { Spectrum } from '../../core/spectrum/spectrum.js';
 import { normalDeviates } from '../support/prng.js';
 
+/** Provenance of a spectrum made in a test: vacuum, log-linear, with σ. */
+export const SYNTHETIC_PROVENANCE: Spectrum['provenance'] = {
+  format: 'synthetic', hdu: null, spectrumHdus: [], medium: 'vacuum', mediumReason: 'synthetic', dispersion: 'log10',
+  errorKind: 'sigma', waveUnitInFile: 'Å', waveUnitDoubt: null, hasMask: false, hasSky: false, flipped: false, header: [],
+};
+
 export { normalDeviates };
 
 export interface InjectedLine {
@@ -52,9 +58,6 @@ export function syntheticSpectrum(o: SyntheticOptions): Spectrum {
     mask: new Uint8Array(n),
     fluxUnit: o.fluxUnit ?? '1e-17 erg/s/cm^2/Angstrom',
     meta: { velocityFrame: 'unknown', velocityFrameReason: 'synthetic' },
-    provenance: {
-      format: 'synthetic', hdu: null, spectrumHdus: [], medium: 'vacuum', mediumReason: 'synthetic', dispersion: 'log10',
-      errorKind: 'sigma', waveUnitInFile: 'Å', hasMask: false, hasSky: false, flipped: false, header: [],
-    },
+    provenance: SYNTHETIC_PROVENANCE,
   };
 }

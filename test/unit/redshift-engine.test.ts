@@ -1,5 +1,6 @@
 // Unit checks of the redshift engine on synthetic data with known answers.
 import { describe, expect, it } from 'vitest';
+import { SYNTHETIC_PROVENANCE } from './host-synthetic.js';
 import { apodise } from '../../core/redshift/preprocess.js';
 import { continuumBlocks, median, robustContinuum, robustContinuumOf } from '../../core/redshift/continuum.js';
 import { complexFft, forwardRealPair } from '../../core/redshift/fft.js';
@@ -63,7 +64,7 @@ function synthetic(z: number | null, sigma: number, seed: number, amplitude = 40
   return {
     fileName: 'synthetic', waveAngstrom: wave, flux, error: new Float64Array(n).fill(sigma), mask: new Uint8Array(n), fluxUnit: 'arbitrary',
     meta: { velocityFrame: 'unknown', velocityFrameReason: 'synthetic' },
-    provenance: { format: 'synthetic', hdu: null, spectrumHdus: [], medium: 'vacuum', mediumReason: '', dispersion: 'log10', errorKind: 'sigma', waveUnitInFile: 'Angstrom', hasMask: false, hasSky: false, flipped: false, header: [] },
+    provenance: SYNTHETIC_PROVENANCE,
   };
 }
 
