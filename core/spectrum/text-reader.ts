@@ -1,7 +1,7 @@
 /**
  * Plain-text spectra: whitespace-, comma- or tab-separated columns, '#' comments, an optional
  * header row naming the columns (with units: 'wave_A', 'wavelength[nm]', 'lambda (um)'),
- * 2–4 columns read as wavelength, flux, error (σ, or ivar/variance/S/N when the header says so)
+ * 2–4 columns read as wavelength (or log10 λ/Å in a column named loglam), flux, error (σ, or ivar/variance/S/N when the header says so)
  * and mask. Comment lines 'KEY = value' or 'KEY: value' are kept as header cards, so that
  * OBJECT, RA, DATE-OBS, AIRORVAC, SPECSYS and the like work as in FITS.
  */
@@ -13,6 +13,7 @@ import { ASSUMED_AIR, mediumFromKeywords, mediumFromName } from './medium.js';
 import { metadataOf } from './metadata.js';
 import { SpectrumReadError } from './spectrum.js';
 import { guessWaveUnit, parseWaveUnit, type WaveUnit } from './units.js';
+import { powersOfTen } from './fits/powers-of-ten.js';
 
 interface HeaderColumn {
   role?: ColumnRole;
@@ -78,7 +79,7 @@ export function readTextSpectrum(bytes: Uint8Array, fileName: string): SpectrumD
       // not know ('continuum') is then left unread rather than taken by position as the error.
       const commented = lastComment?.split(delimiter);
       const roles = commented?.map((f) => describeColumn(f).role);
-      if (!headerRow && commented?.length === ncols && commented.every((f) => parseNumber(f) === null) && roles!.includes('wave') && roles!.includes('flux')) {
+      if (!headerRow && commented?.length === ncols && commented.every((f) => parseNumber(f) === null) && (roles!.includes('wave') || roles!.includes('loglam')) && roles!.includes('flux')) {
         headerRow = commented;
       }
     }
@@ -95,11 +96,13 @@ export function readTextSpectrum(bytes: Uint8Array, fileName: string): SpectrumD
     if (!named) return position < ncols ? position : -1;
     return named.findIndex((c) => c.role === role);
   };
-  const waveAt = named ? Math.max(roleIndex('wave', 0), -1) : 0;
+  const waveAt = named ? (roleIndex('wave', 0) >= 0 ? roleIndex('wave', 0) : roleIndex('loglam', 0)) : 0;
+  // A loglam column holds log10 of vacuum-or-air Å (as SDSS's; the medium is decided below).
+  const logWave = named?.[waveAt]?.role === 'loglam';
   const fluxAt = named ? roleIndex('flux', 1) : 1;
   if (waveAt < 0 || fluxAt < 0) fail(`the header row '${headerRow!.join(' ')}' names no ${waveAt < 0 ? 'wavelength' : 'flux'} column`);
   const arr = (i: number) => Float64Array.from(columns[i]);
-  const wave = arr(waveAt);
+  const wave = logWave ? powersOfTen(arr(waveAt)) : arr(waveAt);
   const flux = arr(fluxAt);
   const n = wave.length;
   const mask = new Uint8Array(n);
@@ -119,7 +122,7 @@ export function readTextSpectrum(bytes: Uint8Array, fileName: string): SpectrumD
   const header = new FitsHeader(cards);
   const keywords = stackKeywords(header);
   const waveName = named?.[waveAt];
-  const waveUnit: WaveUnit = (waveName?.unit && parseWaveUnit(waveName.unit)) || guessWaveUnit(wave);
+  const waveUnit: WaveUnit = logWave ? { name: 'Å', toAngstrom: 1, assumed: false } : (waveName?.unit && parseWaveUnit(waveName.unit)) || guessWaveUnit(wave);
   const medium = mediumFromKeywords(keywords) ?? (waveName ? mediumFromName(waveName.name) : undefined) ?? mediumFromNotes(notes) ?? ASSUMED_AIR;
   return {
     format: headerRow ? 'text (named columns)' : 'text',
@@ -127,7 +130,7 @@ export function readTextSpectrum(bytes: Uint8Array, fileName: string): SpectrumD
     spectrumHdus: [],
     wave,
     waveUnit,
-    dispersion: 'tabulated',
+    dispersion: logWave ? 'log10' : 'tabulated',
     flux,
     error,
     errorKind,
@@ -204,7 +207,7 @@ export function describeColumn(raw: string): HeaderColumn {
 function roleOf(name: string): ColumnRole | undefined {
   const lower = name.toLowerCase();
   for (const role of Object.keys(COLUMN_NAMES) as ColumnRole[]) {
-    if (findByRole(role, (n) => (n === lower ? n : undefined))) return role === 'loglam' ? undefined : role;
+    if (findByRole(role, (n) => (n === lower ? n : undefined))) return role;
   }
   return undefined;
 }

@@ -42,7 +42,8 @@ export function guessWaveUnit(wave: ArrayLike<number>): WaveUnit {
     if (w > 0 && w < min) min = w;
   }
   if (max > 0 && max < 1e-4) return { name: 'm', toAngstrom: 1e10, assumed: true };
-  if (max > 0 && max < 100) return { name: 'µm', toAngstrom: 1e4, assumed: true };
+  // Values between 3 and 4.5 are also what log10 λ/Å of an optical spectrum looks like.
+  if (max > 0 && max < 100) return { name: 'µm', toAngstrom: 1e4, assumed: true, ...(min >= 3 && max <= 4.5 ? { doubt: `the wavelengths (${min} – ${max}) are taken as µm; they look like log10 of Å too: if so, the file should say so (DC-FLAG = 1, a -LOG axis or a loglam column)` } : {}) };
   // An optical or near-infrared spectrum in nm ends between about 300 and 2500; in Å only an
   // ultraviolet one does, and one ending below 1000 Å, or reaching from below 900 Å past
   // 1000 Å, would be extreme-ultraviolet work, which no redshift survey does (our judgement, no

@@ -44,6 +44,16 @@ describe('text spectra', () => {
       expect([s.mask[5], s.mask[3], s.mask[4]]).toEqual([1, 1, 0]);
     }
   });
+  it('a loglam column is log10 of Å (as SDSS writes it), commented header or not', () => {
+    const data = rows(12, (i) => `${(3.6 + 1e-4 * i).toFixed(4)},${i + 1},4`);
+    for (const text of [`loglam,flux,ivar\n${data}`, `# loglam,flux,ivar\n${data}`]) {
+      const s = readSpectrum(enc(`# AIRORVAC = vac\n${text}`), 'l.csv');
+      expect(s.waveAngstrom[3]).toBeCloseTo(10 ** 3.6003, 8);
+      expect(s.provenance.waveUnitInFile).toBe('Å');
+      expect(s.provenance.dispersion).toBe('log10');
+      expect(s.error[0]).toBe(0.5);
+    }
+  });
   it('a commented header naming a column zvet does not know leaves it unread, not taken as the error', () => {
     const s = readSpectrum(enc(`# wave flux continuum\n${rows(12, (i) => `${5000 + i} ${i + 1} 4`)}`), 'a.txt');
     expect(s.provenance.format).toBe('text (named columns)');
@@ -58,6 +68,8 @@ describe('text spectra', () => {
     const s = readSpectrum(enc(rows(12, (i) => `${1.1 + i * 0.01} 1`)), 'ir.txt');
     expect(s.provenance.waveUnitInFile).toBe('µm (assumed from the values)');
     expect(s.waveAngstrom[0]).toBeCloseTo(airToVacuum(11000), 6);
+    // 3.58–3.96 is an L-band range in µm or log10 λ of an optical spectrum in Å: said.
+    expect(readSpectrum(enc(rows(12, (i) => `${3.58 + i * 0.0345} 1`)), 'log.txt').provenance.waveUnitInFile).toMatch(/^µm \(assumed from the values; .* look like log10 of Å too/);
   });
   it('unlabelled wavelengths below 1000 are nm (in Å they would be extreme ultraviolet); 1000–2500 from above 900 stay Å; the doubt is said', () => {
     const s = readSpectrum(enc(rows(12, (i) => `${650 + i} 1`)), 'nm.txt');
