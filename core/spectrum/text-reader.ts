@@ -72,8 +72,6 @@ export function readTextSpectrum(bytes: Uint8Array, fileName: string): SpectrumD
         continue;
       }
       ncols = fields.length;
-      if (ncols < 2 || ncols > 4) fail(`line ${ln + 1} has ${ncols} columns; zvet reads 2 to 4 (wavelength, flux, error, mask)`);
-      for (let c = 0; c < ncols; c++) columns.push([]);
       // A commented-out header row just above the data ('# wave flux err') names the columns
       // too, when it names a wavelength and a flux column; a column it names in words zvet does
       // not know ('continuum') is then left unread rather than taken by position as the error.
@@ -82,6 +80,9 @@ export function readTextSpectrum(bytes: Uint8Array, fileName: string): SpectrumD
       if (!headerRow && commented?.length === ncols && commented.every((f) => parseNumber(f) === null) && (roles!.includes('wave') || roles!.includes('loglam')) && roles!.includes('flux')) {
         headerRow = commented;
       }
+      // By position zvet knows four columns; named ones may be any number, the others left unread.
+      if (ncols < 2 || (ncols > 4 && !headerRow)) fail(`line ${ln + 1} has ${ncols} columns; without a header row naming them zvet reads 2 to 4 (wavelength, flux, error, mask)`);
+      for (let c = 0; c < ncols; c++) columns.push([]);
     }
     if (fields.length !== ncols) fail(`line ${ln + 1} has ${fields.length} columns, but earlier lines have ${ncols}`);
     for (let c = 0; c < ncols; c++) {

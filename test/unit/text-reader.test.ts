@@ -59,6 +59,13 @@ describe('text spectra', () => {
     expect(s.provenance.format).toBe('text (named columns)');
     expect(s.provenance.errorKind).toBe('none');
   });
+  it('more than four columns are read when a header names them, the unknown ones left unread; refused by position', () => {
+    const data = rows(12, (i) => `${5000 + i} ${i + 1} 0.5 ${i === 2 ? 1 : 0} 3 9`);
+    const s = readSpectrum(enc(`wave flux err mask sky model\n${data}`), 'six.txt');
+    expect([s.flux[4], s.error[4], s.mask[2], s.sky?.[0]]).toEqual([5, 0.5, 1, 3]);
+    expect(readSpectrum(enc(`# wave flux err mask sky model\n${data}`), 'six.txt').sky?.[0]).toBe(3);
+    expect(() => readSpectrum(enc(data), 'six.txt')).toThrow(/line 1 has 6 columns; without a header row naming them zvet reads 2 to 4/);
+  });
   it('a commented header row just above the data names the columns; CRLF line ends', () => {
     const s = readSpectrum(enc(`# flux wave\r\n${rows(12, (i) => `${i + 1} ${7000 + i}`).replace(/\n/g, '\r\n')}`), 'a.dat');
     expect(s.waveAngstrom[0]).toBeCloseTo(airToVacuum(7000), 9);
