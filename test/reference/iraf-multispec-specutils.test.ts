@@ -3,8 +3,12 @@
 // writes: Chebyshev and Legendre dispersions (ftype 1, 2; specutils evaluates them with
 // astropy.modeling on the domain [pmin, pmax]) with a Doppler factor z, in a 1-D image and in a
 // 3-D image with bands. specutils ignores the weight and zeropoint fields (it takes 1 and 0),
-// so the files it checks use those values; a linear spec1 (dtype 0) is checked against the
-// formula of the IRAF specwcs document evaluated in Python, and a spline dispersion is refused.
+// so two blocks of weights 1 and 3 are checked against (λ₁ + 3λ₂)/4 of specutils' λ for each
+// block alone (the weighted mean of IRAF's wfmspec.x). A linear spec1 (dtype 0) is checked
+// against the formula of the IRAF specwcs document evaluated in Python. specutils evaluates no
+// splines: a linear spline must pass through its knots, and a cubic one must reproduce the
+// straight line its coefficients lie on (6 times, IRAF's basis being unnormalised); a table
+// dispersion is refused.
 // Air wavelengths go to vacuum by Morton (1991) eq. 3 in Python, as zvet does.
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -88,9 +92,32 @@ add('cheb-bands.fits', h, 'fits-multispec', specutils_wave(fits.getheader(os.pat
 h = multispec((n,), '1 1 0 3900. 2.5 %d 0.0002 10. 20.' % n)
 add('linear-1d.fits', h, 'fits-image-1d', (3900. + 2.5 * np.arange(n)) / 1.0002)
 
-# A cubic-spline dispersion (ftype 4), which zvet does not evaluate.
-h = multispec((n,), '1 1 2 4000. 2. %d 0. 1. 2. 1. 0. 4 2 1. %d. 4000. 4300. 4600. 4900. 5200.' % (n, n))
-add('spline-1d.fits', h, 'refused', None)
+# Two Chebyshev blocks of weights 1 and 3 (zvet) against specutils' lambda of each alone.
+cheb2 = '1 1 2 5200.5 1.9 %d 0. 12.25 22.75 1. 0. 1 2 1. %d. 5400.0 290.0' % (n, n)
+both = cheb + ' 3. 0. 1 2 1. %d. 5400.0 290.0' % n
+one_a = multispec((n,), cheb); one_b = multispec((n,), cheb2)
+for name, hh in [('a.fits', one_a), ('b.fits', one_b)]:
+    hh.writeto(os.path.join(out_dir, name))
+lam_a = specutils_wave(fits.getheader(os.path.join(out_dir, 'a.fits')))
+lam_b = specutils_wave(fits.getheader(os.path.join(out_dir, 'b.fits')))
+add('weighted-1d.fits', multispec((n,), both), 'fits-image-1d', (lam_a + 3 * lam_b) / 4)
+
+# Linear spline (ftype 4) of 3 pieces over pixels 1..n with n = 301: knots at pixels 1, 101, 201, 301.
+m = 301
+h = multispec((m,), '1 1 2 4000. 2. %d 0. 1. 2. 1. 0. 4 3 1. %d. 4000. 4210. 4405. 4610.' % (m, m))
+knot = np.interp(np.arange(m), [0, 100, 200, 300], [4000., 4210., 4405., 4610.])
+add('lspline-1d.fits', h, 'fits-image-1d', knot)
+
+# Cubic spline (ftype 3), 2 pieces, coefficients 700 + 50 k: a uniform cubic B-spline reproduces
+# a straight line (de Boor, A Practical Guide to Splines), and IRAF's basis is 6 times the
+# normalised one, so lambda = 6 (700 + 50 (x + 1)) with x = 2 (p - 1) / (n - 1).
+h = multispec((n,), '1 1 2 4000. 2. %d 0. 1. 2. 1. 0. 3 2 1. %d. 700. 750. 800. 850. 900.' % (n, n))
+x = 2 * np.arange(n) / (n - 1)
+add('cspline-1d.fits', h, 'fits-image-1d', 6 * (700 + 50 * (x + 1)))
+
+# A pixel-table dispersion (ftype 5), which zvet does not evaluate.
+h = multispec((n,), '1 1 2 4000. 2. %d 0. 1. 2. 1. 0. 5 3 4000. 4300. 4600.' % n)
+add('table-1d.fits', h, 'refused', None)
 print(json.dumps(cases))
 `;
 
@@ -101,7 +128,7 @@ const read = (file: string) => readSpectrum(new Uint8Array(readFileSync(join(dir
 
 describe('IRAF multispec wavelengths, against specutils', () => {
   it('specutils and astropy wrote every case', () => {
-    expect(cases.map((c) => c.file)).toEqual(['cheb-1d.fits', 'legendre-1d.fits', 'cheb-bands.fits', 'linear-1d.fits', 'spline-1d.fits']);
+    expect(cases.map((c) => c.file)).toEqual(['cheb-1d.fits', 'legendre-1d.fits', 'cheb-bands.fits', 'linear-1d.fits', 'weighted-1d.fits', 'lspline-1d.fits', 'cspline-1d.fits', 'table-1d.fits']);
   });
   for (const c of cases.filter((x) => x.wave)) {
     it(`${c.file}: wavelengths within 1e-9 relative, the flux of aperture 1`, () => {
@@ -115,7 +142,7 @@ describe('IRAF multispec wavelengths, against specutils', () => {
       expect(Array.from(s.flux)).toEqual(c.flux.map((v) => Math.fround(v)));
     });
   }
-  it('refuses a spline dispersion by name, in one line, instead of reading pixel numbers as wavelengths', () => {
-    expect(() => read('spline-1d.fits')).toThrow(/dispersion function type 4 \(spline or table\) is not read/);
+  it('refuses a table dispersion by name, in one line, instead of reading pixel numbers as wavelengths', () => {
+    expect(() => read('table-1d.fits')).toThrow(/dispersion function type 5 \(a pixel or sampled table\) is not read/);
   });
 });

@@ -1,13 +1,16 @@
 /**
  * IRAF's "multispec" world coordinates (Valdes, "The IRAF/NOAO spectral world coordinate
- * systems", IRAF specwcs document): CTYPE1 = 'MULTISPE', and per aperture a string
- * specN = "ap beam dtype w1 dw nw z aplow aphigh [weight zeropoint ftype order pmin pmax c1 … cn …]"
- * in the WAT2_nnn cards. With p the physical pixel (p = (l − LTV1)/LTM1_1 for logical pixel l):
- *   dtype 0: λ = (w1 + dw·(p − 1)) / (1 + z);
- *   dtype 1: λ = 10^(w1 + dw·(p − 1)) / (1 + z);
- *   dtype 2: λ = Σ weight·(zeropoint + W(p)) / (1 + z), W a Chebyshev (ftype 1) or Legendre
- *            (ftype 2) series of `order` terms in n = (2p − (pmax + pmin)) / (pmax − pmin).
- * The spline and table dispersions (ftype 3–6) are refused by name rather than guessed.
+ * systems"; the format's reference driver, IRAF sys/mwcs/wfmspec.x): CTYPE1 = 'MULTISPE', and
+ * per image line a string specN = "ap beam dtype w1 dw nw z aplow aphigh [function blocks]" in
+ * the WAT2_nnn cards. With p the physical pixel (p = (l − LTV1)/LTM1_1 for logical pixel l),
+ * held within [0.5, nw + 0.5]:
+ *   dtype 0: λ = (w1 + dw·(p − 1)) / (1 + z);   dtype 1: λ = 10^(w1 + dw·(p − 1)) / (1 + z);
+ *   dtype 2: λ = Σ wᵢ·(z0ᵢ + Wᵢ(p)) / Σ wᵢ / (1 + z) over blocks "w z0 ftype order pmin pmax c…":
+ *     ftype 1, 2: Chebyshev or Legendre series of `order` terms in n = (2p − (pmax + pmin))/(pmax − pmin);
+ *     ftype 3, 4: cubic or linear spline of `order` pieces in x = (p − pmin)·order/(pmax − pmin),
+ *       piece i = ⌊x⌋, b = x − i, a = 1 − b: cubic a³cᵢ + (1 + 3a(1 + ab))cᵢ₊₁ + (1 + 3b(1 + ab))cᵢ₊₂ + b³cᵢ₊₃,
+ *       linear a·cᵢ + b·cᵢ₊₁.
+ * The table dispersions (ftype 5, 6) are refused by name rather than guessed.
  */
 import type { Keywords } from '../keywords.js';
 import type { WavelengthAxis } from './wavelength-axis.js';
@@ -37,43 +40,46 @@ export function multispecAxis(k: Keywords, length: number): WavelengthAxis | { p
   if (!m) return { problem: "IRAF multispec image without a 'spec1' dispersion in its WAT2 cards" };
   const f = m[1].trim().split(/\s+/).map(Number);
   if (f.length < 9 || f.some((v) => !Number.isFinite(v))) return { problem: `IRAF multispec 'spec1' is not a list of numbers: "${m[1].trim().slice(0, 60)}"` };
-  const [, , dtype, w1, dw, , z] = f;
+  const [, , dtype, w1, dw, nw, z] = f;
   const ltv = k.number('LTV1') ?? 0, ltm = k.number('LTM1_1') ?? 1;
-  const physical = (i: number) => (i + 1 - ltv) / ltm;
-  const wave = new Float64Array(length);
-  if (dtype === 0 || dtype === 1) {
-    for (let i = 0; i < length; i++) {
-      const x = w1 + dw * (physical(i) - 1);
-      wave[i] = (dtype === 0 ? x : 10 ** x) / (1 + z);
-    }
-  } else if (dtype === 2) {
-    const sum = nonLinear(f.slice(9), length, physical);
-    if ('problem' in sum) return sum;
-    for (let i = 0; i < length; i++) wave[i] = sum.values[i] / (1 + z);
+  const physical = (i: number) => Math.max(0.5, Math.min(nw + 0.5, (i + 1 - ltv) / ltm));
+  let world: (p: number) => number;
+  if (dtype === 0) world = (p) => w1 + dw * (p - 1);
+  else if (dtype === 1) world = (p) => 10 ** (w1 + dw * (p - 1));
+  else if (dtype === 2) {
+    const fn = nonLinear(f.slice(9));
+    if ('problem' in fn) return fn;
+    world = fn.at;
   } else {
     return { problem: `IRAF multispec 'spec1' has dispersion type ${dtype}, not a wavelength solution (0 linear, 1 log-linear, 2 non-linear)` };
   }
+  const wave = new Float64Array(length);
+  for (let i = 0; i < length; i++) wave[i] = world(physical(i)) / (1 + z);
   const units = /units=(\S+)/.exec(k.string('WAT1_001') ?? '')?.[1];
   return { wave, unit: (units && parseWaveUnit(units)) || guessWaveUnit(wave), dispersion: dtype === 1 ? 'log10' : dtype === 0 ? 'linear' : 'tabulated' };
 }
 
-/** Σ weight·(zeropoint + W(p)) over the function blocks that follow the nine leading fields. */
-function nonLinear(blocks: number[], length: number, physical: (i: number) => number): { values: Float64Array } | { problem: string } {
-  const values = new Float64Array(length);
-  let at = 0;
-  if (blocks.length === 0) return { problem: "IRAF multispec 'spec1' of dispersion type 2 gives no function" };
-  while (at < blocks.length) {
-    const [weight, zeropoint, ftype, order, pmin, pmax] = blocks.slice(at, at + 6);
-    if (ftype !== 1 && ftype !== 2) return { problem: `IRAF multispec dispersion function type ${ftype} (${ftype >= 3 && ftype <= 6 ? 'spline or table' : 'unknown'}) is not read: only Chebyshev (1) and Legendre (2) series` };
-    const c = blocks.slice(at + 6, at + 6 + order);
-    if (!(order >= 1) || c.length < order || !(pmax > pmin)) return { problem: "IRAF multispec 'spec1' function is incomplete (order, pmin, pmax or coefficients)" };
-    for (let i = 0; i < length; i++) {
-      const n = (2 * physical(i) - (pmax + pmin)) / (pmax - pmin);
-      values[i] += weight * (zeropoint + series(ftype, c, n));
-    }
-    at += 6 + order;
+interface Block {
+  weight: number;
+  zeropoint: number;
+  at: (p: number) => number;
+}
+
+/** The weighted mean of the function blocks that follow the nine leading fields, as a function of p. */
+function nonLinear(values: number[]): { at: (p: number) => number } | { problem: string } {
+  const blocks: Block[] = [];
+  for (let at = 0; at < values.length; ) {
+    const [weight, zeropoint, ftype, order, pmin, pmax] = values.slice(at, at + 6);
+    const nCoeff = ftype === 1 || ftype === 2 ? order : ftype === 3 ? order + 3 : ftype === 4 ? order + 1 : NaN;
+    if (Number.isNaN(nCoeff)) return { problem: `IRAF multispec dispersion function type ${ftype} (${ftype === 5 || ftype === 6 ? 'a pixel or sampled table' : 'unknown'}) is not read: only Chebyshev (1), Legendre (2) and spline (3, 4) functions` };
+    const c = values.slice(at + 6, at + 6 + nCoeff);
+    if (!(order >= 1) || !Number.isInteger(order) || c.length < nCoeff || !(pmax > pmin)) return { problem: "IRAF multispec 'spec1' function is incomplete (order, pmin, pmax or coefficients)" };
+    blocks.push({ weight, zeropoint, at: ftype <= 2 ? (p) => series(ftype, c, (2 * p - (pmax + pmin)) / (pmax - pmin)) : (p) => spline(ftype, c, order, ((p - pmin) * order) / (pmax - pmin)) });
+    at += 6 + nCoeff;
   }
-  return { values };
+  if (blocks.length === 0) return { problem: "IRAF multispec 'spec1' of dispersion type 2 gives no function" };
+  const totalWeight = blocks.reduce((s, b) => s + b.weight, 0);
+  return { at: (p) => blocks.reduce((s, b) => s + b.weight * (b.zeropoint + b.at(p)), 0) / totalWeight };
 }
 
 /** Σ c_j·T_j(n) (Chebyshev) or Σ c_j·P_j(n) (Legendre) by their three-term recurrences. */
@@ -86,4 +92,12 @@ function series(ftype: number, c: number[], n: number): number {
     cur = next;
   }
   return sum;
+}
+
+/** The cubic (ftype 3) or linear (ftype 4) spline of `pieces` pieces at x ∈ [0, pieces]. */
+function spline(ftype: number, c: number[], pieces: number, x: number): number {
+  const i = Math.max(0, Math.min(Math.floor(x), pieces - 1));
+  const b = x - i, a = 1 - b;
+  if (ftype === 4) return a * c[i] + b * c[i + 1];
+  return a * a * a * c[i] + (1 + 3 * a * (1 + a * b)) * c[i + 1] + (1 + 3 * b * (1 + a * b)) * c[i + 2] + b * b * b * c[i + 3];
 }
