@@ -88,6 +88,14 @@ h.header['WCSDIM'] = 3
 h.header['CTYPE3'] = 'LINEAR'
 add('cheb-bands.fits', h, 'fits-multispec', specutils_wave(fits.getheader(os.path.join(out_dir, 'cheb.fits'))))
 
+# The Chebyshev aperture padded by 20 pixels past nw (as IRAF pads shorter apertures): only the
+# first nw pixels have wavelengths, those of the unpadded file.
+padded = multispec((n,), cheb.replace(' %d 0. 12.25' % n, ' %d 0. 12.25' % (n - 20)))
+padded.data[n - 20:] = 0
+lam = specutils_wave(fits.getheader(os.path.join(out_dir, 'cheb.fits')))[:n - 20]
+add('padded-1d.fits', padded, 'fits-image-1d', lam)
+cases[-1]['flux'] = cases[-1]['flux'][:n - 20]
+
 # Linear spec1 (dtype 0): lambda = (w1 + dw (p - 1)) / (1 + z).
 h = multispec((n,), '1 1 0 3900. 2.5 %d 0.0002 10. 20.' % n)
 add('linear-1d.fits', h, 'fits-image-1d', (3900. + 2.5 * np.arange(n)) / 1.0002)
@@ -128,7 +136,7 @@ const read = (file: string) => readSpectrum(new Uint8Array(readFileSync(join(dir
 
 describe('IRAF multispec wavelengths, against specutils', () => {
   it('specutils and astropy wrote every case', () => {
-    expect(cases.map((c) => c.file)).toEqual(['cheb-1d.fits', 'legendre-1d.fits', 'cheb-bands.fits', 'linear-1d.fits', 'weighted-1d.fits', 'lspline-1d.fits', 'cspline-1d.fits', 'table-1d.fits']);
+    expect(cases.map((c) => c.file)).toEqual(['cheb-1d.fits', 'legendre-1d.fits', 'cheb-bands.fits', 'padded-1d.fits', 'linear-1d.fits', 'weighted-1d.fits', 'lspline-1d.fits', 'cspline-1d.fits', 'table-1d.fits']);
   });
   for (const c of cases.filter((x) => x.wave)) {
     it(`${c.file}: wavelengths within 1e-9 relative, the flux of aperture 1`, () => {

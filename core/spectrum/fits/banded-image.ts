@@ -9,7 +9,7 @@
  */
 import { readImage } from '../../fits/image.js';
 import { ERROR_KIND, maskFrom, sdssMaskFrom, sigmaFrom } from '../columns.js';
-import { bunit, headerParts, type HduContext, type LayoutDraft, type LayoutVerdict } from './layout.js';
+import { bunit, firstPixels, headerParts, type HduContext, type LayoutDraft, type LayoutVerdict } from './layout.js';
 import { sdssDefaults } from './surveys.js';
 import { axisProblem, coeffAxis, hasCoeffAxis, linearAxis, type WavelengthAxis } from './wavelength-axis.js';
 import { isMultispec, multispecAxis } from './multispec-wcs.js';
@@ -87,7 +87,7 @@ function readBanded(ctx: HduContext, bands: Bands, n: number): LayoutDraft {
   const skyBand = find('sky');
   const { wave, unit, dispersion } = bands.wave();
   const defaults = sdssDefaults(ctx.keywords) ?? {};
-  return {
+  return firstPixels({
     format: bands.format,
     wave,
     waveUnit: unit,
@@ -99,5 +99,5 @@ function readBanded(ctx: HduContext, bands: Bands, n: number): LayoutDraft {
     sky: skyBand >= 0 ? band(skyBand).slice() : undefined,
     fluxUnit: bunit(ctx.keywords) ?? 'unknown',
     ...headerParts(ctx, defaults),
-  };
+  }, wave.length);
 }

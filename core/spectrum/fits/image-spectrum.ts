@@ -9,7 +9,7 @@
 import { readImage } from '../../fits/image.js';
 import type { FitsHdu } from '../../fits/parse.js';
 import { ERROR_KIND, maskFrom, sigmaFrom, type ErrorRole } from '../columns.js';
-import { bunit, headerParts, type HduContext, type LayoutDraft, type LayoutVerdict } from './layout.js';
+import { bunit, firstPixels, headerParts, type HduContext, type LayoutDraft, type LayoutVerdict } from './layout.js';
 import { GALAH_DEFAULTS, sdssDefaults } from './surveys.js';
 import { axisProblem, coeffAxis, hasCoeffAxis, linearAxis, type WavelengthAxis } from './wavelength-axis.js';
 import { isMultispec, multispecAxis } from './multispec-wcs.js';
@@ -87,7 +87,7 @@ function readImage1d(ctx: HduContext, n: number, { wave, unit, dispersion }: Wav
     }
   }
   const parts = headerParts(ctx, galah ? GALAH_DEFAULTS : (sdssDefaults(ctx.keywords) ?? {}));
-  return {
+  return firstPixels({
     format: galah ? 'fits-image-1d (GALAH)' : 'fits-image-1d',
     wave,
     waveUnit: unit,
@@ -99,5 +99,5 @@ function readImage1d(ctx: HduContext, n: number, { wave, unit, dispersion }: Wav
     sky,
     fluxUnit: galah ? (ctx.hdu.index === 0 ? 'counts' : 'normalised (continuum = 1)') : (bunit(ctx.keywords) ?? 'unknown'),
     ...parts,
-  };
+  }, wave.length);
 }

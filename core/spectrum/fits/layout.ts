@@ -39,6 +39,12 @@ export interface SurveyDefaults {
   frame?: FrameDecision;
 }
 
+/** The draft's first m pixels, where the wavelength solution covers only those (IRAF multispec's nw). */
+export function firstPixels(d: LayoutDraft, m: number): LayoutDraft {
+  if (d.flux.length <= m) return d;
+  return { ...d, flux: d.flux.subarray(0, m), error: d.error?.subarray(0, m), mask: d.mask?.subarray(0, m), sky: d.sky?.subarray(0, m) };
+}
+
 export function headerParts(ctx: HduContext, defaults: SurveyDefaults = {}): Pick<LayoutDraft, 'medium' | 'meta' | 'header'> {
   // Every card is parsed for the header display first; the keyword look-ups then use those cards.
   const header = headerCards(ctx);

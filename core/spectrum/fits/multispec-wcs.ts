@@ -34,7 +34,7 @@ function watString(k: Keywords, axis: number): string {
   return parts.map((p, i) => (i < parts.length - 1 ? p.padEnd(WAT_CARD_CHARACTERS) : p)).join('');
 }
 
-/** Wavelengths of the first aperture (image line 1) of a multispec image, or why there are none. */
+/** Wavelengths of the first aperture (image line 1) of a multispec image, its first nw pixels, or why there are none. */
 export function multispecAxis(k: Keywords, length: number): WavelengthAxis | { problem: string } {
   const m = /spec1\s*=\s*"([^"]*)"/.exec(watString(k, 2));
   if (!m) return { problem: "IRAF multispec image without a 'spec1' dispersion in its WAT2 cards" };
@@ -53,8 +53,9 @@ export function multispecAxis(k: Keywords, length: number): WavelengthAxis | { p
   } else {
     return { problem: `IRAF multispec 'spec1' has dispersion type ${dtype}, not a wavelength solution (0 linear, 1 log-linear, 2 non-linear)` };
   }
-  const wave = new Float64Array(length);
-  for (let i = 0; i < length; i++) wave[i] = world(physical(i)) / (1 + z);
+  // Pixels past nw (IRAF pads shorter apertures) have no wavelength: the readers leave them out.
+  const wave = new Float64Array(Math.min(length, Math.max(1, Math.floor(nw))));
+  for (let i = 0; i < wave.length; i++) wave[i] = world(physical(i)) / (1 + z);
   const units = /units=(\S+)/.exec(k.string('WAT1_001') ?? '')?.[1];
   return { wave, unit: (units && parseWaveUnit(units)) || guessWaveUnit(wave), dispersion: dtype === 1 ? 'log10' : dtype === 0 ? 'linear' : 'tabulated' };
 }
