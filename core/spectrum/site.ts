@@ -2,7 +2,9 @@
  * Observing site from the header. Longitudes are returned east-positive. Each keyword family
  * has its own habit, and a comment naming the direction ('west', '[deg E]') overrides it:
  * - OBSGEO-B/L/H: latitude, longitude east-positive, height in m (Rots et al. 2015, A&A 574,
- *   A36, §4.1.1.3, the FITS time paper).
+ *   A36, §4.1.1.3, the FITS time paper); else OBSGEO-X/Y/Z, geocentric metres (same paper),
+ *   taken to WGS84 latitude, longitude and height (geocentric.ts).
+ * - ESO TEL GEOLAT/GEOLON/GEOELEV (ESO HIERARCH): east-positive (the cards say '+=East'; from memory).
  * - LAT_OBS/LONG_OBS/ALT_OBS (e.g. AAO headers): east-positive (AAT has LONG_OBS = 149.07).
  * - LATITUDE/LONGITUD/ALTITUDE or HEIGHT: west-positive in ING and NOAO/IRAF practice
  *   (La Palma written as +17.88; fitsbits list, Nov 2000).
@@ -13,6 +15,7 @@
  */
 import { firstString, type Keywords } from './keywords.js';
 import { angleDeg } from './sexagesimal.js';
+import { geodeticFromGeocentric } from './geocentric.js';
 import type { Site } from './spectrum.js';
 
 interface Family {
@@ -24,6 +27,7 @@ interface Family {
 
 const FAMILIES: Family[] = [
   { lat: 'OBSGEO-B', lon: 'OBSGEO-L', heights: ['OBSGEO-H'], eastPositive: true },
+  { lat: 'ESO TEL GEOLAT', lon: 'ESO TEL GEOLON', heights: ['ESO TEL GEOELEV'], eastPositive: true },
   { lat: 'LAT_OBS', lon: 'LONG_OBS', heights: ['ALT_OBS'], eastPositive: true },
   { lat: 'LATITUDE', lon: 'LONGITUD', heights: ['ALTITUDE', 'HEIGHT'], eastPositive: false },
   { lat: 'SITELAT', lon: 'SITELONG', heights: ['SITEALT', 'SITEELEV'], eastPositive: false },
@@ -32,6 +36,12 @@ const FAMILIES: Family[] = [
 
 export function siteOf(k: Keywords): Site | undefined {
   const name = firstString(k, ['OBSERVAT', 'SITENAME', 'TELESCOP'])?.value;
+  const [x, y, z] = ['OBSGEO-X', 'OBSGEO-Y', 'OBSGEO-Z'].map((key) => k.number(key));
+  const hasBlh = k.value('OBSGEO-B') !== undefined && k.value('OBSGEO-L') !== undefined;
+  // A point within 100 km of the Earth's surface, else not a site.
+  if (!hasBlh && x !== undefined && y !== undefined && z !== undefined && Math.abs(Math.hypot(x, y, z) - 6.371e6) < 1e5) {
+    return { ...geodeticFromGeocentric(x, y, z), ...(name ? { name } : {}) };
+  }
   for (const f of FAMILIES) {
     const latitudeDeg = angleDeg(k.value(f.lat), false);
     const lon = angleDeg(k.value(f.lon), false);

@@ -232,6 +232,11 @@ describe('metadata keywords', () => {
     // A comment naming the direction wins.
     expect(read([card('SITELAT', '+31:40:51.4'), card('SITELONG', '-110:52:39.0', 'longitude, degrees east')]).site?.longitudeDeg).toBeCloseTo(-(110 + 52 / 60 + 39 / 3600), 9);
     expect(read([card('OBS-LAT', -30.2), card('OBS-LONG', -70.7), card('OBS-ELEV', 2200)]).site).toMatchObject({ longitudeDeg: -70.7, heightM: 2200 });
+    // ESO HIERARCH cards, east-positive.
+    const eso = ['HIERARCH ESO TEL GEOLAT = -24.6270 / [deg] Tel geo latitude (+=North)', 'HIERARCH ESO TEL GEOLON = -70.4040 / [deg] Tel geo longitude (+=East)', 'HIERARCH ESO TEL GEOELEV = 2648. / [m] Elevation above sea level'].map((t) => t.padEnd(80));
+    expect(read(eso).site).toEqual({ latitudeDeg: -24.627, longitudeDeg: -70.404, heightM: 2648 });
+    // OBSGEO-X/Y/Z far from the Earth's surface is not a site.
+    expect(read([card('OBSGEO-X', 1), card('OBSGEO-Y', 2), card('OBSGEO-Z', 3)]).site).toBeUndefined();
   });
   it('velocity frame from SPECSYS, VELFRAME, correction keywords, else unknown', () => {
     expect(read([card('SPECSYS', 'TOPOCENT')]).velocityFrame).toBe('topocentric');
