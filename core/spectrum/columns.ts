@@ -16,7 +16,7 @@ export const COLUMN_NAMES: Record<ColumnRole, string[]> = {
   ivar: ['ivar', 'inverse_variance', 'invvar', 'flux_ivar', 'inv_var'],
   variance: ['variance', 'var', 'flux_var', 'flux_variance'],
   snr: ['snr', 's/n', 's2n', 'sn_ratio', 'signal_to_noise', 'sig_to_noise'],
-  mask: ['and_mask', 'mask', 'badpix', 'bad', 'flag', 'flags', 'quality', 'dq', 'pixel_mask'],
+  mask: ['and_mask', 'mask', 'badpix', 'bad', 'flag', 'flags', 'quality', 'qual', 'dq', 'pixel_mask'],
   sky: ['sky', 'sky_flux', 'skyflux', 'background', 'bkg'],
   contam: ['contam', 'contamination'],
   sensitivity: ['sensitivity', 'sens'],

@@ -148,6 +148,17 @@ describe('tables', () => {
     expect(s.error[0]).toBeCloseTo(0.2, 6);
     expect(s.provenance.errorKind).toBe('variance');
   });
+  it('single-row ESO-style table: WAVE in nm, FLUX, ERR, QUAL (non-zero is bad), SPECSYS barycentric', () => {
+    const w = Array.from({ length: N }, (_, i) => 500 + 0.1 * i);
+    const qual = flux.map((_, i) => (i === 5 ? 2 : 0));
+    const data = concat(beBytes('f64', w), beBytes('f32', flux), beBytes('f32', flux.map(() => 0.3)), beBytes('i32', qual));
+    const cols = [{ name: 'WAVE', form: `${N}D`, unit: 'nm' }, { name: 'FLUX', form: `${N}E` }, { name: 'ERR', form: `${N}E` }, { name: 'QUAL', form: `${N}J` }];
+    const s = readSpectrum(fitsBytes([EMPTY_PRIMARY, binTable(N * 20, 1, cols, data, [card('SPECSYS', 'BARYCENT'), card('AIRORVAC', 'air')])]), 'eso.fits');
+    expect(s.waveAngstrom[0]).toBeCloseTo(airToVacuum(5000), 6);
+    expect([s.mask[5], s.mask[4]]).toEqual([1, 0]);
+    expect(s.error[0]).toBeCloseTo(0.3, 6);
+    expect(s.meta.velocityFrame).toBe('barycentric');
+  });
   it('per-pixel table with an SNR column: σ = |flux| / SNR', () => {
     const cols = ['WAVE', 'FLUX', 'SNR'].map((name) => ({ name, form: 'D' }));
     const rows = flux.map((f, i) => beBytes('f64', [5000 + i, f, 25]));
