@@ -7,16 +7,21 @@ import type { ErrorKind } from './spectrum.js';
 
 export type ColumnRole = 'wave' | 'loglam' | 'flux' | 'sigma' | 'ivar' | 'variance' | 'snr' | 'mask' | 'sky' | 'contam' | 'sensitivity';
 
-/** Names per role, in order of preference (common practice, no single source). */
+/**
+ * Names per role, in order of preference (common practice, no single source). PypeIt's spec1d
+ * tables name them OPT_… (optimal extraction) and BOX_… (boxcar), fluxed (FLAM) or in counts
+ * (PypeIt data model, SpecObj); the lists keep each extraction's columns in the same order, so
+ * that a flux and its inverse variance come from one extraction.
+ */
 export const COLUMN_NAMES: Record<ColumnRole, string[]> = {
-  wave: ['wave', 'wavelength', 'lambda', 'lam', 'wl', 'awav', 'wave_air', 'wave_vac', 'wavelength_air', 'wavelength_vac', 'vacuum_wavelength', 'air_wavelength', 'lambda_air', 'lambda_vac', 'wav'],
+  wave: ['wave', 'wavelength', 'lambda', 'lam', 'wl', 'awav', 'wave_air', 'wave_vac', 'wavelength_air', 'wavelength_vac', 'vacuum_wavelength', 'air_wavelength', 'lambda_air', 'lambda_vac', 'wav', 'opt_wave', 'box_wave'],
   loglam: ['loglam', 'log_lambda', 'log_wave', 'logwave', 'loglambda'],
-  flux: ['flux', 'flux_density', 'flam', 'f_lambda', 'flambda', 'fluxdensity', 'spec', 'spectrum', 'intensity', 'counts', 'data'],
+  flux: ['flux', 'flux_density', 'flam', 'f_lambda', 'flambda', 'fluxdensity', 'spec', 'spectrum', 'intensity', 'counts', 'data', 'opt_flam', 'box_flam', 'opt_counts', 'box_counts'],
   sigma: ['error', 'err', 'sigma', 'noise', 'flux_err', 'flux_error', 'fluxerr', 'e_flux', 'err_flux', 'error_flux', 'uncertainty', 'unc', 'flux_unc', 'stddev', 'std', 'dflux', 'sig'],
-  ivar: ['ivar', 'inverse_variance', 'invvar', 'flux_ivar', 'inv_var'],
+  ivar: ['ivar', 'inverse_variance', 'invvar', 'flux_ivar', 'inv_var', 'opt_flam_ivar', 'box_flam_ivar', 'opt_counts_ivar', 'box_counts_ivar'],
   variance: ['variance', 'var', 'flux_var', 'flux_variance'],
   snr: ['snr', 's/n', 's2n', 'sn_ratio', 'signal_to_noise', 'sig_to_noise'],
-  mask: ['and_mask', 'mask', 'badpix', 'bad', 'flag', 'flags', 'quality', 'qual', 'dq', 'pixel_mask'],
+  mask: ['and_mask', 'mask', 'badpix', 'bad', 'flag', 'flags', 'quality', 'qual', 'dq', 'pixel_mask', 'opt_mask', 'box_mask'],
   sky: ['sky', 'sky_flux', 'skyflux', 'background', 'bkg'],
   contam: ['contam', 'contamination'],
   sensitivity: ['sensitivity', 'sens'],
@@ -51,6 +56,11 @@ export function sigmaFrom(role: ErrorRole, values: Float64Array, mask: Uint8Arra
 }
 
 export const ERROR_KIND: Record<ErrorRole, ErrorKind> = { sigma: 'sigma', ivar: 'ivar', variance: 'variance', snr: 'snr' };
+
+/** Good-pixel flags (PypeIt: 1 or True = good, OneSpec and SpecObj data models): zero is bad. */
+export function goodPixelMaskFrom(values: Float64Array, mask: Uint8Array): void {
+  for (let i = 0; i < values.length; i++) if (!(values[i] !== 0 && Number.isFinite(values[i]))) mask[i] = 1;
+}
 
 /** Bad-pixel flags from a mask column: any non-zero (or non-finite) value is bad. */
 export function maskFrom(values: Float64Array, mask: Uint8Array): void {

@@ -28,7 +28,8 @@ const APPLIED_CORRECTIONS: Array<[string, VelocityFrame]> = [
 ];
 
 export function velocityFrameOf(k: Keywords, surveyFrame?: FrameDecision): FrameDecision {
-  for (const key of ['SPECSYS', 'VELFRAME', 'SSYSOBS']) {
+  // VEL_TYPE: the correction PypeIt applied to its wavelengths ('heliocentric', 'barycentric').
+  for (const key of ['SPECSYS', 'VELFRAME', 'SSYSOBS', 'VEL_TYPE']) {
     const v = k.string(key)?.trim().toUpperCase();
     if (!v) continue;
     const frame = SPECSYS[v.slice(0, 8)] ?? (v.startsWith('HELIO') ? 'heliocentric' : v.startsWith('BARY') ? 'barycentric' : v.startsWith('TOPO') ? 'topocentric' : undefined);

@@ -159,6 +159,27 @@ describe('tables', () => {
     expect(s.error[0]).toBeCloseTo(0.3, 6);
     expect(s.meta.velocityFrame).toBe('barycentric');
   });
+  it('PypeIt spec1d table: OPT_ columns of one extraction, OPT_MASK True = good, vacuum, VEL_TYPE frame (PypeIt data model)', () => {
+    const names = ['BOX_WAVE', 'BOX_FLAM', 'OPT_WAVE', 'OPT_COUNTS', 'OPT_COUNTS_IVAR', 'OPT_FLAM', 'OPT_FLAM_IVAR', 'OPT_MASK'];
+    const cols = names.map((name) => ({ name, form: name.endsWith('MASK') ? 'L' : 'D' }));
+    const rows = flux.map((f, i) => concat(beBytes('f64', [5000 + i, 99, 5000 + i, 1000 * f, 1e-4, f, 16]), beBytes('u8', [i === 3 ? 70 : 84])));
+    const primary = { cards: [...EMPTY_PRIMARY.cards, card('PYP_SPEC', 'keck_lris_red_mark4')] };
+    const table = binTable(57, N, cols, concat(...rows), [card('VEL_TYPE', 'barycentric'), card('VEL_CORR', 1.0000312)]);
+    const s = readSpectrum(fitsBytes([primary, table]), 'spec1d.fits');
+    expect([s.flux[2], s.error[2]]).toEqual([flux[2], 0.25]);
+    expect([s.mask[3], s.mask[2]]).toEqual([1, 0]);
+    expect(s.provenance.medium).toBe('vacuum');
+    expect(s.provenance.mediumReason).toMatch(/PypeIt/);
+    expect(s.meta.velocityFrame).toBe('barycentric');
+  });
+  it('PypeIt coadd (OneSpec): wave, flux, ivar, mask with 1 = good', () => {
+    const cols = ['wave', 'flux', 'ivar', 'mask'].map((name) => ({ name, form: name === 'mask' ? 'J' : 'D' }));
+    const rows = flux.map((f, i) => concat(beBytes('f64', [6000 + i, f, 4]), beBytes('i32', [i === 7 ? 0 : 1])));
+    const table = binTable(28, N, cols, concat(...rows), [card('PYP_SPEC', 'shane_kast_blue')]);
+    const s = readSpectrum(fitsBytes([EMPTY_PRIMARY, table]), 'coadd.fits');
+    expect(Array.from(s.mask).filter((m) => m).length).toBe(1);
+    expect(s.mask[7]).toBe(1);
+  });
   it('per-pixel table with an SNR column: σ = |flux| / SNR', () => {
     const cols = ['WAVE', 'FLUX', 'SNR'].map((name) => ({ name, form: 'D' }));
     const rows = flux.map((f, i) => beBytes('f64', [5000 + i, f, 25]));

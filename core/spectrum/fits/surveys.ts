@@ -38,3 +38,13 @@ export const GALAH_DEFAULTS: SurveyDefaults = {
 export const GRISM_DEFAULTS: SurveyDefaults = {
   medium: { medium: 'vacuum', reason: 'slitless-grism table (contam, sensitivity: 3D-HST, HST/WFC3 from space): vacuum wavelengths' },
 };
+
+/** PypeIt products (spec1d, coadd1d) carry PYP_SPEC, the spectrograph's name (PypeIt data model). */
+export function isPypeIt(k: Keywords): boolean {
+  return k.string('PYP_SPEC') !== undefined;
+}
+
+/** PypeIt: "All wavelengths are in vacuum" (PypeIt documentation, OneSpec and SpecObj data models). */
+export const PYPEIT_DEFAULTS: SurveyDefaults = {
+  medium: { medium: 'vacuum', reason: 'PYP_SPEC: PypeIt writes vacuum wavelengths (PypeIt data model)' },
+};

@@ -6,12 +6,12 @@
  * (SDSS data model, spec file HDU 1).
  */
 import { openTable, type FitsTable, type TableColumn } from '../../fits/table.js';
-import { ERROR_KIND, ERROR_ROLES, findByRole, maskFrom, sdssMaskFrom, sigmaFrom } from '../columns.js';
+import { ERROR_KIND, ERROR_ROLES, findByRole, goodPixelMaskFrom, maskFrom, sdssMaskFrom, sigmaFrom } from '../columns.js';
 import { mediumFromName } from '../medium.js';
 import { guessWaveUnit, parseWaveUnit, type WaveUnit } from '../units.js';
 import { powersOfTen } from './powers-of-ten.js';
 import { bunit, headerParts, type HduContext, type LayoutDraft, type LayoutVerdict } from './layout.js';
-import { GRISM_DEFAULTS, sdssDefaults } from './surveys.js';
+import { GRISM_DEFAULTS, isPypeIt, PYPEIT_DEFAULTS, sdssDefaults } from './surveys.js';
 import { mayNameWavelength } from './wave-column-screen.js';
 
 export function matchTable(ctx: HduContext): LayoutVerdict {
@@ -62,7 +62,7 @@ function readTable(
   const maskCol = findByRole('mask', table.find);
   if (maskCol && !maskCol.isText) {
     const values = get(maskCol);
-    if (values.length === n) (maskCol.name.toLowerCase() === 'and_mask' ? sdssMaskFrom : maskFrom)(values, mask);
+    if (values.length === n) (maskCol.name.toLowerCase() === 'and_mask' ? sdssMaskFrom : isPypeIt(ctx.keywords) ? goodPixelMaskFrom : maskFrom)(values, mask);
   }
   const skyCol = findByRole('sky', table.find);
   const sky = skyCol && !skyCol.isText ? get(skyCol) : undefined;
@@ -76,7 +76,7 @@ function readTable(
     if (error) error = error.map((e, i) => (sens[i] > 0 ? e / sens[i] : NaN));
     fluxUnit = grismFluxUnit(sensCol.unit, fluxUnit);
   }
-  const defaults = sdssDefaults(ctx.keywords) ?? (format === 'fits-grism-table' ? GRISM_DEFAULTS : {});
+  const defaults = sdssDefaults(ctx.keywords) ?? (isPypeIt(ctx.keywords) ? PYPEIT_DEFAULTS : format === 'fits-grism-table' ? GRISM_DEFAULTS : {});
   const parts = headerParts(ctx, defaults);
   const named = mediumFromName(waveCol.name);
   return {
