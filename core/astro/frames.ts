@@ -54,6 +54,7 @@ function signedKmS(v: number): string {
 
 /** Mid-exposure UTC MJD from the header times, with a note on how it was found. */
 function midExposure(meta: SpectrumMeta): { mjdUtc: number; note: string } | { missing: string } {
+  if (Number.isFinite(meta.mjdAvg)) return { mjdUtc: meta.mjdAvg!, note: `mid-exposure from ${meta.avgTimeFrom ?? 'MJD-AVG'} (the header's average time)` };
   let start: number;
   let from: string;
   if (Number.isFinite(meta.mjdObs)) {

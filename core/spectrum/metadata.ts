@@ -3,7 +3,7 @@
  * keywords: object name, target position, start time, exposure, site and velocity frame.
  */
 import { firstNumber, firstString, type Keywords } from './keywords.js';
-import { observationTime } from './observation-time.js';
+import { averageTime, observationTime } from './observation-time.js';
 import { angleDeg } from './sexagesimal.js';
 import { siteOf } from './site.js';
 import type { SpectrumMeta } from './spectrum.js';
@@ -49,6 +49,8 @@ export function metadataOf(k: Keywords, surveyFrame?: FrameDecision): SpectrumMe
   if (meta.raDeg === undefined && refused) meta.positionWarning = refused;
   const time = observationTime(k);
   if (time) Object.assign(meta, time);
+  const average = averageTime(k);
+  if (average) Object.assign(meta, average);
   const exposure = firstNumber(k, ['EXPTIME', 'EXPOSURE', 'EXPOSED', 'TEXPTIME', 'ITIME']);
   if (exposure && exposure.value >= 0) meta.exposureS = exposure.value;
   const site = siteOf(k);

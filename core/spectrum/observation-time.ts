@@ -21,7 +21,7 @@ export interface HeaderObservationTime extends ObservationTime {
 const DATE_AGREEMENT_DAYS = 1;
 
 export function observationTime(k: Keywords): HeaderObservationTime | { obsTimeWarning: string } | undefined {
-  const dateKey = firstString(k, ['DATE-OBS', 'DATE_OBS', 'UTDATE_S']);
+  const dateKey = firstString(k, ['DATE-OBS', 'DATE_OBS', 'DATE-BEG', 'UTDATE_S']);
   const timeKey = firstString(k, ['TIME-OBS', 'TIME_OBS', 'UT', 'UTC', 'UTSTART', 'UT-START']);
   const date = dateKey ? fromDateText(dateKey.value, timeKey?.value) : undefined;
   const dateFrom = dateKey ? (date?.hasTime && !/[T ]\d/.test(dateKey.value) && timeKey ? `${dateKey.key} + ${timeKey.key}` : dateKey.key) : '';
@@ -36,7 +36,7 @@ export function observationTime(k: Keywords): HeaderObservationTime | { obsTimeW
     const warning = dateKey && !date ? `${unreadableDate}; ${from} used` : !agrees ? `${dateKey!.key} '${dateKey!.value}' is ${Math.abs(off).toFixed(1)} days from ${from} ${mjd}; ${from} used` : undefined;
     return { ...t, obsTimeFrom: from, ...(warning ? { obsTimeWarning: warning } : {}) };
   };
-  const mjd = firstNumber(k, ['MJD-OBS', 'MJD_OBS', 'MJDSTART', 'UTMJD_S']);
+  const mjd = firstNumber(k, ['MJD-OBS', 'MJD_OBS', 'MJD-BEG', 'MJDSTART', 'UTMJD_S']);
   if (mjd) return numeric(mjd.value, mjd.key);
   const jd = firstNumber(k, ['JD', 'JD-OBS', 'JD_OBS']);
   if (jd && jd.value > 2_400_000) return numeric(jd.value - 2_400_000.5, `${jd.key} − 2400000.5`);
@@ -48,6 +48,19 @@ export function observationTime(k: Keywords): HeaderObservationTime | { obsTimeW
   if (date) return { ...date.time, obsTimeFrom: `${dateFrom} (a date without time: 00:00 UTC)` };
   if (mjdDay && mjdDay.value > 0 && mjdDay.value < 100_000) return numeric(mjdDay.value, `${mjdDay.key} (a whole day)`);
   return dateKey ? { obsTimeWarning: unreadableDate } : undefined;
+}
+
+/**
+ * The header's own mid-time of the observation, MJD-AVG or DATE-AVG (Rots et al. 2015, A&A 574,
+ * A36, §4.1.2: the average time, e.g. of exposures combined), as MJD (UTC; other time scales
+ * are not converted, a difference of at most about a minute).
+ */
+export function averageTime(k: Keywords): { mjdAvg: number; avgTimeFrom: string } | undefined {
+  const mjd = firstNumber(k, ['MJD-AVG']);
+  if (mjd && fromMjd(mjd.value)) return { mjdAvg: mjd.value, avgTimeFrom: mjd.key };
+  const date = firstString(k, ['DATE-AVG']);
+  const t = date ? fromDateText(date.value) : undefined;
+  return t?.hasTime ? { mjdAvg: t.time.mjdObs, avgTimeFrom: date!.key } : undefined;
 }
 
 /**

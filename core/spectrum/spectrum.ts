@@ -45,6 +45,9 @@ export interface SpectrumMeta {
   obsTimeFrom?: string;
   /** Set when the header's times disagree (DATE-OBS against MJD-OBS), saying which was used. */
   obsTimeWarning?: string;
+  /** The header's own mid-time (MJD-AVG or DATE-AVG) as MJD (UTC), and the keyword. */
+  mjdAvg?: number;
+  avgTimeFrom?: string;
   exposureS?: number;
   site?: Site;
   /** Frame of the stored wavelengths and the header evidence for it. */

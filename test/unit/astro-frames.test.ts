@@ -38,6 +38,13 @@ describe('correctFrames', () => {
     expect(r.reason).toMatch(/DATE-OBS \+ EXPTIME\/2/);
     expect(r.reason).toMatch(/site Kestrel Ridge from the header/);
   });
+  it('takes the header’s own average time (MJD-AVG) as the mid-exposure when it has one (a coadd of several exposures)', () => {
+    const mjdAvg = mjdFromIsoUtc('2026-03-14T07:40:00');
+    const r = correctFrames({ zObs: 0.05, meta: { ...full, mjdAvg, avgTimeFrom: 'MJD-AVG' } });
+    expect(r.midExposureUtc).toBe('2026-03-14T07:40:00.000Z');
+    expect(r.vCorrKmS).toBeCloseTo(barycentricCorrection({ raDeg: 210.9, decDeg: 54.3, mjdUtc: mjdAvg, site: kestrel }).vCorrKmS, 9);
+    expect(r.reason).toMatch(/mid-exposure from MJD-AVG \(the header's average time\)/);
+  });
 
   it('never corrects heliocentric wavelengths again, and takes z_cmb from the heliocentric z', () => {
     const r = correctFrames({ zObs: 0.05, meta: { ...full, velocityFrame: 'heliocentric', velocityFrameReason: 'survey file' } });

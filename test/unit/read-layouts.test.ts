@@ -231,6 +231,10 @@ describe('metadata keywords', () => {
     expect(read([card('MJD-OBS', 61113.5)])).toMatchObject({ dateObsUtc: '2026-03-14T12:00:00.000Z', mjdObs: 61113.5 });
     expect(read([card('JD', 2461113.5)]).mjdObs).toBe(61113);
     expect(read([card('DATE-OBS', '2026-03-14T03:00:00')]).mjdObs).toBeCloseTo(61113.125, 9);
+    // FITS time paper (Rots et al. 2015): MJD-BEG / DATE-BEG start, MJD-AVG / DATE-AVG mid-time.
+    expect(read([card('MJD-BEG', 61113.25)]).mjdObs).toBe(61113.25);
+    expect(read([card('DATE-BEG', '2026-03-14T06:00:00'), card('MJD-AVG', 61113.3)])).toMatchObject({ mjdObs: 61113.25, mjdAvg: 61113.3, avgTimeFrom: 'MJD-AVG' });
+    expect(read([card('DATE-AVG', '2026-03-14T12:00:00')])).toMatchObject({ mjdAvg: 61113.5, avgTimeFrom: 'DATE-AVG' });
   });
   it('names the keyword the time came from, and prints a whole second as read (not …59.999)', () => {
     expect(read([card('DATE-OBS', '2026-03-14'), card('TIME-OBS', '04:28:00')])).toMatchObject({ dateObsUtc: '2026-03-14T04:28:00.000Z', obsTimeFrom: 'DATE-OBS + TIME-OBS' });
