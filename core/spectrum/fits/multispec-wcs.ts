@@ -69,17 +69,20 @@ interface Block {
 /** The weighted mean of the function blocks that follow the nine leading fields, as a function of p. */
 function nonLinear(values: number[]): { at: (p: number) => number } | { problem: string } {
   const blocks: Block[] = [];
+  const incomplete = { problem: "IRAF multispec 'spec1' function is incomplete (weight, order, pmin, pmax or coefficients)" };
   for (let at = 0; at < values.length; ) {
+    if (at + 6 > values.length) return incomplete;
     const [weight, zeropoint, ftype, order, pmin, pmax] = values.slice(at, at + 6);
     const nCoeff = ftype === 1 || ftype === 2 ? order : ftype === 3 ? order + 3 : ftype === 4 ? order + 1 : NaN;
     if (Number.isNaN(nCoeff)) return { problem: `IRAF multispec dispersion function type ${ftype} (${ftype === 5 || ftype === 6 ? 'a pixel or sampled table' : 'unknown'}) is not read: only Chebyshev (1), Legendre (2) and spline (3, 4) functions` };
     const c = values.slice(at + 6, at + 6 + nCoeff);
-    if (!(order >= 1) || !Number.isInteger(order) || c.length < nCoeff || !(pmax > pmin)) return { problem: "IRAF multispec 'spec1' function is incomplete (order, pmin, pmax or coefficients)" };
+    if (!(order >= 1) || !Number.isInteger(order) || c.length < nCoeff || !(pmax > pmin)) return incomplete;
     blocks.push({ weight, zeropoint, at: ftype <= 2 ? (p) => series(ftype, c, (2 * p - (pmax + pmin)) / (pmax - pmin)) : (p) => spline(ftype, c, order, ((p - pmin) * order) / (pmax - pmin)) });
     at += 6 + nCoeff;
   }
   if (blocks.length === 0) return { problem: "IRAF multispec 'spec1' of dispersion type 2 gives no function" };
   const totalWeight = blocks.reduce((s, b) => s + b.weight, 0);
+  if (totalWeight === 0) return incomplete;
   return { at: (p) => blocks.reduce((s, b) => s + b.weight * (b.zeropoint + b.at(p)), 0) / totalWeight };
 }
 
