@@ -109,6 +109,14 @@ describe('banded images', () => {
     expect(s.meta.velocityFrame).toBe('heliocentric');
     expect(s.meta.dateObsUtc).toBe('2003-12-26T00:00:00.000Z');
   });
+  it('IRAF multispec: a function block cut short is refused as incomplete, not read', () => {
+    // The WAT2 string over cards of 68 characters, as IRAF writes it.
+    const wat = (text: string) => Array.from({ length: Math.ceil(text.length / 68) }, (_, i) => card(`WAT2_00${i + 1}`, text.slice(68 * i, 68 * i + 68)));
+    const ms = (spec1: string) => fitsBytes([{ cards: imageCards(-32, [N], [card('CTYPE1', 'MULTISPE'), card('WAT0_001', 'system=multispec'), ...wat(`wtype=multispec spec1 = "${spec1}"`)]), data: beBytes('f32', flux) }]);
+    expect(() => readSpectrum(ms('1 1 2 4000. 2. 20 0. 1. 2. 1. 0. 1'), 'ms.fits')).toThrow(/spec1' function is incomplete/);
+    expect(() => readSpectrum(ms('1 1 2 4000. 2. 20 0. 1. 2. 0. 0. 1 2 1. 20. 4000. 20.'), 'ms.fits')).toThrow(/spec1' function is incomplete/);
+    expect(readSpectrum(ms('1 1 0 4000. 2. 20 0. 1. 2.'), 'ms.fits').provenance.dispersion).toBe('linear');
+  });
   it('a 2-D image with many rows and no labels is not a spectrum', () => {
     const cards = imageCards(8, [N, 20], linearWcs(4000, 1));
     expect(() => readSpectrum(fitsBytes([{ cards, data: new Uint8Array(N * 20) }]), 'img.fits')).toThrow(/not a spectrum.*without band labels/);
