@@ -1,9 +1,10 @@
 // Files written by Debian's astropy (each BITPIX with BSCALE/BZERO/BLANK, CONTINUE long strings,
 // an IRAF-style multispec image with BANDIDn, an AWAV air axis in nm, a WAVE-LOG axis, a
-// DC-FLAG log10 axis, a per-pixel table with TUNITn/TSCALn/TZEROn/TNULLn, a single-row array
-// table, an ASCII table, a 1-D SDSS COEFF0/COEFF1 image and a gzip file), read back by zvet. The expected values are what
-// astropy itself reads from those files; wavelengths of WCS axes come from astropy.wcs
-// (FITS WCS Papers I and III), air ones taken to vacuum by Morton (1991) eq. 3 in Python.
+// DC-FLAG log10 axis, a per-pixel table with TUNITn/TSCALn/TZEROn/TNULLn, array tables of one
+// row and of two rows (segments), an ASCII table, a 1-D SDSS COEFF0/COEFF1 image and a gzip
+// file), read back by zvet. The expected values are what astropy itself reads from those files;
+// wavelengths of WCS axes come from astropy.wcs (FITS WCS Papers I and III), air ones taken to
+// vacuum by Morton (1991) eq. 3 in Python.
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -150,6 +151,19 @@ fits.HDUList([fits.PrimaryHDU(), t]).writeto(os.path.join(out_dir, 'table-arrays
 d = fits.open(os.path.join(out_dir, 'table-arrays.fits'))[1].data
 add('table-arrays.fits', d['wave'][0], d['flux'][0], 'vacuum', 'fits-table-arrays', error=d['err'][0])
 
+# Two rows of array columns, the longer-wavelength segment first (as HST x1d files hold their
+# segments): joined in wavelength order (numpy's stable argsort).
+seg_w = np.array([np.linspace(6000, 6500, n), np.linspace(5400, 5950, n)])
+seg_f = rng.normal(2, 0.2, (2, n)); seg_e = np.full((2, n), 0.1)
+t2 = fits.BinTableHDU.from_columns([fits.Column(name='WAVELENGTH', format='%dD' % n, unit='Angstrom', array=seg_w),
+                                    fits.Column(name='FLUX', format='%dE' % n, array=seg_f),
+                                    fits.Column(name='ERROR', format='%dE' % n, array=seg_e)])
+t2.header['AIRORVAC'] = 'vac'
+fits.HDUList([fits.PrimaryHDU(), t2]).writeto(os.path.join(out_dir, 'table-segments.fits'))
+d = fits.open(os.path.join(out_dir, 'table-segments.fits'))[1].data
+w_all = np.concatenate(list(d['WAVELENGTH'])); order = np.argsort(w_all, kind='stable')
+add('table-segments.fits', w_all[order], np.concatenate(list(d['FLUX']))[order], 'vacuum', 'fits-table-arrays (2 rows joined in wavelength order)', error=np.concatenate(list(d['ERROR']))[order])
+
 # ASCII table (XTENSION = 'TABLE').
 at = fits.TableHDU.from_columns([fits.Column(name='lambda', format='F12.4', unit='Angstrom', array=arr_wave),
                                  fits.Column(name='flux', format='E15.7', array=arr_flux)])
@@ -187,7 +201,7 @@ describe('files written by astropy read back in zvet', () => {
     expect(cases.map((c) => c.file)).toEqual([
       'bitpix8.fits', 'bitpix16.fits', 'bitpix32.fits', 'bitpix64.fits', 'bitpix-32.fits', 'bitpix-64.fits',
       'continue-awav-nm.fits', 'wave-log.fits', 'dcflag.fits', 'coeff-1d.fits', 'multispec.fits', 'table-rows.fits',
-      'table-arrays.fits', 'ascii-table.fits', 'multispec.fits.gz',
+      'table-arrays.fits', 'table-segments.fits', 'ascii-table.fits', 'multispec.fits.gz',
     ]);
   });
   it('the integer images carry BLANK pixels and the long OBJECT needed CONTINUE cards', () => {

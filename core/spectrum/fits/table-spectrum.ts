@@ -13,6 +13,7 @@ import { powersOfTen } from './powers-of-ten.js';
 import { bunit, headerParts, type HduContext, type LayoutDraft, type LayoutVerdict } from './layout.js';
 import { GRISM_DEFAULTS, isPypeIt, PYPEIT_DEFAULTS, sdssDefaults } from './surveys.js';
 import { mayNameWavelength } from './wave-column-screen.js';
+import { concatArrays } from '../../util/concat-arrays.js';
 
 export function matchTable(ctx: HduContext): LayoutVerdict {
   const { hdu } = ctx;
@@ -39,8 +40,8 @@ function readTable(
   waveCol: TableColumn,
   fluxCol: TableColumn,
 ): LayoutDraft {
-  // Array tables: the first row holds the spectrum; row tables: every row is a pixel.
-  const get = (c: TableColumn) => (arrays ? table.rowValues(c, 0) : table.values(c));
+  // Array tables: each row holds a spectrum or a piece of one; row tables: every row is a pixel.
+  const get = arrays ? arrayRows(table, waveCol) : (c: TableColumn) => table.values(c);
   const isLog = findByRole('loglam', table.find) === waveCol;
   const wave = isLog ? powersOfTen(get(waveCol)) : get(waveCol);
   let flux = get(fluxCol);
@@ -80,7 +81,7 @@ function readTable(
   const parts = headerParts(ctx, defaults);
   const named = mediumFromName(waveCol.name);
   return {
-    format,
+    format: arrays && table.rows > 1 ? `${format} (${table.rows} rows joined in wavelength order)` : format,
     wave,
     waveUnit: waveUnitOf(waveCol, wave, isLog),
     dispersion: isLog ? 'log10' : 'tabulated',
@@ -92,6 +93,24 @@ function readTable(
     fluxUnit,
     ...parts,
     medium: parts.medium.reason.startsWith('assumed') && named ? named : parts.medium,
+  };
+}
+
+/**
+ * A column of an array table: its one row, or its rows joined in wavelength order (the segments
+ * or orders of one spectrum, as in HST x1d files); without this only the first would be read.
+ */
+function arrayRows(table: FitsTable, waveCol: TableColumn): (c: TableColumn) => Float64Array {
+  if (table.rows === 1) return (c) => table.rowValues(c, 0);
+  const rows = Array.from({ length: table.rows }, (_, r) => r);
+  const joined = (c: TableColumn) => concatArrays((n) => new Float64Array(n), rows.map((r) => table.rowValues(c, r)));
+  const wave = joined(waveCol);
+  const key = (i: number) => (Number.isNaN(wave[i]) ? Infinity : wave[i]);
+  const order = Array.from(wave.keys()).sort((a, b) => key(a) - key(b) || a - b);
+  if (order.every((v, i) => v === i)) return joined;
+  return (c) => {
+    const v = joined(c);
+    return Float64Array.from(order, (i) => v[i]);
   };
 }
 
