@@ -117,6 +117,13 @@ describe('banded images', () => {
     expect(() => readSpectrum(ms('1 1 2 4000. 2. 20 0. 1. 2. 0. 0. 1 2 1. 20. 4000. 20.'), 'ms.fits')).toThrow(/spec1' function is incomplete/);
     expect(readSpectrum(ms('1 1 0 4000. 2. 20 0. 1. 2.'), 'ms.fits').provenance.dispersion).toBe('linear');
   });
+  it('IRAF multispec 2-D image of 12 apertures: aperture 1 (image line 1) is read with its spec1 wavelengths', () => {
+    const lines = Array.from({ length: 12 }, (_, a) => flux.map((f) => f + 100 * a));
+    const cards = imageCards(-32, [N, 12], [card('CTYPE1', 'MULTISPE'), card('CTYPE2', 'MULTISPE'), card('WAT0_001', 'system=multispec'), card('WAT2_001', 'wtype=multispec spec1 = "1 1 0 4000. 2. 20 0. 1. 2."')]);
+    const s = readSpectrum(fitsBytes([{ cards, data: beBytes('f32', lines.flat()) }]), 'apall.fits');
+    expect(s.flux[3]).toBeCloseTo(flux[3], 5);
+    expect(s.waveAngstrom[1]).toBeCloseTo(airToVacuum(4002), 8);
+  });
   it('a 2-D image with many rows and no labels is not a spectrum', () => {
     const cards = imageCards(8, [N, 20], linearWcs(4000, 1));
     expect(() => readSpectrum(fitsBytes([{ cards, data: new Uint8Array(N * 20) }]), 'img.fits')).toThrow(/not a spectrum.*without band labels/);
