@@ -123,6 +123,7 @@ describe('banded images', () => {
     const s = readSpectrum(fitsBytes([{ cards, data: beBytes('f32', lines.flat()) }]), 'apall.fits');
     expect(s.flux[3]).toBeCloseTo(flux[3], 5);
     expect(s.waveAngstrom[1]).toBeCloseTo(airToVacuum(4002), 8);
+    expect(s.provenance.format).toBe('fits-multispec (aperture 1 of 12)');
   });
   it('a 2-D image with many rows and no labels is not a spectrum', () => {
     const cards = imageCards(8, [N, 20], linearWcs(4000, 1));
