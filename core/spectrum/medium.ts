@@ -14,7 +14,7 @@ export function mediumFromKeywords(k: Keywords, axis = 1): MediumDecision | unde
   const ctype = k.string(`CTYPE${axis}`)?.trim().toUpperCase();
   if (ctype?.startsWith('WAVE')) return { medium: 'vacuum', reason: `CTYPE${axis} = '${ctype}' (FITS WCS Paper III: WAVE is vacuum)` };
   if (ctype?.startsWith('AWAV')) return { medium: 'air', reason: `CTYPE${axis} = '${ctype}' (FITS WCS Paper III: AWAV is air)` };
-  for (const key of ['AIRORVAC', 'VAC_AIR', 'AIRVAC', 'WAVEMEDI', 'WAVE_MED']) {
+  for (const key of ['AIRORVAC', 'VAC_AIR', 'AIRVAC', 'WAVEMEDI', 'WAVE_MED', 'WAVETYPE']) {
     const v = k.string(key)?.trim().toLowerCase();
     if (v?.startsWith('vac')) return { medium: 'vacuum', reason: `${key} = '${v}'` };
     if (v?.startsWith('air')) return { medium: 'air', reason: `${key} = '${v}'` };

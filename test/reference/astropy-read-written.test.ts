@@ -1,8 +1,8 @@
 // Files written by Debian's astropy (each BITPIX with BSCALE/BZERO/BLANK, CONTINUE long strings,
 // an IRAF-style multispec image with BANDIDn, an AWAV air axis in nm, a WAVE-LOG axis, a
 // DC-FLAG log10 axis, a per-pixel table with TUNITn/TSCALn/TZEROn/TNULLn, array tables of one
-// row and of two rows (segments), an ASCII table, a 1-D SDSS COEFF0/COEFF1 image and a gzip
-// file), read back by zvet. The expected values are what astropy itself reads from those files;
+// row and of two rows (segments), a 2-D image of rows wavelength/flux/error/flag, an ASCII
+// table, a 1-D SDSS COEFF0/COEFF1 image and a gzip file), read back by zvet. The expected values are what astropy itself reads from those files;
 // wavelengths of WCS axes come from astropy.wcs (FITS WCS Papers I and III), air ones taken to
 // vacuum by Morton (1991) eq. 3 in Python.
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
@@ -164,6 +164,16 @@ d = fits.open(os.path.join(out_dir, 'table-segments.fits'))[1].data
 w_all = np.concatenate(list(d['WAVELENGTH'])); order = np.argsort(w_all, kind='stable')
 add('table-segments.fits', w_all[order], np.concatenate(list(d['FLUX']))[order], 'vacuum', 'fits-table-arrays (2 rows joined in wavelength order)', error=np.concatenate(list(d['ERROR']))[order])
 
+# Rows wavelength (um), flux, error, flag in one 2-D image with XUNITS/YUNITS and WAVETYPE (the
+# layout of IRTF Spextool spectra).
+sw = np.linspace(0.81, 2.45, n); sf = rng.normal(5, 0.3, n); se = np.full(n, 0.2); sq = np.zeros(n); sq[7] = 1
+hdu = fits.PrimaryHDU(data=np.stack([sw, sf, se, sq]))
+for k, v in [('XUNITS', 'um'), ('YUNITS', 'W m-2 um-1'), ('WAVETYPE', 'vacuum')]:
+    hdu.header[k] = v
+hdu.writeto(os.path.join(out_dir, 'wave-rows.fits'))
+back = fits.open(os.path.join(out_dir, 'wave-rows.fits'))[0].data
+add('wave-rows.fits', back[0] * 1e4, back[1], 'vacuum', 'fits-image-rows (wavelength, flux, error)', error=back[2])
+
 # ASCII table (XTENSION = 'TABLE').
 at = fits.TableHDU.from_columns([fits.Column(name='lambda', format='F12.4', unit='Angstrom', array=arr_wave),
                                  fits.Column(name='flux', format='E15.7', array=arr_flux)])
@@ -201,7 +211,7 @@ describe('files written by astropy read back in zvet', () => {
     expect(cases.map((c) => c.file)).toEqual([
       'bitpix8.fits', 'bitpix16.fits', 'bitpix32.fits', 'bitpix64.fits', 'bitpix-32.fits', 'bitpix-64.fits',
       'continue-awav-nm.fits', 'wave-log.fits', 'dcflag.fits', 'coeff-1d.fits', 'multispec.fits', 'table-rows.fits',
-      'table-arrays.fits', 'table-segments.fits', 'ascii-table.fits', 'multispec.fits.gz',
+      'table-arrays.fits', 'table-segments.fits', 'wave-rows.fits', 'ascii-table.fits', 'multispec.fits.gz',
     ]);
   });
   it('the integer images carry BLANK pixels and the long OBJECT needed CONTINUE cards', () => {

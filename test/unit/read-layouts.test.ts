@@ -125,6 +125,18 @@ describe('banded images', () => {
     expect(s.waveAngstrom[1]).toBeCloseTo(airToVacuum(4002), 8);
     expect(s.provenance.format).toBe('fits-multispec (aperture 1 of 12)');
   });
+  it('a 2-D image whose first row is the wavelength (XUNITS nm): rows flux, error, flag; not taken when row 1 is not a wavelength', () => {
+    const w = flux.map((_, i) => 500 + i);
+    const rows = [w, flux, flux.map(() => 0.2), flux.map((_, i) => (i === 4 ? 1 : 0))];
+    const cards = imageCards(-32, [N, 4], [card('XUNITS', 'nm'), card('YUNITS', 'erg/s/cm2/A'), card('WAVETYPE', 'air')]);
+    const s = readSpectrum(fitsBytes([{ cards, data: beBytes('f32', rows.flat()) }]), 'rows.fits');
+    expect(s.provenance.format).toBe('fits-image-rows (wavelength, flux, error)');
+    expect(s.waveAngstrom[0]).toBeCloseTo(airToVacuum(5000), 6);
+    expect([s.mask[4], s.mask[3], s.error[0]]).toEqual([1, 0, Math.fround(0.2)]);
+    expect(s.fluxUnit).toBe('erg/s/cm2/A');
+    const notWave = [flux, w, flux.map(() => 0.2)];
+    expect(() => readSpectrum(fitsBytes([{ cards: imageCards(-32, [N, 3], []), data: beBytes('f32', notWave.flat()) }]), 'x.fits')).toThrow(/no wavelength axis/);
+  });
   it('a 2-D image with many rows and no labels is not a spectrum', () => {
     const cards = imageCards(8, [N, 20], linearWcs(4000, 1));
     expect(() => readSpectrum(fitsBytes([{ cards, data: new Uint8Array(N * 20) }]), 'img.fits')).toThrow(/not a spectrum.*without band labels/);

@@ -1,6 +1,6 @@
 /**
  * Finds the spectra in a FITS file and reads one: every HDU is offered to the layout readers
- * (banded images, 1-D images, tables); the first HDU holding a spectrum is read unless the
+ * (images with a wavelength row, banded images, 1-D images, tables); the first HDU holding a spectrum is read unless the
  * caller picks another (`--hdu`).
  */
 import type { FitsFile } from '../../fits/parse.js';
@@ -10,8 +10,9 @@ import { matchBandedImage } from './banded-image.js';
 import { matchImage1d } from './image-spectrum.js';
 import { hduContext, type LayoutMatch, type LayoutVerdict, type HduContext } from './layout.js';
 import { matchTable } from './table-spectrum.js';
+import { matchWavelengthRowImage } from './row-image.js';
 
-const LAYOUTS: Array<(ctx: HduContext) => LayoutVerdict> = [matchBandedImage, matchImage1d, matchTable];
+const LAYOUTS: Array<(ctx: HduContext) => LayoutVerdict> = [matchWavelengthRowImage, matchBandedImage, matchImage1d, matchTable];
 
 interface HduVerdict {
   index: number;
