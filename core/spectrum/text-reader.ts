@@ -1,8 +1,8 @@
 /**
  * Plain-text spectra: whitespace-, comma- or tab-separated columns, '#' comments, an optional
  * header row naming the columns (with units: 'wave_A', 'wavelength[nm]', 'lambda (um)'),
- * 2–4 columns read as wavelength (or log10 λ/Å in a column named loglam), flux, error (σ, or ivar/variance/S/N when the header says so)
- * and mask. Comment lines 'KEY = value' or 'KEY: value' are kept as header cards, so that
+ * columns read as wavelength (or log10 λ/Å in a column named loglam), flux, error (σ, or
+ * ivar/variance/S/N when the header says so) and mask: 2–4 by position, any number when named. Comment lines 'KEY = value' or 'KEY: value' are kept as header cards, so that
  * OBJECT, RA, DATE-OBS, AIRORVAC, SPECSYS and the like work as in FITS.
  */
 import { FitsHeader, parseFitsNumber, type FitsCard } from '../fits/header.js';
@@ -97,7 +97,8 @@ export function readTextSpectrum(bytes: Uint8Array, fileName: string): SpectrumD
     if (!named) return position < ncols ? position : -1;
     return named.findIndex((c) => c.role === role);
   };
-  const waveAt = named ? (roleIndex('wave', 0) >= 0 ? roleIndex('wave', 0) : roleIndex('loglam', 0)) : 0;
+  const linearAt = roleIndex('wave', 0);
+  const waveAt = named && linearAt < 0 ? roleIndex('loglam', 0) : linearAt;
   // A loglam column holds log10 of vacuum-or-air Å (as SDSS's; the medium is decided below).
   const logWave = named?.[waveAt]?.role === 'loglam';
   const fluxAt = named ? roleIndex('flux', 1) : 1;

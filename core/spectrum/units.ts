@@ -31,8 +31,8 @@ export function parseWaveUnit(text: string): WaveUnit | undefined {
 
 /**
  * Infers the unit of unlabelled wavelengths from their size (common practice, no source):
- * Å unless the values are implausibly small for Å — below 100 they are µm (0.1–30 µm covers
- * UV to mid-IR), below 1e-4 they are metres.
+ * below 1e-4 metres, below 100 µm (0.1–30 µm covers UV to mid-IR), then nm where Å would mean
+ * an extreme-ultraviolet spectrum (below), else Å; a doubt is given where another unit fits too.
  */
 export function guessWaveUnit(wave: ArrayLike<number>): WaveUnit {
   let max = 0, min = Infinity;

@@ -58,9 +58,10 @@ export function matchBandedImage(ctx: HduContext): LayoutVerdict {
     const bandAxisLength = hdu.axes.length === 3 ? n3 : n2;
     const stride = hdu.axes.length === 3 ? n * n2 : n;
     const labels = Array.from({ length: bandAxisLength }, (_, b) => k.string(`BANDID${b + 1}`) ?? '');
+    const labelled = labels.some((l) => l);
     // A 2-D multispec image's lines are apertures (line 1 is read); another unlabelled 2-D image with many rows is not a spectrum.
-    if (hdu.axes.length === 2 && !multispec && !labels.some((l) => l) && n2 > 8) return `2-D image of ${n}×${n2} pixels without band labels (not a 1-D spectrum)`;
-    const apertures = hdu.axes.length === 3 ? n2 : multispec && !labels.some((l) => l) ? n2 : 1;
+    if (hdu.axes.length === 2 && !multispec && !labelled && n2 > 8) return `2-D image of ${n}×${n2} pixels without band labels (not a 1-D spectrum)`;
+    const apertures = hdu.axes.length === 3 || (multispec && !labelled) ? n2 : 1;
     bands = { offset: (b) => b * stride, labels, wave: () => multispec ?? linearAxis(k, n), format: apertures > 1 ? `fits-multispec (aperture 1 of ${apertures})` : 'fits-multispec' };
   }
   return { format: bands.format, read: () => readBanded(ctx, bands, n) };

@@ -1,7 +1,8 @@
 /**
  * 1-D spectra stored as images: one image HDU (primary or extension) with a linear, log10
- * (DC-FLAG = 1 or SDSS COEFF0/COEFF1), `-LOG` or IRAF multispec wavelength axis, and optional companion HDUs of the same length named
- * for their content (EXTNAME 'ERROR', 'SIGMA', 'IVAR', 'VARIANCE', 'SKY', 'MASK', …).
+ * (DC-FLAG = 1 or SDSS COEFF0/COEFF1), `-LOG` or IRAF multispec wavelength axis, and optional
+ * companion HDUs of the same length named for their content (EXTNAME 'ERROR', 'SIGMA', 'IVAR',
+ * 'VARIANCE', 'SKY', 'MASK', …).
  * GALAH files (Kos et al. 2017): HDU 0 counts and HDU 1 'normalized' are spectra; the
  * 'relative_error' HDU is σ/flux, so σ = relative_error × |flux|; 'sky' is in counts and goes
  * with HDU 0 only.
