@@ -12,7 +12,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { readSpectrum } from '../../core/spectrum/read.js';
 import { SpectrumReadError } from '../../core/spectrum/spectrum.js';
-import { card, concat as concatBytes, fitsBytes } from '../unit/fits-fixtures.js';
+import { beBytes, binTable, card, concat as concatBytes, EMPTY_PRIMARY, fitsBytes, imageCards, testFlux } from '../unit/fits-fixtures.js';
 import { DEMO_WORKLIST, OPEN_SPECTRA } from '../support/paths.js';
 
 const CASES = Number(process.env.ZVET_FUZZ_CASES ?? 10_000);
@@ -27,6 +27,16 @@ const SEEDS = [
   join(OPEN_SPECTRA, 'sdss/sample_sdss.fits'),
   join(OPEN_SPECTRA, 'other/cosmos-01-G141_20062.1D.fits'),
 ].map((p) => new Uint8Array(readFileSync(p)));
+
+// Layouts without a file of their own among the seeds: an IRAF multispec image with a Chebyshev
+// dispersion, an image whose first row is the wavelength, and an array table of two rows.
+const SEED_PIXELS = 200;
+const seedFlux = testFlux(SEED_PIXELS);
+SEEDS.push(
+  fitsBytes([{ cards: imageCards(-32, [SEED_PIXELS], [card('CTYPE1', 'MULTISPE'), card('WAT0_001', 'system=multispec'), card('WAT1_001', 'wtype=multispec units=angstroms'), card('WAT2_001', 'wtype=multispec spec1 = "1 1 2 4000. 2. 200 0. 1. 2. 1. 0. 1 3 1.'), card('WAT2_002', ' 200. 4200. 200. 1."')]), data: beBytes('f32', seedFlux) }]),
+  fitsBytes([{ cards: imageCards(-32, [SEED_PIXELS, 3], [card('XUNITS', 'um'), card('WAVETYPE', 'vacuum')]), data: beBytes('f32', [...seedFlux.map((_, i) => 1 + 0.005 * i), ...seedFlux, ...seedFlux.map(() => 0.1)]) }]),
+  fitsBytes([EMPTY_PRIMARY, binTable(SEED_PIXELS * 8, 2, [{ name: 'WAVELENGTH', form: `${SEED_PIXELS / 2}D` }, { name: 'FLUX', form: `${SEED_PIXELS / 2}D` }], concatBytes(beBytes('f64', seedFlux.map((_, i) => 6000 + i).slice(100)), beBytes('f64', seedFlux.slice(0, 100)), beBytes('f64', seedFlux.map((_, i) => 6000 + i).slice(0, 100)), beBytes('f64', seedFlux.slice(100))))]),
+);
 
 /** Header blocks from cards: END appended (or left out, to test a missing one), padded to 2880 bytes. */
 function headerBytes(cards: string[], withEnd = true): Uint8Array {
@@ -121,7 +131,7 @@ const mutatedReal = fc
     seed: fc.integer({ min: 0, max: SEEDS.length - 1 }),
     cut: fc.option(fc.double({ min: 0, max: 1, noNaN: true })),
     edits: fc.array(fc.tuple(fc.double({ min: 0, max: 1, noNaN: true }), fc.integer({ min: 0, max: 255 }), fc.boolean()), { maxLength: 8 }),
-    key: fc.constantFrom('NAXIS', 'NAXIS1', 'NAXIS2', 'NAXIS3', 'BITPIX', 'PCOUNT', 'THEAP', 'TFORM1', 'TFORM2', 'TFIELDS', 'CDELT1', 'CRVAL1', 'BSCALE', 'COEFF1', 'GCOUNT'),
+    key: fc.constantFrom('NAXIS', 'NAXIS1', 'NAXIS2', 'NAXIS3', 'BITPIX', 'PCOUNT', 'THEAP', 'TFORM1', 'TFORM2', 'TFIELDS', 'CDELT1', 'CRVAL1', 'BSCALE', 'COEFF1', 'GCOUNT', 'WAT2_001', 'WAT2_002', 'XUNITS'),
     value: fc.oneof(absurdNumber.map(String), tform.map((t) => `'${t}'`)),
   })
   .map((r) => {
