@@ -17,7 +17,7 @@ import { DEMO_WORKLIST, OPEN_SPECTRA } from '../support/paths.js';
 
 const CASES = Number(process.env.ZVET_FUZZ_CASES ?? 10_000);
 
-const SEEDS = [
+const SEEDS: Uint8Array[] = [
   join(DEMO_WORKLIST, 'KRT-26-0011.fits'),
   join(DEMO_WORKLIST, 'KRT-26-0015_1d.fits'),
   join(DEMO_WORKLIST, 'KRT-26-0017_table.fits'),
