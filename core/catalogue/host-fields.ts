@@ -10,10 +10,10 @@ import type { Field } from './frame-fields.js';
 
 /** The lines a row reports, by line id, with the field-name stem used for them. */
 const ROW_LINES = [
-  { id: 'Halpha', stem: 'halpha' },
-  { id: 'Hbeta', stem: 'hbeta' },
-  { id: '[OIII]5008', stem: 'oiii5008' },
-  { id: '[NII]6585', stem: 'nii6585' },
+  { id: 'Halpha', stem: 'halpha', label: 'Halpha' },
+  { id: 'Hbeta', stem: 'hbeta', label: 'Hbeta' },
+  { id: '[OIII]5008', stem: 'oiii5008', label: '[O III] 5008' },
+  { id: '[NII]6585', stem: 'nii6585', label: '[N II] 6585' },
 ] as const;
 
 type Stem = (typeof ROW_LINES)[number]['stem'];
@@ -32,7 +32,9 @@ export interface HostSummary {
   bpt: string;
   agnType: string | null;
   balmerDecrement: number | null;
+  balmerDecrementErr: number | null;
   ebvMag: number | null;
+  ebvErrMag: number | null;
   sfrK98MsunYr: number | null;
   sfrKe12MsunYr: number | null;
   /** True when an AGN contributes to Hα, so the SFRs are upper limits. */
@@ -62,7 +64,9 @@ export function summariseHost(h: HostAnalysis): HostSummary {
     bpt: h.classification.bpt,
     agnType: h.classification.agn_type,
     balmerDecrement: h.balmer.decrement,
+    balmerDecrementErr: h.balmer.decrement_err,
     ebvMag: h.balmer.ebv,
+    ebvErrMag: h.balmer.ebv_err,
     sfrK98MsunYr: h.sfr.sfr_kennicutt98_msun_yr,
     sfrKe12MsunYr: h.sfr.sfr_ke12_msun_yr,
     sfrUpperLimit: h.sfr.upper_limit,
@@ -84,19 +88,23 @@ export const HOST_CLASS_FIELDS: readonly Field<HostSummary>[] = [
 /** Dust and star formation (no fluxes: their unit differs between the tables). */
 export const HOST_DUST_SFR_FIELDS: readonly Field<HostSummary>[] = [
   { name: 'balmer_decrement', unit: null, type: 'float64', description: 'observed narrow F(Halpha)/F(Hbeta); intrinsic 2.86 (case B)', pick: (h) => h.balmerDecrement },
+  { name: 'balmer_decrement_err', unit: null, type: 'float64', description: '1-sigma error of balmer_decrement (from the two fluxes)', pick: (h) => h.balmerDecrementErr },
   { name: 'ebv_mag', unit: 'mag', type: 'float64', description: 'E(B-V) of the gas from the Balmer decrement (Calzetti et al. 2000 curve)', pick: (h) => h.ebvMag },
+  { name: 'ebv_err_mag', unit: 'mag', type: 'float64', description: '1-sigma error of ebv_mag', pick: (h) => h.ebvErrMag },
   { name: 'sfr_k98_msun_yr', unit: 'solMass/yr', type: 'float64', description: SFR_K98, pick: (h) => h.sfrK98MsunYr },
   { name: 'sfr_ke12_msun_yr', unit: 'solMass/yr', type: 'float64', description: SFR_KE12, pick: (h) => h.sfrKe12MsunYr },
   { name: 'sfr_upper_limit', unit: null, type: 'bool', description: 'true when an AGN contributes to Halpha (BPT agn or composite, or broad Balmer lines): the SFRs are upper limits', pick: (h) => (h.sfrK98MsunYr === null ? null : h.sfrUpperLimit) },
 ];
 
+/** Each row line's flux and its 1σ error, in the file's own unit. */
+const fileFluxFields = ({ stem, label }: (typeof ROW_LINES)[number]): Field<HostSummary>[] => [
+  { name: `${stem}_flux`, unit: null, type: 'float64', description: `narrow ${label} flux, unit in flux_unit`, pick: (h) => h.flux[stem] },
+  { name: `${stem}_flux_err`, unit: null, type: 'float64', description: `1-sigma error of ${stem}_flux`, pick: (h) => h.fluxErr[stem] },
+];
+
 /** Line fluxes in the file's own unit (the `zvet measure` rows, with a flux_unit column). */
 export const HOST_FILE_FLUX_FIELDS: readonly Field<HostSummary>[] = [
-  { name: 'halpha_flux', unit: null, type: 'float64', description: 'narrow Halpha flux, unit in flux_unit', pick: (h) => h.flux.halpha },
-  { name: 'halpha_flux_err', unit: null, type: 'float64', description: '1-sigma error of halpha_flux', pick: (h) => h.fluxErr.halpha },
-  { name: 'hbeta_flux', unit: null, type: 'float64', description: 'narrow Hbeta flux, unit in flux_unit', pick: (h) => h.flux.hbeta },
-  { name: 'oiii5008_flux', unit: null, type: 'float64', description: '[O III] 5008 flux, unit in flux_unit', pick: (h) => h.flux.oiii5008 },
-  { name: 'nii6585_flux', unit: null, type: 'float64', description: '[N II] 6585 flux, unit in flux_unit', pick: (h) => h.flux.nii6585 },
+  ...ROW_LINES.flatMap(fileFluxFields),
   { name: 'flux_unit', unit: null, type: 'string', description: 'unit of the line fluxes: the file flux-density unit times Angstrom', pick: (h) => `${h.fluxDensityUnit} * Angstrom` },
   { name: 'flux_upper_limits_3sigma', unit: null, type: 'string', description: 'lines of these four below S/N 3, with their 3-sigma upper limits in flux_unit', pick: (h) => h.upperLimits.join('; ') || null },
 ];

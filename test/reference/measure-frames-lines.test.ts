@@ -151,7 +151,8 @@ print(json.dumps(dict(dl=[c.luminosity_distance(z).to_value(u.Mpc) for z in zs],
 });
 
 describe('zvet measure --lines', () => {
-  const LINE_KEYS = ['halpha_flux', 'halpha_flux_err', 'hbeta_flux', 'oiii5008_flux', 'nii6585_flux', 'bpt_class', 'agn_type', 'balmer_decrement', 'ebv_mag', 'sfr_k98_msun_yr', 'sfr_ke12_msun_yr', 'flux_unit'];
+  const FLUX_KEYS = [['Halpha', 'halpha'], ['Hbeta', 'hbeta'], ['[OIII]5008', 'oiii5008'], ['[NII]6585', 'nii6585']] as const;
+  const LINE_KEYS = [...FLUX_KEYS.flatMap(([, stem]) => [`${stem}_flux`, `${stem}_flux_err`]), 'bpt_class', 'agn_type', 'balmer_decrement', 'balmer_decrement_err', 'ebv_mag', 'ebv_err_mag', 'sfr_k98_msun_yr', 'sfr_ke12_msun_yr', 'flux_unit'];
 
   it('adds the host diagnostics to every row, blank where there is no redshift', () => {
     for (const row of rows) for (const key of LINE_KEYS) expect(row).toHaveProperty(key);
@@ -163,11 +164,20 @@ describe('zvet measure --lines', () => {
     for (const name of ['KRT-26-0011.fits', 'KRT-26-0014.fits', 'KRT-26-0019.fits.gz', 'KRT-26-0020.fits']) {
       const row = byName(name);
       const lib = analyseHost(await readSpectrumFile(row.file), row.z!, { cosmology: COSMOLOGY_PRESETS.planck18 });
-      const ha = lib.lines.find((l) => l.name === 'Halpha' && l.component === 'narrow')!;
       expect(row.bpt_class, name).toBe(lib.classification.bpt);
       expect(row.agn_type, name).toBe(lib.classification.agn_type);
-      if (ha.limit) expect(row.halpha_flux).toBeNull();
-      else expect(Math.abs((row.halpha_flux as number) / ha.flux - 1), name).toBeLessThan(1e-4);
+      for (const [id, stem] of FLUX_KEYS) {
+        const line = lib.lines.find((l) => l.name === id && l.component === 'narrow')!;
+        if (line.limit) {
+          expect(row[`${stem}_flux`], `${name} ${id}`).toBeNull();
+          expect(row[`${stem}_flux_err`], `${name} ${id}`).toBeNull();
+        } else {
+          expect(Math.abs((row[`${stem}_flux`] as number) / line.flux - 1), `${name} ${id}`).toBeLessThan(1e-4);
+          expect(Math.abs((row[`${stem}_flux_err`] as number) / line.flux_err - 1), `${name} ${id}`).toBeLessThan(1e-4);
+        }
+      }
+      if (lib.balmer.decrement === null) expect(row.balmer_decrement_err).toBeNull();
+      else expect(Math.abs((row.balmer_decrement_err as number) / lib.balmer.decrement_err! - 1), name).toBeLessThan(1e-4);
       expect(row.flux_unit).toBe(`${lib.measurement.flux_unit} * Angstrom`);
     }
   }, 60_000);
