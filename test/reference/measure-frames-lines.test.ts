@@ -152,7 +152,7 @@ print(json.dumps(dict(dl=[c.luminosity_distance(z).to_value(u.Mpc) for z in zs],
 
 describe('zvet measure --lines', () => {
   const FLUX_KEYS = [['Halpha', 'halpha'], ['Hbeta', 'hbeta'], ['[OIII]5008', 'oiii5008'], ['[NII]6585', 'nii6585']] as const;
-  const LINE_KEYS = [...FLUX_KEYS.flatMap(([, stem]) => [`${stem}_flux`, `${stem}_flux_err`]), 'bpt_class', 'agn_type', 'balmer_decrement', 'balmer_decrement_err', 'ebv_mag', 'ebv_err_mag', 'sfr_k98_msun_yr', 'sfr_ke12_msun_yr', 'flux_unit'];
+  const LINE_KEYS = [...FLUX_KEYS.flatMap(([, stem]) => [`${stem}_flux`, `${stem}_flux_err`]), 'bpt_class', 'agn_type', 'balmer_decrement', 'balmer_decrement_err', 'ebv_mag', 'ebv_err_mag', 'sfr_k98_msun_yr', 'sfr_k98_err_msun_yr', 'sfr_ke12_msun_yr', 'sfr_ke12_err_msun_yr', 'flux_unit'];
 
   it('adds the host diagnostics to every row, blank where there is no redshift', () => {
     for (const row of rows) for (const key of LINE_KEYS) expect(row).toHaveProperty(key);
@@ -178,6 +178,13 @@ describe('zvet measure --lines', () => {
       }
       if (lib.balmer.decrement === null) expect(row.balmer_decrement_err).toBeNull();
       else expect(Math.abs((row.balmer_decrement_err as number) / lib.balmer.decrement_err! - 1), name).toBeLessThan(1e-4);
+      // The row's SFR takes D_L from its frame-corrected z, so only the relative error is shared.
+      const relErr = (v: unknown, e: unknown) => (e as number) / (v as number);
+      if (lib.sfr.sfr_kennicutt98_msun_yr === null) expect(row.sfr_k98_err_msun_yr).toBeNull();
+      else {
+        expect(Math.abs(relErr(row.sfr_k98_msun_yr, row.sfr_k98_err_msun_yr) / relErr(lib.sfr.sfr_kennicutt98_msun_yr, lib.sfr.sfr_kennicutt98_err_msun_yr) - 1), name).toBeLessThan(1e-4);
+        expect(Math.abs(relErr(row.sfr_ke12_msun_yr, row.sfr_ke12_err_msun_yr) / relErr(lib.sfr.sfr_ke12_msun_yr, lib.sfr.sfr_ke12_err_msun_yr) - 1), name).toBeLessThan(1e-4);
+      }
       expect(row.flux_unit).toBe(`${lib.measurement.flux_unit} * Angstrom`);
     }
   }, 60_000);
