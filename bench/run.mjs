@@ -4,7 +4,7 @@
 // time per stage; a short batch on one worker and on all cores (the evidence for zvet measure's
 // default worker count); the peak resident memory over a long batch; then the CPU time per
 // spectrum of the engine run in this process (steadier than wall-clock rates on a shared
-// machine). Prints figures against the targets; asserts nothing.
+// machine), in all and with fewer templates. Prints figures against the targets; asserts nothing.
 import { build } from 'esbuild';
 import { spawn } from 'node:child_process';
 import { readdirSync, readFileSync } from 'node:fs';
@@ -122,3 +122,17 @@ for (let pass = 0; pass < 10; pass++) {
 }
 const per = (ms) => ms / (10 * bytes.length);
 console.log(`engine in one thread: ${per(readCpu + measureCpu).toFixed(2)} ms CPU per spectrum (read ${per(readCpu).toFixed(2)}, measure ${per(measureCpu).toFixed(2)}), ≈ ${(1000 / per(readCpu + measureCpu)).toFixed(0)} spectra/s per core before file reading and worker overheads`);
+
+// Where that work lies: preprocessing and refinement are paid once per spectrum, correlation
+// per template, so fewer templates save only part of it (5 passes after a warm-up pass each).
+const spectra = bytes.map((b) => readSpectrum(b.data, b.name));
+const TEMPLATE_SETS = [['all five (default)', null], ['without qso', ['star-forming', 'agn-narrow', 'passive', 'star']], ['star-forming only', ['star-forming']], ['passive only', ['passive']], ['star only', ['star']]];
+for (const [label, templates] of TEMPLATE_SETS) {
+  const options = templates ? { templates } : {};
+  for (const s of spectra) measureRedshift(s, options);
+  const stages = { preprocessMs: 0, correlateMs: 0, refineMs: 0 };
+  const t0 = cpuMs();
+  for (let pass = 0; pass < 5; pass++) for (const s of spectra) measureRedshift(s, options, stages);
+  const each = (ms) => (ms / (5 * spectra.length)).toFixed(2);
+  console.log(`  templates ${label}: ${each(cpuMs() - t0)} ms CPU per spectrum measured (wall: preprocess ${each(stages.preprocessMs)}, correlate ${each(stages.correlateMs)}, refine ${each(stages.refineMs)} ms)`);
+}
