@@ -59,12 +59,12 @@ export const COSMOLOGY_PRESETS: Record<string, CosmologyModel> = {
   },
 };
 
-/** Curvature density Ω_k = 1 − Ωm − ΩΛ − Ωr (Hogg eq. 7). */
 /** A parameter as it was defined, for display: ΩΛ = 1 − 0.3111 is 0.6889, not its binary rounding 0.6889000000000001. */
 export function asDefined(x: number): number {
   return Number(x.toPrecision(12));
 }
 
+/** Curvature density Ω_k = 1 − Ωm − ΩΛ − Ωr (Hogg eq. 7). */
 export function omegaK(model: CosmologyModel): number {
   return 1 - model.omegaM - model.omegaL - (model.omegaR ?? 0);
 }
@@ -152,4 +152,21 @@ export function distances(z: number, model: CosmologyModel): Distances {
     ageGyr,
     kpcPerArcsec: angularMpc * 1000 * RAD_PER_ARCSEC,
   };
+}
+
+/** E(z) = H(z)/H0 = √(Ωr(1+z)⁴ + Ωm(1+z)³ + Ωk(1+z)² + ΩΛ) (Hogg eq. 14). */
+export function hubbleE(z: number, model: CosmologyModel): number {
+  const x = 1 + z;
+  return Math.sqrt((((model.omegaR ?? 0) * x + model.omegaM) * x + omegaK(model)) * x * x + model.omegaL);
+}
+
+/**
+ * dD_L/dz, Mpc per unit z, at the distances d of the same model: with dD_C/dz = D_H/E(z) (Hogg
+ * eq. 15), dD_M/dz = dD_C/dz · {cosh, 1, cos}(√|Ωk| D_C/D_H) (eq. 16) and D_L = (1+z) D_M (eq. 21),
+ * dD_L/dz = D_M + (1+z) dD_M/dz.
+ */
+export function luminosityDistanceSlopeMpc(d: Distances, model: CosmologyModel): number {
+  const ok = omegaK(model), dh = hubbleDistanceMpc(model), x = (Math.sqrt(Math.abs(ok)) * d.comovingMpc) / dh;
+  const curvature = ok > 0 ? Math.cosh(x) : ok < 0 ? Math.cos(x) : 1;
+  return d.transverseMpc + ((1 + d.z) * dh * curvature) / hubbleE(d.z, model);
 }

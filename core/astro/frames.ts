@@ -8,6 +8,7 @@ import type { Site, SpectrumMeta } from '../spectrum/spectrum.js';
 import { applyVelocityCorrection, barycentricCorrection } from './barycentric.js';
 import { zCmbFromHelio } from './cmb.js';
 import { distances, type CosmologyModel, type Distances } from './cosmology.js';
+import { distanceErrors, type DistanceErrors } from './distance-errors.js';
 import { resolveSite, type ResolvedSite } from './sites.js';
 import { isoUtcFromMjd, mjdFromIsoUtc } from './time.js';
 
@@ -44,6 +45,8 @@ export interface FrameResult {
   reason: string;
   /** Distances at zCmb (else the frame z) when a cosmology was given and that z is ≥ 0. */
   distances?: Distances;
+  /** 1σ errors of D_L and the distance modulus, from zErr and a typical peculiar velocity. */
+  distanceErrors?: DistanceErrors;
   /** Which z the distances were computed from. */
   distancesFrom?: 'cmb' | 'barycentric' | 'heliocentric' | 'topocentric';
 }
@@ -86,7 +89,7 @@ function chooseSite(input: FrameInput): { site: ResolvedSite; note: string } | n
   return null;
 }
 
-type FrameCore = Omit<FrameResult, 'zCmb' | 'zErr' | 'distances' | 'distancesFrom'>;
+type FrameCore = Omit<FrameResult, 'zCmb' | 'zErr' | 'distances' | 'distanceErrors' | 'distancesFrom'>;
 
 function decideFrame(input: FrameInput): FrameCore {
   const { zObs, meta } = input;
@@ -143,7 +146,8 @@ export function correctFrames(input: FrameInput): FrameResult {
   const distancesFrom = zCmb !== null ? 'cmb' : core.frame;
   const zDist = zCmb ?? zFrame;
   if (zDist < 0) return { ...result, reason: `${reason}; no distances for a negative redshift` };
-  return { ...result, distances: distances(zDist, input.cosmology), distancesFrom };
+  const d = distances(zDist, input.cosmology);
+  return { ...result, distances: d, distanceErrors: distanceErrors(d, zErr, input.cosmology), distancesFrom };
 }
 
 /** correctFrames, or null where the header's values cannot be used (a bad RA/Dec or time). */

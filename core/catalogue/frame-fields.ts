@@ -4,6 +4,7 @@
  * `zvet measure` and by the catalogue, so both name and describe them the same way.
  */
 import { asDefined, type CosmologyModel } from '../astro/cosmology.js';
+import { PECULIAR_VELOCITY_KMS } from '../astro/distance-errors.js';
 import type { FrameResult } from '../astro/frames.js';
 import type { Cell, ColumnSpec } from './table.js';
 
@@ -23,13 +24,17 @@ export const FRAME_FIELDS: readonly Field<FrameResult>[] = [
   { name: 'frame_reason', unit: null, type: 'string', description: 'why that correction (header evidence, time, target, site)', pick: (f) => f.reason },
 ];
 
+const PROPAGATED = (column: string) => `1-sigma error of ${column} from z_err and a ${PECULIAR_VELOCITY_KMS} km/s line-of-sight peculiar velocity, in quadrature (first order)`;
+
 /** Distances (Hogg 1999) at z_cmb, else the frame-corrected z; empty without distances. */
 export const DISTANCE_FIELDS: readonly Field<FrameResult>[] = [
   { name: 'dist_from', unit: null, type: 'string', description: 'redshift the distances are computed from: cmb, barycentric, heliocentric or topocentric', pick: (f) => f.distancesFrom ?? null },
   { name: 'comoving_dist_mpc', unit: 'Mpc', type: 'float64', description: 'line-of-sight comoving distance (Hogg 1999 eq. 15)', pick: (f) => finite(f.distances?.comovingMpc) },
   { name: 'lum_dist_mpc', unit: 'Mpc', type: 'float64', description: 'luminosity distance (Hogg 1999 eq. 21)', pick: (f) => finite(f.distances?.luminosityMpc) },
+  { name: 'lum_dist_err_mpc', unit: 'Mpc', type: 'float64', description: PROPAGATED('lum_dist_mpc'), pick: (f) => finite(f.distanceErrors?.luminosityMpc) },
   { name: 'ang_dist_mpc', unit: 'Mpc', type: 'float64', description: 'angular-diameter distance (Hogg 1999 eq. 18)', pick: (f) => finite(f.distances?.angularMpc) },
   { name: 'dist_mod_mag', unit: 'mag', type: 'float64', description: 'distance modulus 5 log10(D_L / 10 pc) (Hogg 1999 eq. 24)', pick: (f) => finite(f.distances?.distanceModulusMag) },
+  { name: 'dist_mod_err_mag', unit: 'mag', type: 'float64', description: PROPAGATED('dist_mod_mag'), pick: (f) => finite(f.distanceErrors?.distanceModulusMag) },
   { name: 'lookback_gyr', unit: 'Gyr', type: 'float64', description: 'lookback time (Hogg 1999 eq. 30)', pick: (f) => finite(f.distances?.lookbackGyr) },
   { name: 'kpc_per_arcsec', unit: 'kpc/arcsec', type: 'float64', description: 'proper transverse scale at the redshift', pick: (f) => finite(f.distances?.kpcPerArcsec) },
 ];

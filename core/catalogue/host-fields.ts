@@ -96,9 +96,9 @@ export const HOST_DUST_SFR_FIELDS: readonly Field<HostSummary>[] = [
   { name: 'ebv_mag', unit: 'mag', type: 'float64', description: 'E(B-V) of the gas from the Balmer decrement (Calzetti et al. 2000 curve)', pick: (h) => h.ebvMag },
   { name: 'ebv_err_mag', unit: 'mag', type: 'float64', description: '1-sigma error of ebv_mag', pick: (h) => h.ebvErrMag },
   { name: 'sfr_k98_msun_yr', unit: 'solMass/yr', type: 'float64', description: SFR_K98, pick: (h) => h.sfrK98MsunYr },
-  { name: 'sfr_k98_err_msun_yr', unit: 'solMass/yr', type: 'float64', description: '1-sigma error of sfr_k98_msun_yr (Halpha flux and E(B-V) errors; not the calibration or aperture)', pick: (h) => h.sfrK98ErrMsunYr },
+  { name: 'sfr_k98_err_msun_yr', unit: 'solMass/yr', type: 'float64', description: '1-sigma error of sfr_k98_msun_yr (Halpha flux and E(B-V) errors; not the distance, the calibration or the aperture)', pick: (h) => h.sfrK98ErrMsunYr },
   { name: 'sfr_ke12_msun_yr', unit: 'solMass/yr', type: 'float64', description: SFR_KE12, pick: (h) => h.sfrKe12MsunYr },
-  { name: 'sfr_ke12_err_msun_yr', unit: 'solMass/yr', type: 'float64', description: '1-sigma error of sfr_ke12_msun_yr (Halpha flux and E(B-V) errors; not the calibration or aperture)', pick: (h) => h.sfrKe12ErrMsunYr },
+  { name: 'sfr_ke12_err_msun_yr', unit: 'solMass/yr', type: 'float64', description: '1-sigma error of sfr_ke12_msun_yr (Halpha flux and E(B-V) errors; not the distance, the calibration or the aperture)', pick: (h) => h.sfrKe12ErrMsunYr },
   { name: 'sfr_upper_limit', unit: null, type: 'bool', description: 'true when an AGN contributes to Halpha (BPT agn or composite, or broad Balmer lines): the SFRs are upper limits', pick: (h) => (h.sfrK98MsunYr === null ? null : h.sfrUpperLimit) },
 ];
 

@@ -70,19 +70,30 @@ export function renderDerived(box: HTMLElement, live: LiveResult<FrameResult> | 
     star ? el('p', { class: 'why', id: 'star-note' }, 'Class star: the redshift is a line-of-sight velocity (relativistic Doppler), not a distance, so no cosmological distances are given.') : distances(f, cosmology, onCosmology));
 }
 
+/** v ± err in the unit, both to `digits` decimals; v alone without an error. */
+function withError(v: number, err: number | undefined, digits: number, unit: string): string {
+  return err === undefined || !Number.isFinite(err) ? fmtNum(v, digits, unit) : `${v.toFixed(digits)} ± ${err.toFixed(digits)} ${unit}`;
+}
+
 function distances(f: FrameResult, cosmology: string, onCosmology: (preset: string) => void): HTMLElement {
-  const d = f.distances;
+  const d = f.distances, e = f.distanceErrors;
   return el('div', {},
     el('h2', {}, `Distances (${cosmology}${f.distancesFrom ? `, from the ${f.distancesFrom === 'cmb' ? 'CMB-frame' : f.distancesFrom} z` : ''})`),
     cosmologyPicker(cosmology, onCosmology),
     d ? dl([
       ['comoving', fmtNum(d.comovingMpc, 1, 'Mpc')],
       ['transverse comoving', fmtNum(d.transverseMpc, 1, 'Mpc')],
-      ['luminosity', fmtNum(d.luminosityMpc, 1, 'Mpc')],
+      ['luminosity', withError(d.luminosityMpc, e?.luminosityMpc, 1, 'Mpc')],
       ['angular diameter', fmtNum(d.angularMpc, 1, 'Mpc')],
-      ['distance modulus', fmtNum(d.distanceModulusMag, 3, 'mag')],
+      ['distance modulus', withError(d.distanceModulusMag, e?.distanceModulusMag, 3, 'mag')],
       ['lookback time', fmtNum(d.lookbackGyr, 3, 'Gyr')],
       ['age at z', fmtNum(d.ageGyr, 3, 'Gyr')],
       ['scale', fmtNum(d.kpcPerArcsec, 3, 'kpc/″')],
-    ]) : el('p', { class: 'muted' }, 'no distances for this z (negative, or no cosmology set)'));
+    ]) : el('p', { class: 'muted' }, 'no distances for this z (negative, or no cosmology set)'),
+    d && e ? el('p', { class: 'why', id: 'distance-error-note' }, distanceErrorNote(f.zErr !== null, e.peculiarVelocityKmS, e.luminosityMpc / d.luminosityMpc)) : null);
+}
+
+function distanceErrorNote(hasZErr: boolean, velocityKmS: number, relativeError: number): string {
+  const from = hasZErr ? `σz and a ${velocityKmS} km/s peculiar velocity` : `a ${velocityKmS} km/s peculiar velocity alone (this z has no σz)`;
+  return `± propagated from ${from}; that velocity is typical of field galaxies and rules the error at low z: ${(100 * relativeError).toFixed(1)} % of D_L here.`;
 }

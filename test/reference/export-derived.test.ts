@@ -31,7 +31,7 @@ writeFileSync(join(night, 'kestrel-2026-03-14.verdicts.jsonl'), `${[
 ].join('\n')}\n`);
 
 const UNITS = {
-  v_corr_kms: 'km / s', comoving_dist_mpc: 'Mpc', lum_dist_mpc: 'Mpc', ang_dist_mpc: 'Mpc', dist_mod_mag: 'mag', lookback_gyr: 'Gyr',
+  v_corr_kms: 'km / s', comoving_dist_mpc: 'Mpc', lum_dist_mpc: 'Mpc', lum_dist_err_mpc: 'Mpc', ang_dist_mpc: 'Mpc', dist_mod_mag: 'mag', dist_mod_err_mag: 'mag', lookback_gyr: 'Gyr',
   kpc_per_arcsec: 'kpc / arcsec', halpha_flux: 'erg / (cm2 s)', halpha_flux_err: 'erg / (cm2 s)', ebv_mag: 'mag', ebv_err_mag: 'mag', sfr_k98_msun_yr: 'solMass / yr', sfr_k98_err_msun_yr: 'solMass / yr', sfr_ke12_msun_yr: 'solMass / yr', sfr_ke12_err_msun_yr: 'solMass / yr',
 };
 const DERIVED = ['z_bary', 'z_helio', 'z_cmb', 'v_corr_kms', 'frame_correction', 'lum_dist_mpc', 'dist_mod_mag', 'bpt_class', 'halpha_flux', 'ebv_mag', 'sfr_k98_msun_yr'];

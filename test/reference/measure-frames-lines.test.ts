@@ -62,6 +62,12 @@ describe('zvet measure frame columns', () => {
       expect(row.frame_reason).toMatch(/^barycentric correction .* applied: wavelengths topocentric/);
       if (star) continue;
       expect(Math.abs((row.lum_dist_mpc as number) / lib.distances!.luminosityMpc - 1)).toBeLessThan(1e-12);
+      // Propagated from z_err (scaled to the frame) and a 300 km/s peculiar velocity; z_err is
+      // rounded to 3 digits in the row (up to 5e-4 of itself); in quadrature with the velocity's
+      // (1+z)·1e-3 that moves the demo's errors by at most ~2e-5 (σz is below 0.15 of that term here).
+      const withErr = correctFrames({ zObs: zUnrounded, zErr: row.z_err as number, meta: spectrum.meta, cosmology: COSMOLOGY_PRESETS.planck18 });
+      expect(Math.abs((row.lum_dist_err_mpc as number) / withErr.distanceErrors!.luminosityMpc - 1), row.file).toBeLessThan(5e-5);
+      expect(Math.abs((row.dist_mod_err_mag as number) / withErr.distanceErrors!.distanceModulusMag - 1), row.file).toBeLessThan(5e-5);
       expect(row.cosmology).toMatch(/^planck18: H0 = 67.66 km\/s\/Mpc/);
     }
     expect(byName('KRT-26-0023_truncated.fits')).toMatchObject({ z_bary: null, z_cmb: null, v_corr_kms: null, frame_reason: null, lum_dist_mpc: null });
@@ -105,7 +111,7 @@ print(json.dumps(dict(bary_kms=v.to_value(u.km / u.s))))
     const star = byName('KRT-26-0016.fits');
     expect(star.template).toBe('star');
     expect(star.z_bary).not.toBeNull();
-    for (const key of ['dist_from', 'comoving_dist_mpc', 'lum_dist_mpc', 'dist_mod_mag', 'cosmology']) expect(star[key], key).toBeNull();
+    for (const key of ['dist_from', 'comoving_dist_mpc', 'lum_dist_mpc', 'lum_dist_err_mpc', 'dist_mod_mag', 'dist_mod_err_mag', 'cosmology']) expect(star[key], key).toBeNull();
   });
 
   it('gives distances at z_cmb equal to astropy’s LambdaCDM (Tcmb0 = 0) within 1e-6', () => {
