@@ -5,7 +5,7 @@
 import type { FrameResult } from '../../core/astro/frames.js';
 import { SPEED_OF_LIGHT_KMS } from '../../core/astro/constants.js';
 import { radialVelocityErrKmS, radialVelocityKmS } from '../../core/astro/doppler.js';
-import { COSMOLOGY_PRESETS } from '../../core/astro/cosmology.js';
+import { asDefined, COSMOLOGY_PRESETS } from '../../core/astro/cosmology.js';
 import { el, fill } from '../ui/dom.js';
 import { fmtNum, fmtZ } from '../ui/format.js';
 
@@ -28,13 +28,15 @@ export function usableResult<T>(box: HTMLElement, live: LiveResult<T> | null, wh
   return live?.error ? null : (live?.result ?? null);
 }
 
-/** The preset picker, with the source of the one in use. */
+/** The preset picker, with the parameters and source of the one in use (a full option text would be cut at the panel's width). */
 function cosmologyPicker(current: string, onChange: (preset: string) => void): HTMLElement {
   const known = Object.values(COSMOLOGY_PRESETS);
   const select = el('select', { id: 'cosmology', 'aria-label': 'cosmology', onchange: (e) => onChange((e.target as HTMLSelectElement).value) },
-    ...known.map((m) => el('option', { value: m.name, selected: m.name === current }, `${m.name}: H0 = ${m.h0} km/s/Mpc, Ωm = ${m.omegaM}, ΩΛ = ${m.omegaL.toFixed(4).replace(/0+$/, '')}`)),
+    ...known.map((m) => el('option', { value: m.name, selected: m.name === current }, m.name)),
     current === 'custom' ? el('option', { value: 'custom', selected: true }, 'custom (from the settings)') : null);
-  return el('div', {}, select, el('p', { class: 'why' }, COSMOLOGY_PRESETS[current]?.source ?? 'user values from the settings'));
+  const model = COSMOLOGY_PRESETS[current];
+  const about = model ? `H0 = ${model.h0} km/s/Mpc, Ωm = ${model.omegaM}, ΩΛ = ${asDefined(model.omegaL)}. ${model.source}` : 'user values from the settings';
+  return el('div', {}, select, el('p', { class: 'why' }, about));
 }
 
 /** Above this z, c·z is far from any speed (common practice, no source): the panel says so. */
