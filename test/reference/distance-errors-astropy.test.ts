@@ -64,4 +64,13 @@ describe('luminosity-distance errors', () => {
     expect(near.distanceModulusMag).toBeGreaterThan(0.2);
     expect(near.distanceModulusMag).toBeLessThan(0.23);
   });
+
+  it('stays positive in a closed model where D_L turns over (Ωm = 0.3, ΩΛ = 1.6: it falls from between z = 1 and 2)', () => {
+    const model: CosmologyModel = { name: 'closed', h0: 70, omegaM: 0.3, omegaL: 1.6, source: 'test' };
+    const d = distances(2, model);
+    expect(luminosityDistanceSlopeMpc(d, model)).toBeLessThan(0);
+    const e = distanceErrors(d, 1e-3, model);
+    expect(e.luminosityMpc).toBeGreaterThan(0);
+    expect(e.distanceModulusMag).toBeGreaterThan(0);
+  });
 });
