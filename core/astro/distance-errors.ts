@@ -25,7 +25,7 @@ export interface DistanceErrors {
 
 export function distanceErrors(d: Distances, zErr: number | null, model: CosmologyModel, peculiarVelocityKmS = PECULIAR_VELOCITY_KMS): DistanceErrors {
   const total = Math.hypot(zErr ?? 0, ((1 + d.z) * peculiarVelocityKmS) / SPEED_OF_LIGHT_KMS);
-  // |slope|: in a closed model D_L falls with z beyond the antipode.
+  // |slope|: in a strongly closed model D_L can fall as z grows.
   const luminosityMpc = Math.abs(luminosityDistanceSlopeMpc(d, model)) * total;
   // μ = 5 log10(D_L / 10 pc), so σ_μ = (5 / ln 10)·σ_DL / D_L.
   return { zErr: total, peculiarVelocityKmS, luminosityMpc, distanceModulusMag: ((5 / Math.LN10) * luminosityMpc) / Math.abs(d.luminosityMpc) };

@@ -81,6 +81,7 @@ export function summariseHost(h: HostAnalysis): HostSummary {
 const BPT_DESCRIPTION = '[N II] BPT class: star-forming (below Kauffmann et al. 2003), composite, agn (above Kewley et al. 2001) or insufficient (a line with S/N < 3)';
 const AGN_TYPE_DESCRIPTION = 'seyfert or liner from the [S II]/[O I] diagrams (Kewley et al. 2006); empty otherwise';
 const SFR_K98 = 'star-formation rate inside the aperture from dust-corrected Halpha, Kennicutt (1998), Salpeter IMF';
+const SFR_ERR = (column: string) => `1-sigma error of ${column} (Halpha flux and E(B-V) errors; not the distance, the calibration or the aperture)`;
 const SFR_KE12 = 'star-formation rate inside the aperture from dust-corrected Halpha, Kennicutt & Evans (2012), Kroupa IMF';
 
 /** The diagnostic-diagram classes. */
@@ -96,9 +97,9 @@ export const HOST_DUST_SFR_FIELDS: readonly Field<HostSummary>[] = [
   { name: 'ebv_mag', unit: 'mag', type: 'float64', description: 'E(B-V) of the gas from the Balmer decrement (Calzetti et al. 2000 curve)', pick: (h) => h.ebvMag },
   { name: 'ebv_err_mag', unit: 'mag', type: 'float64', description: '1-sigma error of ebv_mag', pick: (h) => h.ebvErrMag },
   { name: 'sfr_k98_msun_yr', unit: 'solMass/yr', type: 'float64', description: SFR_K98, pick: (h) => h.sfrK98MsunYr },
-  { name: 'sfr_k98_err_msun_yr', unit: 'solMass/yr', type: 'float64', description: '1-sigma error of sfr_k98_msun_yr (Halpha flux and E(B-V) errors; not the distance, the calibration or the aperture)', pick: (h) => h.sfrK98ErrMsunYr },
+  { name: 'sfr_k98_err_msun_yr', unit: 'solMass/yr', type: 'float64', description: SFR_ERR('sfr_k98_msun_yr'), pick: (h) => h.sfrK98ErrMsunYr },
   { name: 'sfr_ke12_msun_yr', unit: 'solMass/yr', type: 'float64', description: SFR_KE12, pick: (h) => h.sfrKe12MsunYr },
-  { name: 'sfr_ke12_err_msun_yr', unit: 'solMass/yr', type: 'float64', description: '1-sigma error of sfr_ke12_msun_yr (Halpha flux and E(B-V) errors; not the distance, the calibration or the aperture)', pick: (h) => h.sfrKe12ErrMsunYr },
+  { name: 'sfr_ke12_err_msun_yr', unit: 'solMass/yr', type: 'float64', description: SFR_ERR('sfr_ke12_msun_yr'), pick: (h) => h.sfrKe12ErrMsunYr },
   { name: 'sfr_upper_limit', unit: null, type: 'bool', description: 'true when an AGN contributes to Halpha (BPT agn or composite, or broad Balmer lines): the SFRs are upper limits', pick: (h) => (h.sfrK98MsunYr === null ? null : h.sfrUpperLimit) },
 ];
 
