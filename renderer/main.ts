@@ -65,7 +65,7 @@ function renderTab(state: AppState): void {
   lastTab = now;
   const body = byId('tab-body');
   if (state.view?.error && !state.view.arrays) fill(body, el('p', { class: 'muted' }, 'nothing to derive: the file could not be read'));
-  else if (state.tab === 'derived') renderDerived(body, live(controller.derived, state), state.settings?.cosmologyPreset ?? 'planck18', (p) => void controller.setCosmology(p), objectClass === 'star');
+  else if (state.tab === 'derived') renderDerived(body, live(controller.derived, state), { preset: state.settings?.cosmologyPreset ?? 'planck18', custom: state.settings?.customCosmology ?? null }, (p) => void controller.setCosmology(p), objectClass === 'star');
   else renderHost(body, live(controller.host, state), { vetted, objectClass });
 }
 

@@ -28,15 +28,21 @@ export function usableResult<T>(box: HTMLElement, live: LiveResult<T> | null, wh
   return live?.error ? null : (live?.result ?? null);
 }
 
-/** The preset picker, with the parameters and source of the one in use (a full option text would be cut at the panel's width). */
-function cosmologyPicker(current: string, onChange: (preset: string) => void): HTMLElement {
+/** The model in use: a preset's name, or 'custom' with the settings' values. */
+export interface CosmologyChoice {
+  preset: string;
+  custom: { h0: number; omegaM: number; omegaL: number } | null;
+}
+
+/** The preset picker, with the parameters and source of the model in use (a full option text would be cut at the panel's width). */
+function cosmologyPicker({ preset, custom }: CosmologyChoice, onChange: (preset: string) => void): HTMLElement {
   const known = Object.values(COSMOLOGY_PRESETS);
   const select = el('select', { id: 'cosmology', 'aria-label': 'cosmology', onchange: (e) => onChange((e.target as HTMLSelectElement).value) },
-    ...known.map((m) => el('option', { value: m.name, selected: m.name === current }, m.name)),
-    current === 'custom' ? el('option', { value: 'custom', selected: true }, 'custom (from the settings)') : null);
-  const model = COSMOLOGY_PRESETS[current];
+    ...known.map((m) => el('option', { value: m.name, selected: m.name === preset }, m.name)),
+    preset === 'custom' ? el('option', { value: 'custom', selected: true }, 'custom (from the settings)') : null);
+  const model = COSMOLOGY_PRESETS[preset] ?? (preset === 'custom' && custom ? { ...custom, source: 'values set in the settings' } : null);
   const about = model ? `H0 = ${model.h0} km/s/Mpc, Ωm = ${model.omegaM}, ΩΛ = ${asDefined(model.omegaL)}. ${model.source}` : 'user values from the settings';
-  return el('div', {}, select, el('p', { class: 'why' }, about));
+  return el('div', {}, select, el('p', { class: 'why', id: 'cosmology-about' }, about));
 }
 
 /** Above this z, c·z is far from any speed (common practice, no source): the panel says so. */
@@ -46,7 +52,7 @@ const CZ_IS_NOT_A_SPEED_ABOVE_Z = 0.3;
  * With `star`, the z is a line-of-sight velocity (shown as one) and there are no cosmological
  * distances; otherwise cz is shown as the catalogue gives it.
  */
-export function renderDerived(box: HTMLElement, live: LiveResult<FrameResult> | null, cosmology: string, onCosmology: (preset: string) => void, star: boolean): void {
+export function renderDerived(box: HTMLElement, live: LiveResult<FrameResult> | null, cosmology: CosmologyChoice, onCosmology: (preset: string) => void, star: boolean): void {
   const f = usableResult(box, live, 'derived quantities');
   if (!f || !live) return;
   const frameZ = f.zBary ?? f.zHelio ?? f.zObs;
@@ -77,10 +83,10 @@ function withError(v: number, err: number | undefined, digits: number, unit: str
   return err === undefined || !Number.isFinite(err) ? fmtNum(v, digits, unit) : `${v.toFixed(digits)} ± ${err.toFixed(digits)} ${unit}`;
 }
 
-function distances(f: FrameResult, cosmology: string, onCosmology: (preset: string) => void): HTMLElement {
+function distances(f: FrameResult, cosmology: CosmologyChoice, onCosmology: (preset: string) => void): HTMLElement {
   const d = f.distances, e = f.distanceErrors;
   return el('div', {},
-    el('h2', {}, `Distances (${cosmology}${f.distancesFrom ? `, from the ${f.distancesFrom === 'cmb' ? 'CMB-frame' : f.distancesFrom} z` : ''})`),
+    el('h2', {}, `Distances (${cosmology.preset}${f.distancesFrom ? `, from the ${f.distancesFrom === 'cmb' ? 'CMB-frame' : f.distancesFrom} z` : ''})`),
     cosmologyPicker(cosmology, onCosmology),
     d ? dl([
       ['comoving', fmtNum(d.comovingMpc, 1, 'Mpc')],

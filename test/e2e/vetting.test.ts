@@ -101,6 +101,7 @@ describe('vetting in the window', () => {
     const before = Number.parseFloat((await luminosity()) ?? '');
     await page.selectOption('#cosmology', 'round70');
     await expect.poll(() => page.locator('#tab-body h2').nth(1).textContent()).toContain('round70');
+    expect(await page.locator('#cosmology-about').textContent()).toMatch(/^H0 = 70 km\/s\/Mpc, Ωm = 0.3, ΩΛ = 0.7\. /);
     // H0 = 70 instead of 67.66 km/s/Mpc: distances shrink by about 67.66/70 at low z.
     const after = Number.parseFloat((await luminosity()) ?? '');
     expect(after / before).toBeGreaterThan(0.94);
@@ -338,6 +339,26 @@ describe('vetting in the window', () => {
       if (v.z === null) expect(zText).toBe('no z');
       else expect(Number(zText)).toBeCloseTo(v.z, 4);
     }
+  });
+
+  it('names the values of a custom model set in the settings, and computes with them', async () => {
+    const putSettings = (body: unknown) => page.evaluate(async (b) => {
+      const token = new URLSearchParams(location.search).get('token')!;
+      const r = await fetch('/api/putSettings', { method: 'POST', headers: { 'Content-Type': 'application/json', 'X-Zvet-Token': token }, body: JSON.stringify(b) });
+      return r.status;
+    }, body);
+    const luminosity = async () => Number.parseFloat((await page.locator('#tab-body dt:text-is("luminosity") + dd').textContent()) ?? '');
+    await page.waitForSelector('#cosmology-about');
+    const planck = await luminosity();
+    expect(await putSettings({ cosmologyPreset: 'custom', customCosmology: { h0: 80, omegaM: 0.3, omegaL: 0.7 } })).toBe(200);
+    await page.reload();
+    await expect.poll(() => page.locator('#cosmology-about').textContent()).toMatch(/^H0 = 80 km\/s\/Mpc, Ωm = 0.3, ΩΛ = 0.7\. values set in the settings/);
+    // At low z, D_L scales as 1/H0: 67.66/80 of the Planck value.
+    await expect.poll(async () => (await luminosity()) / planck).toBeLessThan(0.87);
+    expect((await luminosity()) / planck).toBeGreaterThan(0.82);
+    expect(await putSettings({ cosmologyPreset: 'planck18' })).toBe(200);
+    await page.reload();
+    await expect.poll(() => page.locator('#tab-body h2').nth(1).textContent()).toContain('planck18');
   });
 
   it('exports CSV, ECSV and FITS that other software reads back', async () => {
