@@ -24,7 +24,7 @@ export const FRAME_FIELDS: readonly Field<FrameResult>[] = [
   { name: 'frame_reason', unit: null, type: 'string', description: 'why that correction (header evidence, time, target, site)', pick: (f) => f.reason },
 ];
 
-const PROPAGATED = (column: string) => `1-sigma error of ${column} from z_err and a ${PECULIAR_VELOCITY_KMS} km/s line-of-sight peculiar velocity, in quadrature (first order)`;
+const PROPAGATED = (column: string) => `1-sigma error of ${column} from z_err (none where z_err is empty) and a ${PECULIAR_VELOCITY_KMS} km/s line-of-sight peculiar velocity, in quadrature (first order)`;
 
 /** Distances (Hogg 1999) at z_cmb, else the frame-corrected z; empty without distances. */
 export const DISTANCE_FIELDS: readonly Field<FrameResult>[] = [
