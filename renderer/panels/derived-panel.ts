@@ -7,7 +7,7 @@ import { SPEED_OF_LIGHT_KMS } from '../../core/astro/constants.js';
 import { radialVelocityErrKmS, radialVelocityKmS } from '../../core/astro/doppler.js';
 import { asDefined, COSMOLOGY_PRESETS } from '../../core/astro/cosmology.js';
 import { el, fill } from '../ui/dom.js';
-import { fmtNum, fmtZ } from '../ui/format.js';
+import { fmtNum, fmtNumErr, fmtZ } from '../ui/format.js';
 
 export interface LiveResult<T> {
   result: T | null;
@@ -58,7 +58,7 @@ export function renderDerived(box: HTMLElement, live: LiveResult<FrameResult> | 
   const frameZ = f.zBary ?? f.zHelio ?? f.zObs;
   const cz = (z: number | null): string => (z === null ? '—' : fmtNum(SPEED_OF_LIGHT_KMS * z, 1, 'km/s'));
   const velocityRows: [string, string][] = star
-    ? [[`radial velocity, ${f.frame}`, f.zErr === null ? fmtNum(radialVelocityKmS(frameZ), 2, 'km/s') : `${radialVelocityKmS(frameZ).toFixed(2)} ± ${radialVelocityErrKmS(frameZ, f.zErr).toFixed(2)} km/s`]]
+    ? [[`radial velocity, ${f.frame}`, fmtNumErr(radialVelocityKmS(frameZ), f.zErr === null ? null : radialVelocityErrKmS(frameZ, f.zErr), 2, 'km/s')]]
     : [[`cz, ${f.frame}`, cz(frameZ)], ['cz, CMB frame', cz(f.zCmb)]];
   fill(box,
     live.stale ? el('p', { class: 'muted' }, 'updating…') : null,
@@ -78,11 +78,6 @@ export function renderDerived(box: HTMLElement, live: LiveResult<FrameResult> | 
     star ? el('p', { class: 'why', id: 'star-note' }, 'Class star: the redshift is a line-of-sight velocity (relativistic Doppler), not a distance, so no cosmological distances are given.') : distances(f, cosmology, onCosmology));
 }
 
-/** v ± err in the unit, both to `digits` decimals; v alone without an error. */
-function withError(v: number, err: number | undefined, digits: number, unit: string): string {
-  return err === undefined || !Number.isFinite(err) ? fmtNum(v, digits, unit) : `${v.toFixed(digits)} ± ${err.toFixed(digits)} ${unit}`;
-}
-
 function distances(f: FrameResult, cosmology: CosmologyChoice, onCosmology: (preset: string) => void): HTMLElement {
   const d = f.distances, e = f.distanceErrors;
   return el('div', {},
@@ -91,9 +86,9 @@ function distances(f: FrameResult, cosmology: CosmologyChoice, onCosmology: (pre
     d ? dl([
       ['comoving', fmtNum(d.comovingMpc, 1, 'Mpc')],
       ['transverse comoving', fmtNum(d.transverseMpc, 1, 'Mpc')],
-      ['luminosity', withError(d.luminosityMpc, e?.luminosityMpc, 1, 'Mpc')],
+      ['luminosity', fmtNumErr(d.luminosityMpc, e?.luminosityMpc, 1, 'Mpc')],
       ['angular diameter', fmtNum(d.angularMpc, 1, 'Mpc')],
-      ['distance modulus', withError(d.distanceModulusMag, e?.distanceModulusMag, 3, 'mag')],
+      ['distance modulus', fmtNumErr(d.distanceModulusMag, e?.distanceModulusMag, 3, 'mag')],
       ['lookback time', fmtNum(d.lookbackGyr, 3, 'Gyr')],
       ['age at z', fmtNum(d.ageGyr, 3, 'Gyr')],
       ['scale', fmtNum(d.kpcPerArcsec, 3, 'kpc/″')],

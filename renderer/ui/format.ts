@@ -19,6 +19,11 @@ export function fmtNum(v: number | null | undefined, digits: number, unit: strin
   return unit ? `${v.toFixed(digits)} ${unit}` : v.toFixed(digits);
 }
 
+/** v ± err in the unit, both to `digits` decimals; as fmtNum without an error. */
+export function fmtNumErr(v: number, err: number | null | undefined, digits: number, unit: string): string {
+  return err === null || err === undefined || !Number.isFinite(err) ? fmtNum(v, digits, unit) : `${v.toFixed(digits)} ± ${err.toFixed(digits)} ${unit}`;
+}
+
 export function confidenceText(c: Confidence | null): { text: string; shape: string; colour: string } {
   if (c === null) return { text: 'no z', shape: '○○○', colour: '#9aa4af' };
   return { text: c, ...CONFIDENCE_LOOK[c] };
