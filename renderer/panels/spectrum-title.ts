@@ -23,14 +23,15 @@ export function renderSpectrumTitle(state: AppState, box: HTMLElement, move: (ac
       ].filter((f) => f !== null)
     : [];
   // One line of facts under the name; on a narrow window it ends in an ellipsis, the whole text in its tooltip.
-  const factLine = el('span', { class: 'facts' }, ...facts.flatMap((f, i) => (i === 0 ? [f] : [' · ', f])));
+  // Kept (blank) while the file loads, so that the plot below does not move when the facts arrive.
+  const factLine = el('span', { class: 'facts' }, ...(facts.length ? facts.flatMap((f, i) => (i === 0 ? [f] : [' · ', f])) : ['\u00a0']));
   factLine.title = facts.map((f) => f.textContent).join(' · ');
   fill(box,
     nav,
     el('span', { class: 'object' }, meta?.object ?? state.currentId),
     el('span', { class: 'meta mono' }, state.currentId),
     state.loading ? el('span', { class: 'meta' }, 'loading…') : null,
-    facts.length ? factLine : null);
+    factLine);
 }
 
 /** 2026-03-14T02:48:00.000Z → 2026-03-14 02:48:00 */

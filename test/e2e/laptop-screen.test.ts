@@ -80,3 +80,25 @@ it('fits the plots again when the window is resized', async () => {
   await expect.poll(async () => (await centreBoxes(win.page)).plotBox.width).toBeGreaterThan(700);
   await expectLaidOut(win.page);
 });
+
+it('keeps the spectrum plot in place while the first spectrum loads', async () => {
+  // Every animation frame from the first drawing on, where the plot's box starts: the line of
+  // file facts above it arriving after the first drawing once pushed it down by a line and the
+  // legend over the plot controls, until the next refit.
+  await win.page.addInitScript(() => {
+    const tops: number[] = [];
+    (window as unknown as { plotTops: number[] }).plotTops = tops;
+    const record = () => {
+      const plot = document.getElementById('spectrum-plot');
+      if (plot?.querySelector('.main-svg')) tops.push(plot.getBoundingClientRect().top);
+      requestAnimationFrame(record);
+    };
+    requestAnimationFrame(record);
+  });
+  await win.page.reload();
+  await win.page.waitForFunction(() => !!document.getElementById('spectrum-plot')?.dataset.spectrum, undefined, { timeout: 30_000 });
+  await expectLaidOut(win.page);
+  const tops = await win.page.evaluate(() => (window as unknown as { plotTops: number[] }).plotTops);
+  expect(tops.length).toBeGreaterThan(0);
+  expect(Math.max(...tops) - Math.min(...tops), 'the plot box moved while the spectrum loaded (px)').toBeLessThanOrEqual(1);
+});
