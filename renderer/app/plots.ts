@@ -36,6 +36,7 @@ export class Plots {
       arrays, fluxUnit: state.view?.meta?.fluxUnit ?? 'file units', z: state.trial.z, smoothing: state.smoothing, showSky: state.showSky,
       templateFlux, templateName: state.trial.template ?? state.view?.templateModel?.template ?? null, xRange: state.xRange,
       widthPx: this.spectrumEl.clientWidth || 900,
+      heightPx: this.spectrumEl.clientHeight || 500,
       stellar: gradeToSave(state.view, state.trial, state.grade).objectClass === 'star',
       pick: state.linePick ? { featureAngstrom: state.linePick.waveAngstrom, clickAngstrom: state.linePick.clickAngstrom } : null,
     });

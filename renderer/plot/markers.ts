@@ -22,10 +22,14 @@ export interface LineMarker {
   observedWaveAngstrom: number[];
   /** Where the label sits: the mean of its members, Å. */
   labelWaveAngstrom: number;
-  /** Stacking row of the label, 0 nearest the plot edge. */
+  /** Stacking row of the label, 0 nearest the plot edge; maxRows for a glyph alone. */
   row: number;
-  /** False when no row had room: the label shows only its glyph (the name is in the hover text). */
-  named: boolean;
+  /**
+   * What is drawn besides the line: glyph and name; the glyph alone, in the row past the last
+   * when no row had room for the name; or only the line when not even the glyph fits (zooming
+   * in gives the labels room).
+   */
+  shows: 'name' | 'glyph' | 'line';
 }
 
 /** Same-named lines closer than this in the rest frame share one label (Å, common practice). */
@@ -49,7 +53,7 @@ export interface LabelGeometry {
   widthPx: number;
   /** Width of one label character in CSS pixels. */
   charPx: number;
-  /** Most rows of labels per side; a label with no room left shows only its glyph. */
+  /** Most rows of named labels per side; a label with no room left shows only its glyph, in one row past them. */
   maxRows: number;
 }
 
@@ -66,27 +70,57 @@ export function markersInRange(z: number, loAngstrom: number, hiAngstrom: number
       observedWaveAngstrom: obs,
       labelWaveAngstrom: obs.reduce((s, w) => s + w, 0) / obs.length,
       row: 0,
-      named: true,
+      shows: 'name',
     });
   }
   const pxPerAngstrom = geometry.widthPx / (hiAngstrom - loAngstrom);
+  const gap = geometry.charPx;
   for (const side of ['top', 'bottom'] as const) {
-    const rowEnds: number[] = [];
-    for (const m of markers.filter((mk) => MARKER_STYLE[mk.kind].side === side)) {
+    const rows: Array<Array<[number, number]>> = [];
+    const glyphRow: Array<[number, number]> = [];
+    const free = (row: Array<[number, number]>, a: number, b: number) => row.every(([lo, hi]) => b + gap <= lo || a >= hi + gap);
+    // Named first where a redshift is usually read from; the others in wavelength order.
+    const bySide = markers.filter((mk) => MARKER_STYLE[mk.kind].side === side);
+    for (const m of [...bySide].sort((a, b) => labelPriority(a) - labelPriority(b))) {
+      const wavePx = (m.labelWaveAngstrom - loAngstrom) * pxPerAngstrom;
       const halfWidth = ((m.label.length + 2) * geometry.charPx) / 2;
       // A label near an edge moves inward so that it is not cut off; its line stays where it is.
-      const centre = Math.min(Math.max((m.labelWaveAngstrom - loAngstrom) * pxPerAngstrom, halfWidth), Math.max(halfWidth, geometry.widthPx - halfWidth));
-      m.labelWaveAngstrom = loAngstrom + centre / pxPerAngstrom;
-      let row = rowEnds.findIndex((end) => end + geometry.charPx <= centre - halfWidth);
-      if (row < 0 && rowEnds.length < geometry.maxRows) row = rowEnds.length;
-      if (row < 0) {
-        m.named = false;
-        m.row = geometry.maxRows;
+      const centre = inward(wavePx, halfWidth, geometry.widthPx);
+      let row = rows.findIndex((r) => free(r, centre - halfWidth, centre + halfWidth));
+      if (row < 0 && rows.length < geometry.maxRows) row = rows.push([]) - 1;
+      if (row >= 0) {
+        rows[row].push([centre - halfWidth, centre + halfWidth]);
+        m.row = row;
+        m.labelWaveAngstrom = loAngstrom + centre / pxPerAngstrom;
         continue;
       }
-      rowEnds[row] = centre + halfWidth;
-      m.row = row;
+      // The glyph alone, with half a character's space on either side.
+      const glyphHalf = GLYPH_HALF_CHARS * geometry.charPx;
+      const glyphCentre = inward(wavePx, glyphHalf, geometry.widthPx);
+      m.row = geometry.maxRows;
+      m.labelWaveAngstrom = loAngstrom + glyphCentre / pxPerAngstrom;
+      m.shows = glyphRow.every(([lo, hi]) => glyphCentre + glyphHalf <= lo || glyphCentre - glyphHalf >= hi) ? 'glyph' : 'line';
+      if (m.shows === 'glyph') glyphRow.push([glyphCentre - glyphHalf, glyphCentre + glyphHalf]);
     }
   }
   return markers;
+}
+
+/**
+ * Lines whose labels are placed first, so that a crowded plot still names them: the strong
+ * lines a redshift is usually recognised by (common practice, no source).
+ */
+const KEY_LINES = ['Halpha', 'Hbeta', '[OIII]5008', '[OII]3727', 'Lya', 'CIV', 'CIII]', 'MgII', 'CaK', 'CaH', 'NaD2', 'Mgb5169', '[NII]6585', '[SII]6718', 'Gband'];
+
+function labelPriority(m: LineMarker): number {
+  const i = m.ids.reduce((best, id) => Math.min(best, KEY_LINES.includes(id) ? KEY_LINES.indexOf(id) : Infinity), Infinity);
+  return Number.isFinite(i) ? i - KEY_LINES.length : 0;
+}
+
+/** Half the width of a glyph drawn alone, in characters. */
+const GLYPH_HALF_CHARS = 1;
+
+/** A label's centre, px: at its line, moved inward just enough to stay inside [0, widthPx]. */
+function inward(centrePx: number, halfWidthPx: number, widthPx: number): number {
+  return Math.min(Math.max(centrePx, halfWidthPx), Math.max(halfWidthPx, widthPx - halfWidthPx));
 }

@@ -26,7 +26,9 @@ export interface SpectrumFigureInput {
   templateName: string | null;
   /** Visible observed range, Å; null for the whole spectrum. */
   xRange: [number, number] | null;
+  /** Size of the plot's box, CSS px. */
   widthPx: number;
+  heightPx: number;
   /** A star's spectrum: only absorption (and Balmer) lines are marked, no nebular emission. */
   stellar?: boolean;
   /** While a line is being picked: the feature's centre and the click it was found from, Å. */
@@ -40,10 +42,32 @@ export interface SpectrumFigure {
   fullRange: [number, number];
 }
 
-/** Label rows step down from the top (and up from the bottom) in this fraction of the plot height. */
-const LABEL_ROW_STEP = 0.05;
-/** Marker lines span the middle band only, so that they never run through a label. */
-const LINE_BAND: [number, number] = [0.21, 0.79];
+/** Height of one row of line labels, CSS px: the 13 px text and a little leading. */
+const LABEL_ROW_PX = 17;
+/** Gap between the plot's edge and the first row of labels, in plot heights. */
+const LABEL_EDGE = 0.015;
+/** The labels of one side may take up to this fraction of the plot's height; the middle is the spectrum's. */
+const LABEL_BAND_FRACTION = 0.3;
+/** Most rows of named labels per side. */
+const MAX_LABEL_ROWS = 4;
+
+/** How the line labels are stacked on a plot area of a given height. */
+export interface LabelRows {
+  /** Rows of named labels per side; glyphs without room for their names take one row more. */
+  maxRows: number;
+  /** One row, in plot heights. */
+  rowStep: number;
+  /** The band the marker lines span (plot heights), clear of every label row. */
+  lineBand: [number, number];
+}
+
+/** Rows of a fixed height in px, so that a short plot gets fewer rows rather than rows that overlap. */
+export function labelRows(plotAreaHeightPx: number): LabelRows {
+  const rowStep = LABEL_ROW_PX / Math.max(plotAreaHeightPx, LABEL_ROW_PX);
+  const maxRows = Math.max(1, Math.min(MAX_LABEL_ROWS, Math.floor(LABEL_BAND_FRACTION / rowStep) - 1));
+  const edge = LABEL_EDGE + (maxRows + 1) * rowStep;
+  return { maxRows, rowStep, lineBand: [Math.min(edge, 0.5), Math.max(1 - edge, 0.5)] };
+}
 
 export function fullWaveRange(wave: readonly (number | null)[]): [number, number] {
   let lo = Infinity;
@@ -63,23 +87,24 @@ export const FLUX_TRACE = 2;
  * to redraw): per line kind one trace of vertical segments in its dash pattern, and one text
  * trace per label side, labels carrying their kind's glyph.
  */
-export function markerTraces(markers: readonly LineMarker[]): Data[] {
+export function markerTraces(markers: readonly LineMarker[], rows: LabelRows): Data[] {
   const traces: Data[] = [];
+  const [bandLo, bandHi] = rows.lineBand;
   for (const kind of ['emission', 'absorption', 'both'] as const) {
     const x: (number | null)[] = [];
     const y: (number | null)[] = [];
-    for (const m of markers) if (m.kind === kind) for (const w of m.observedWaveAngstrom) x.push(w, w, null), y.push(LINE_BAND[0], LINE_BAND[1], null);
+    for (const m of markers) if (m.kind === kind) for (const w of m.observedWaveAngstrom) x.push(w, w, null), y.push(bandLo, bandHi, null);
     if (x.length === 0) continue;
     traces.push({ type: 'scatter', mode: 'lines', x, y, yaxis: 'y2', name: `${MARKER_STYLE[kind].glyph} ${kind === 'both' ? 'Balmer' : kind} lines`, showlegend: false, hoverinfo: 'skip', line: { color: THEME[kind], width: 1, dash: MARKER_STYLE[kind].dash }, opacity: 0.75 });
   }
   for (const side of ['top', 'bottom'] as const) {
-    const ms = markers.filter((m) => MARKER_STYLE[m.kind].side === side);
+    const ms = markers.filter((m) => MARKER_STYLE[m.kind].side === side && m.shows !== 'line');
     if (ms.length === 0) continue;
     traces.push({
       type: 'scatter', mode: 'text', yaxis: 'y2', showlegend: false, hoverinfo: 'skip', name: `labels ${side}`,
       x: ms.map((m) => m.labelWaveAngstrom),
-      y: ms.map((m) => (side === 'top' ? 0.985 - Math.min(m.row, 3.6) * LABEL_ROW_STEP : 0.015 + Math.min(m.row, 3.6) * LABEL_ROW_STEP)),
-      text: ms.map((m) => (m.named ? `${MARKER_STYLE[m.kind].glyph} ${m.label}` : MARKER_STYLE[m.kind].glyph)),
+      y: ms.map((m) => (side === 'top' ? 1 - LABEL_EDGE - m.row * rows.rowStep : LABEL_EDGE + m.row * rows.rowStep)),
+      text: ms.map((m) => (m.shows === 'name' ? `${MARKER_STYLE[m.kind].glyph} ${m.label}` : MARKER_STYLE[m.kind].glyph)),
       textposition: side === 'top' ? 'bottom center' : 'top center',
       textfont: { family: THEME.font, size: 13, color: ms.map((m) => THEME[m.kind]) },
     });
@@ -122,7 +147,8 @@ export function buildSpectrumFigure(input: SpectrumFigureInput): SpectrumFigure 
   data.push({ type: 'scatter', mode: 'lines', x: [lo, hi].map((w) => w / (1 + (z ?? 0))), y: [null, null], xaxis: 'x2', hoverinfo: hover, showlegend: false });
 
   const lines = input.stellar ? REST_LINES.filter((l) => l.kind !== 'emission') : REST_LINES;
-  const markers = z === null ? [] : markersInRange(z, lo, hi, { widthPx: input.widthPx, charPx: 7.5, maxRows: 4 }, lines);
+  const rows = labelRows(input.heightPx - margin.t - margin.b);
+  const markers = z === null ? [] : markersInRange(z, lo, hi, { widthPx: input.widthPx - margin.l - margin.r, charPx: 7.5, maxRows: rows.maxRows }, lines);
   const shapes: Partial<Shape>[] = [];
   const annotations: Partial<Annotations>[] = [];
   for (const band of TELLURIC_BANDS) {
@@ -138,7 +164,7 @@ export function buildSpectrumFigure(input: SpectrumFigureInput): SpectrumFigure 
     shapes.push({ type: 'line', xref: 'x', yref: 'paper', x0: featureAngstrom, x1: featureAngstrom, y0: 0, y1: 1, line: { color: THEME.trialZ, width: 2 } });
     annotations.push({ x: featureAngstrom, xref: 'x', yref: 'paper', y: 1, yanchor: 'bottom', text: `feature ${featureAngstrom.toFixed(1)} Å`, showarrow: false, bgcolor: THEME.ground, font: { size: 13, color: THEME.trialZ } });
   }
-  data.push(...markerTraces(markers));
+  data.push(...markerTraces(markers, rows));
   const yRange = robustRange(smoothed, wave, lo, hi);
   const axisCommon = { gridcolor: THEME.grid, linecolor: THEME.axis, zerolinecolor: THEME.axis, tickfont: { size: 13, color: THEME.muted }, title: { font: { size: 13, color: THEME.text } } };
   const layout: Partial<Layout> = {

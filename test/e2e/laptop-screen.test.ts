@@ -49,6 +49,21 @@ function centreBoxes(page: Page) {
   });
 }
 
+/** Pairs of line labels on the spectrum whose drawn text overlaps (by more than a pixel). */
+function overlappingLabels(page: Page): Promise<string[]> {
+  return page.evaluate(() => {
+    const labels = [...document.querySelectorAll('#spectrum-plot .scatterlayer .textpoint text')].map((t) => ({ text: t.textContent ?? '', r: t.getBoundingClientRect() }));
+    const pairs: string[] = [];
+    for (let i = 0; i < labels.length; i++) {
+      for (let j = i + 1; j < labels.length; j++) {
+        const a = labels[i].r, b = labels[j].r;
+        if (a.left < b.right - 1 && b.left < a.right - 1 && a.top < b.bottom - 1 && b.top < a.bottom - 1) pairs.push(`${labels[i].text} / ${labels[j].text}`);
+      }
+    }
+    return pairs;
+  });
+}
+
 /** The plots are fitted on the next animation frames after their boxes change. */
 async function expectLaidOut(page: Page): Promise<void> {
   await expect.poll(async () => {
@@ -59,6 +74,8 @@ async function expectLaidOut(page: Page): Promise<void> {
   expect(b.legend.top, 'the legend sits below the axis title').toBeGreaterThanOrEqual(b.xTitle.bottom - 1);
   expect(b.legend.bottom, 'and inside the figure').toBeLessThanOrEqual(b.svg.bottom + 1);
   expect(b.candidatesOverflowPx, 'the candidates table fits its panel').toBeLessThanOrEqual(0);
+  // Label rows have a fixed height in px: a short plot gets fewer rows, not rows that overlap.
+  await expect.poll(() => overlappingLabels(page), { timeout: 5_000 }).toEqual([]);
 }
 
 it('lays the spectrum, its controls and the candidates out without overlap', async () => {

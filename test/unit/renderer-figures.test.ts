@@ -56,7 +56,7 @@ describe('spectrum figure', () => {
   const wave = Array.from({ length: 3000 }, (_, i) => 3800 + 1.8 * i);
   const arrays = { waveAngstrom: wave, flux: wave.map(() => 1), error: wave.map(() => 0.1), mask: wave.map(() => 0), sky: null };
   const figure = (stellar: boolean, pick: { featureAngstrom: number; clickAngstrom: number } | null = null) =>
-    buildSpectrumFigure({ arrays, fluxUnit: '1e-17 erg/s/cm2/Angstrom', z: 0.0001, smoothing: { kernel: 'boxcar', widthPx: 1 }, showSky: false, templateFlux: null, templateName: null, xRange: null, widthPx: 900, stellar, pick });
+    buildSpectrumFigure({ arrays, fluxUnit: '1e-17 erg/s/cm2/Angstrom', z: 0.0001, smoothing: { kernel: 'boxcar', widthPx: 1 }, showSky: false, templateFlux: null, templateName: null, xRange: null, widthPx: 900, heightPx: 500, stellar, pick });
   it('marks no nebular emission line on a star, and all kinds on a galaxy', () => {
     expect(figure(true).markers.some((m) => m.kind === 'emission')).toBe(false);
     expect(figure(true).markers.some((m) => m.label === 'Na D')).toBe(true);
