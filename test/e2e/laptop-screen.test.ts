@@ -80,6 +80,14 @@ async function expectLaidOut(page: Page): Promise<void> {
 
 it('lays the spectrum, its controls and the candidates out without overlap', async () => {
   await expectLaidOut(win.page);
+  // Where the spectrum runs through a label, a halo of the ground colour keeps it readable.
+  const halo = await win.page.evaluate(() => {
+    const t = document.querySelector('#spectrum-plot .scatterlayer .textpoint text')!;
+    const st = getComputedStyle(t);
+    return { paintOrder: st.paintOrder, stroke: st.stroke, ground: getComputedStyle(document.body).backgroundColor };
+  });
+  expect(halo.paintOrder.startsWith('stroke')).toBe(true);
+  expect(halo.stroke).toBe(halo.ground);
   mkdirSync(join(ROOT, 'test-artifacts'), { recursive: true });
   await win.page.screenshot({ path: join(ROOT, 'test-artifacts', 'laptop-main.png') });
 });
