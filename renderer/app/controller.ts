@@ -34,6 +34,14 @@ export interface LiveSlot<T> {
   error: string | null;
 }
 
+/**
+ * The list is asked for new suggestions first after FIRST_POLL_MS, then each time half as long
+ * again, up to LONGEST_POLL_MS: a night of a few hundred spectra fills in within a second or
+ * two, and a long batch is not re-listed many times a second (our choice, no source).
+ */
+const FIRST_POLL_MS = 400;
+const LONGEST_POLL_MS = 2500;
+
 export class Controller {
   readonly s: AppState = initialState();
   derived: LiveSlot<FrameResult> | null = null;
@@ -44,6 +52,7 @@ export class Controller {
   private readonly hostCall: LatestOnly<{ id: string; z: number }, HostAnalysis>;
   private readonly overlayCall: LatestOnly<{ id: string; template: string; z: number }, { flux: (number | null)[] }>;
   private pollTimer: ReturnType<typeof setTimeout> | null = null;
+  private pollDelayMs = FIRST_POLL_MS;
 
   constructor(private readonly api: HostApi, private readonly view: View) {
     this.cache = new SpectrumCache((id) => api.loadSpectrum({ id }));
@@ -113,6 +122,7 @@ export class Controller {
     this.s.filter = 'all';
     this.view.panels(this.s);
     if (first) await this.show(first);
+    this.pollDelayMs = FIRST_POLL_MS;
     this.pollSuggestions();
   }
 
@@ -129,8 +139,9 @@ export class Controller {
       } catch {
         // The next poll tries again; a host that is gone shows on the next real call.
       }
+      this.pollDelayMs = Math.min(LONGEST_POLL_MS, 1.5 * this.pollDelayMs);
       this.pollSuggestions();
-    }, 2500);
+    }, this.pollDelayMs);
   }
 
   private itemOf(id: string) {

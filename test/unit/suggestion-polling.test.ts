@@ -1,0 +1,75 @@
+// While the host measures a worklist in the background, the window asks for the list again:
+// soon at first, so a night's suggestions appear within a second or two, then less often, so a
+// long batch is not re-listed many times a second. Runs the controller on fake timers against
+// a stub host; no wall-clock time is measured.
+import { afterEach, beforeEach, expect, it, vi } from 'vitest';
+import type { HostApi, SpectrumListItem, WorklistState } from '../../core/api/host-api.js';
+import { Controller, type View } from '../../renderer/app/controller.js';
+
+const ids = ['a.fits', 'b.fits', 'c.fits'];
+
+function listing(measured: boolean): WorklistState {
+  const items: SpectrumListItem[] = ids.map((id) => ({ id, verdict: null, error: null, suggestion: measured ? { z: 0.1, zErr: 1e-4, confidence: 'secure', template: 'passive' } : null }));
+  return { root: '/night', name: 'night', journalPath: '/night/night.verdicts.jsonl', items, warnings: [] };
+}
+
+/** A host whose background measuring ends after `listsUntilMeasured` list calls; records when each came. */
+function stubHost(listsUntilMeasured: number) {
+  const listedAt: number[] = [];
+  const unused = () => Promise.reject(new Error('not used in this test'));
+  const api = new Proxy({}, {
+    get: (_t, name: string) => {
+      if (name === 'listSpectra') return () => {
+        listedAt.push(Date.now());
+        return Promise.resolve(listing(listedAt.length > listsUntilMeasured));
+      };
+      if (name === 'loadSpectrum') return ({ id }: { id: string }) => Promise.resolve({ id, arrays: null, meta: null, measurement: null, templateModel: null, verdict: null, error: `${id}: not read in this test` });
+      return unused;
+    },
+  }) as HostApi;
+  return { api, listedAt };
+}
+
+const view: View = { panels: () => undefined, spectrum: async () => undefined, correlation: async () => null, fullRange: () => null, focusTypedZ: () => undefined, focusNote: () => undefined };
+
+beforeEach(() => {
+  vi.useFakeTimers();
+  // The controller waits for a painted frame after drawing; there is no page here.
+  vi.stubGlobal('requestAnimationFrame', (done: () => void) => setTimeout(done, 16));
+});
+afterEach(() => {
+  vi.useRealTimers();
+  vi.unstubAllGlobals();
+});
+
+it('asks for the list again after 0.4 s, then each time 1.5 times later, at most every 2.5 s, and stops once all are measured', async () => {
+  const { api, listedAt } = stubHost(8);
+  void new Controller(api, view).start();
+  await vi.advanceTimersByTimeAsync(30_000);
+  // listedAt[0] is the opening list; the first spectrum is shown (a frame or so) before polling starts.
+  const first = listedAt[1] - listedAt[0];
+  expect(first).toBeGreaterThanOrEqual(400);
+  expect(first).toBeLessThan(450);
+  const gaps = listedAt.slice(2).map((t, i) => t - listedAt[i + 1]);
+  expect(gaps).toEqual([600, 900, 1350, 2025, 2500, 2500, 2500]);
+  // the ninth list had every suggestion: no more polling
+  expect(listedAt).toHaveLength(9);
+});
+
+it('starts again at 0.4 s when another worklist is opened', async () => {
+  const { api, listedAt } = stubHost(100);
+  const controller = new Controller(api, view);
+  void controller.start();
+  await vi.advanceTimersByTimeAsync(10_000);
+  const gapBefore = listedAt[listedAt.length - 1] - listedAt[listedAt.length - 2];
+  expect(gapBefore).toBe(2500);
+  // Reopened just after a poll, so that none of the old schedule falls in the next 2 s.
+  await vi.advanceTimersByTimeAsync(listedAt[listedAt.length - 1] + 2500 + 10 - Date.now());
+  const before = listedAt.length;
+  void controller.start();
+  await vi.advanceTimersByTimeAsync(2000);
+  const after = listedAt.slice(before).map((t) => t - listedAt[before]);
+  expect(after[1]).toBeGreaterThanOrEqual(400);
+  expect(after[1]).toBeLessThan(450);
+  expect(after[2] - after[1]).toBe(600);
+});
