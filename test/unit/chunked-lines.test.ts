@@ -1,5 +1,6 @@
 // The measure table's writer: every line arrives, in order, in few writes, and still streams.
 import { EventEmitter } from 'node:events';
+import { Writable } from 'node:stream';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { ChunkedLines } from '../../core/node/cli/chunked-lines.js';
 
@@ -55,5 +56,27 @@ describe('ChunkedLines', () => {
     expect(resolved).toBe(true);
     s.emit('error', new Error('EPIPE: the reader went away'));
     await expect(w.write('more')).rejects.toThrow(/EPIPE/);
+  });
+
+  it('ends with the stream\'s error, without hanging, when lines were held while a write was failing', async () => {
+    // A full disk: each write is taken, then fails a moment later, and the stream is destroyed.
+    const full = new Writable({
+      highWaterMark: 1 << 20,
+      write(_chunk, _enc, done) {
+        setImmediate(() => done(Object.assign(new Error('ENOSPC: no space left on device, write'), { code: 'ENOSPC' })));
+      },
+    });
+    const w = new ChunkedLines(full);
+    await w.write('z'.repeat(70 * 1024));
+    // held before the failure is known
+    await w.write('a row written while the disk was filling');
+    await new Promise((r) => setImmediate(r));
+    await new Promise((r) => setImmediate(r));
+    expect(full.destroyed).toBe(true);
+    const outcome = await Promise.race([
+      w.end().then(() => 'ended', (err: Error) => err.message),
+      new Promise<string>((r) => setTimeout(() => r('still waiting after 2 s'), 2000)),
+    ]);
+    expect(outcome).toMatch(/ENOSPC/);
   });
 });

@@ -20,6 +20,8 @@ export class ChunkedLines {
       this.error = err;
       this.drained?.();
     });
+    // A stream closed while a write waits for it will not drain.
+    out.on('close', () => this.drained?.());
   }
 
   /** Holds the line; resolves once the stream can take more (after a flush that filled its buffer). */
@@ -47,6 +49,8 @@ export class ChunkedLines {
     const chunk = this.held.join('');
     this.held = [];
     this.heldBytes = 0;
+    // A stream that failed is destroyed: it would never drain nor fail again, so nothing more is written.
+    if (this.error) return;
     if (this.out.write(chunk)) return;
     this.waiting = new Promise<void>((resolve) => {
       this.drained = resolve;
