@@ -6,11 +6,14 @@ import { registerCosmo } from './cosmo.js';
 import { registerBary } from './bary.js';
 import { registerExport } from './export.js';
 import { registerLines } from './lines.js';
-import { EXIT_USAGE_OR_UNREADABLE, isClosedPipe } from './run-action.js';
+import { describeFailure, EXIT_USAGE_OR_UNREADABLE, isClosedPipe } from './run-action.js';
 
-// Output piped into a reader that stops early (| head): the failed write itself says so (run-action.ts).
-process.stdout.on('error', (err) => {
-  if (!isClosedPipe(err)) throw err;
+// Output piped into a reader that stops early (| head): the failed write itself says so
+// (run-action.ts). Any other failure of standard output (redirected to a full disk) is one line.
+process.stdout.on('error', (err: NodeJS.ErrnoException) => {
+  if (isClosedPipe(err)) return;
+  process.stderr.write(`zvet: ${describeFailure(Object.assign(err, { path: err.path ?? 'standard output' }))}\n`);
+  process.exit(EXIT_USAGE_OR_UNREADABLE);
 });
 
 const program = new Command('zvet')
