@@ -59,6 +59,19 @@ describe('zvet measure paths and outputs', () => {
     expect(r.stderr).toBe(`zvet: ${out()}: ${reason}\n`);
   });
 
+  it('gives a named pipe or a device its own error row at once instead of waiting on it (exit 1)', () => {
+    const fifo = join(dir, 'KRT-26-0099.fits');
+    expect(spawnSync('mkfifo', [fifo]).status).toBe(0);
+    const r = zvet(fifo, '/dev/zero', GOOD, '--format', 'jsonl');
+    const rows = r.stdout.trimEnd().split('\n').map((l) => JSON.parse(l));
+    expect(rows.map((row) => [row.file, row.status, row.error])).toEqual([
+      [fifo, 'error', 'is not a regular file (a device, pipe or socket)'],
+      ['/dev/zero', 'error', 'is not a regular file (a device, pipe or socket)'],
+      [GOOD, 'ok', null],
+    ]);
+    expect(r.status).toBe(1);
+  });
+
   it('names the output when the disk fills (exit 2)', () => {
     const r = zvet(DEMO_WORKLIST, '--out', '/dev/full');
     expect(r.status).toBe(2);
