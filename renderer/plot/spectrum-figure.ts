@@ -80,7 +80,31 @@ export function fullWaveRange(wave: readonly (number | null)[]): [number, number
 }
 
 /** Index of the flux trace in the figure's data (clicks on the spectrum are read from it). */
-export const FLUX_TRACE = 2;
+export const FLUX_TRACE = 1;
+
+/**
+ * The flux ± 1σ band as one outline per run of pixels that have both, runs apart by a gap
+ * (filled 'toself', each run is its own polygon). Filling from a lower to an upper trace instead
+ * joins the runs across masked pixels into wedges that are not there.
+ */
+export function errorBandOutline(x: readonly (number | null)[], flux: readonly (number | null)[], sigma: readonly (number | null)[]): { x: (number | null)[]; y: (number | null)[] } {
+  const outX: (number | null)[] = [], outY: (number | null)[] = [];
+  let start = -1;
+  const close = (end: number) => {
+    if (outX.length) outX.push(null), outY.push(null);
+    for (let i = start; i < end; i++) outX.push(x[i]), outY.push((flux[i] as number) + (sigma[i] as number));
+    for (let i = end - 1; i >= start; i--) outX.push(x[i]), outY.push((flux[i] as number) - (sigma[i] as number));
+  };
+  for (let i = 0; i <= x.length; i++) {
+    const has = i < x.length && x[i] !== null && flux[i] !== null && sigma[i] !== null;
+    if (has && start < 0) start = i;
+    else if (!has && start >= 0) {
+      close(i);
+      start = -1;
+    }
+  }
+  return { x: outX, y: outY };
+}
 
 /**
  * Line markers as a few traces rather than one plotly shape and annotation each (much quicker
@@ -125,12 +149,10 @@ export function buildSpectrumFigure(input: SpectrumFigureInput): SpectrumFigure 
   const x = pick(wave, shown);
   const flux = pick(smoothed, shown);
   const sigma = pick(err, shown);
-  const lower = flux.map((f, i) => (f === null || sigma[i] === null ? null : f - (sigma[i] as number)));
-  const upper = flux.map((f, i) => (f === null || sigma[i] === null ? null : f + (sigma[i] as number)));
+  const band = errorBandOutline(x, flux, sigma);
   const hover = 'skip' as const;
   const data: Data[] = [
-    { type: 'scatter', mode: 'lines', x, y: lower, line: { width: 0 }, hoverinfo: hover, showlegend: false, name: 'flux − 1σ' },
-    { type: 'scatter', mode: 'lines', x, y: upper, line: { width: 0 }, fill: 'tonexty', fillcolor: THEME.errorBand, hoverinfo: hover, name: '1σ error', showlegend: true },
+    { type: 'scatter', mode: 'lines', x: band.x, y: band.y, line: { width: 0 }, fill: 'toself', fillcolor: THEME.errorBand, hoverinfo: hover, name: '1σ error', showlegend: true },
     {
       type: 'scatter', mode: 'lines', x, y: flux, name: input.smoothing.widthPx > 1 ? `flux (${input.smoothing.kernel} ${input.smoothing.widthPx} px)` : 'flux',
       line: { color: THEME.flux, width: 1.2 }, hovertemplate: `%{x:.1f} Å<br>%{y:.4g} ${input.fluxUnit.replace(/[%{}]/g, '')}<extra></extra>`,

@@ -113,7 +113,7 @@ describe('vetting in the window', () => {
   it('zooms, pans and smooths by key, with the rest-frame axis following at λ/(1+z)', async () => {
     const axes = () => page.evaluate(() => {
       const gd = document.getElementById('spectrum-plot') as HTMLElement & { _fullLayout: any; data: any[] };
-      return { x: gd._fullLayout.xaxis.range as number[], x2: gd._fullLayout.xaxis2.range as number[], z: Number(gd.dataset.z), flux: gd.data[2].name as string };
+      return { x: gd._fullLayout.xaxis.range as number[], x2: gd._fullLayout.xaxis2.range as number[], z: Number(gd.dataset.z), flux: gd.data[1].name as string };
     });
     const full = await axes();
     await press('=');

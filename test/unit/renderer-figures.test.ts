@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { buildCorrelationFigure, curveAt, labelSides } from '../../renderer/plot/correlation-figure.js';
 import { buildBptFigure, demarcationCurve } from '../../renderer/plot/bpt-figure.js';
-import { buildSpectrumFigure } from '../../renderer/plot/spectrum-figure.js';
+import { buildSpectrumFigure, FLUX_TRACE } from '../../renderer/plot/spectrum-figure.js';
 import { kauffmann03 } from '../../core/hosts/demarcation.js';
 import type { Candidate } from '../../core/redshift/types.js';
 
@@ -65,5 +65,27 @@ describe('spectrum figure', () => {
   it('draws the clicked point and the feature centre found from it while a line is picked', () => {
     const shapes = figure(false, { featureAngstrom: 5447.1, clickAngstrom: 5439.5 }).layout.shapes as { x0: number; line: { dash?: string } }[];
     expect(shapes.filter((s) => s.x0 === 5447.1 || s.x0 === 5439.5).map((s) => s.line.dash ?? 'solid')).toEqual(['dot', 'solid']);
+  });
+});
+
+describe('the 1σ band', () => {
+  it('is one closed outline per run of pixels with flux and σ, never joined across a gap', async () => {
+    const { errorBandOutline } = await import('../../renderer/plot/spectrum-figure.js');
+    const x = [1, 2, 3, 4, 5, 6, 7];
+    const flux = [10, 11, 12, null, 14, 15, 16];
+    const sigma = [1, 1, 1, 1, 2, null, 2];
+    const band = errorBandOutline(x, flux, sigma);
+    // run 1: pixels 1–3 (upper, then lower back); gap; run 2: pixel 5 alone; gap; run 3: pixel 7
+    expect(band.x).toEqual([1, 2, 3, 3, 2, 1, null, 5, 5, null, 7, 7]);
+    expect(band.y).toEqual([11, 12, 13, 11, 10, 9, null, 16, 12, null, 18, 14]);
+  });
+
+  it('is drawn filled to itself, so that plotly closes each run on its own', () => {
+    const arrays = { waveAngstrom: [4000, 4001, 4002, 4003], flux: [1, 2, null, 3], error: [0.1, 0.1, 0.1, 0.1], mask: [0, 0, 1, 0], sky: null };
+    const fig = buildSpectrumFigure({ arrays, fluxUnit: 'erg/s/cm2/Angstrom', z: null, smoothing: { kernel: 'boxcar', widthPx: 1 }, showSky: false, templateFlux: null, templateName: null, xRange: null, widthPx: 900, heightPx: 500 });
+    const band = fig.data.find((t) => t.name === '1σ error') as { fill: string; x: (number | null)[] };
+    expect(band.fill).toBe('toself');
+    expect(band.x).toContain(null);
+    expect((fig.data[FLUX_TRACE] as { name: string }).name).toBe('flux');
   });
 });
