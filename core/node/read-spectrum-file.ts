@@ -25,7 +25,9 @@ export async function readSpectrumFile(path: string, options?: ReadOptions): Pro
     // Opened without blocking, so that a named pipe is refused rather than waited on forever.
     const fd = openSync(path, constants.O_RDONLY | constants.O_NONBLOCK);
     try {
-      if (!fstatSync(fd).isFile()) throw new SpectrumReadError(name, 'is not a regular file (a device, pipe or socket)');
+      const stat = fstatSync(fd);
+      if (stat.isDirectory()) throw new SpectrumReadError(name, REASONS.EISDIR);
+      if (!stat.isFile()) throw new SpectrumReadError(name, 'is not a regular file (a device, pipe or socket)');
       const buf = readFileSync(fd);
       bytes = new Uint8Array(buf.buffer, buf.byteOffset, buf.byteLength);
     } finally {
