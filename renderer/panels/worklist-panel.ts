@@ -1,5 +1,5 @@
 /** The worklist column: filters, one row per spectrum (status, z, confidence, class), progress. */
-import type { SpectrumListItem } from '../../core/api/host-api.js';
+import type { SpectrumListItem, WorklistState } from '../../core/api/host-api.js';
 import type { AppState } from '../app/state.js';
 import { el, fill } from '../ui/dom.js';
 import { confidenceText, fmtZ } from '../ui/format.js';
@@ -64,7 +64,12 @@ export function renderWorklist(state: AppState, parts: { filters: HTMLElement; i
   const hidden = state.currentId !== null && !shown.some((it) => it.id === state.currentId);
   fill(parts.items,
     hidden ? el('li', { class: 'empty', id: 'hidden-current' }, `${state.currentId}, in view, is not ${state.filter}: n and p move among the ${state.filter} ones`) : null,
-    ...(shown.length ? shown.map((it) => row(it, it.id === state.currentId, saving, on.pick)) : [el('li', { class: 'empty' }, `no spectra are ${state.filter}`)]));
+    ...(shown.length ? shown.map((it) => row(it, it.id === state.currentId, saving, on.pick)) : [el('li', { class: 'empty', id: 'empty-list' }, emptyListText(wl, state.filter))]));
   parts.items.querySelector('[aria-current="true"]')?.scrollIntoView({ block: 'nearest' });
   fill(parts.warnings, ...wl.warnings.map((w) => el('p', {}, `⚠ ${w}`)));
+}
+
+function emptyListText(wl: WorklistState, filter: WorklistFilter): string {
+  if (wl.items.length === 0) return `no spectrum files in ${wl.root}: zvet lists FITS and text spectra (.fits, .fits.gz, .csv, .txt, .dat …) in the folder and its subfolders`;
+  return `no spectra are ${filter}`;
 }

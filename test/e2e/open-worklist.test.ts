@@ -37,3 +37,19 @@ it('opens a worklist typed into the window', async () => {
   mkdirSync(join(ROOT, 'test-artifacts'), { recursive: true });
   await page.screenshot({ path: join(ROOT, 'test-artifacts', 'opened-from-window.png') });
 });
+
+it('says so when a folder holds no spectrum files, and offers no decision', async () => {
+  const empty = join(tmp, 'empty-night');
+  mkdirSync(empty);
+  const emptyServer = await startServe(empty, join(tmp, 'config-empty'));
+  const emptyWin = await openWindow(emptyServer.url);
+  try {
+    const { page } = emptyWin;
+    await expect.poll(() => page.locator('#empty-list').textContent()).toContain(`no spectrum files in ${empty}`);
+    expect(await page.locator('#btn-no-z').isDisabled()).toBe(true);
+    expect(emptyWin.errors).toEqual([]);
+  } finally {
+    await emptyWin.close();
+    await emptyServer.stop();
+  }
+});
