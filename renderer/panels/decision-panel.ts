@@ -91,14 +91,15 @@ export class DecisionPanel {
     const suggested = suggestedGrade(state.view, t);
     // A file that cannot be read takes only "no redshift", a class, a note and undo.
     // With no spectrum open (an empty worklist) there is nothing to decide on.
-    const noData = state.currentId === null || (!!state.view && !state.view.arrays);
+    const noSpectrum = state.currentId === null;
+    const noData = noSpectrum || (!!state.view && !state.view.arrays);
     const noZ = noData || t.z === null;
     this.zInput.disabled = noData;
     const gradeButton = (look: { chosen: boolean; suggested: boolean; key: string; disabled: boolean }, onclick: () => void, ...label: (string | HTMLElement)[]) =>
       el('button', { type: 'button', 'aria-pressed': look.chosen ? 'true' : 'false', class: look.suggested ? 'suggested' : null, disabled: look.disabled, title: look.suggested ? `${look.key} · suggested: saved with this unless you choose` : look.key, onclick }, ...label);
     const conf = (c: Confidence) => gradeButton({ chosen: state.grade.confidence === c, suggested: state.grade.confidence === null && suggested.confidence === c, key: CONFIDENCE_KEYS[c], disabled: noZ }, () => this.on.confidence(c),
       el('span', { style: `color:${CONFIDENCE_LOOK[c].colour}` }, `${CONFIDENCE_LOOK[c].shape} ${c}`), el('kbd', {}, CONFIDENCE_KEYS[c]));
-    const cls = (c: ObjectClass) => gradeButton({ chosen: state.grade.objectClass === c, suggested: state.grade.objectClass === null && suggested.objectClass === c, key: `Shift+${CLASS_KEYS[c]}`, disabled: state.currentId === null }, () => this.on.objectClass(c), c);
+    const cls = (c: ObjectClass) => gradeButton({ chosen: state.grade.objectClass === c, suggested: state.grade.objectClass === null && suggested.objectClass === c, key: `Shift+${CLASS_KEYS[c]}`, disabled: noSpectrum }, () => this.on.objectClass(c), c);
     fill(this.dynamicButtons,
       el('div', { class: 'row nudge' }, el('span', { class: 'label' }, 'nudge'),
         ...NUDGE_STEPS_KMS.map((s) => el('button', { disabled: noZ, type: 'button', title: `${s > 0 ? '+' : '−'}${Math.abs(s)} km/s (key ${NUDGE_KEYS[s]})${stepInfo ? ` · ${stepInfo}` : ''}`, onclick: () => this.on.nudge(s) }, `${s > 0 ? '+' : '−'}${Math.abs(s)}`)),
@@ -107,7 +108,7 @@ export class DecisionPanel {
         el('button', { type: 'button', id: 'btn-accept', disabled: noData || candidates(state.view).length === 0, onclick: () => this.on.acceptBest() }, 'Accept best', el('kbd', {}, 'a')),
         el('button', { type: 'button', id: 'btn-save-trial', disabled: noZ, onclick: () => this.on.saveTrial() }, 'Save trial z', el('kbd', {}, 'Enter'))),
       el('div', { class: 'row' },
-        el('button', { type: 'button', id: 'btn-no-z', disabled: state.currentId === null, onclick: () => this.on.noRedshift() }, 'No redshift', el('kbd', {}, 'x')),
+        el('button', { type: 'button', id: 'btn-no-z', disabled: noSpectrum, onclick: () => this.on.noRedshift() }, 'No redshift', el('kbd', {}, 'x')),
         el('button', { type: 'button', disabled: noData, 'aria-pressed': state.identifying ? 'true' : 'false', onclick: () => this.on.identify() }, 'Identify a line', el('kbd', {}, 'i')),
         el('button', { type: 'button', onclick: () => this.on.undo() }, 'Undo', el('kbd', {}, 'u'))),
       el('div', { class: 'row stacked' }, el('span', { class: 'label' }, 'confidence · dashed: suggested, saved unless you choose'), ...CONFIDENCES.map(conf)),

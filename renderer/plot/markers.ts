@@ -76,9 +76,8 @@ export function markersInRange(z: number, loAngstrom: number, hiAngstrom: number
   const pxPerAngstrom = geometry.widthPx / (hiAngstrom - loAngstrom);
   const gap = geometry.charPx;
   for (const side of ['top', 'bottom'] as const) {
-    const rows: Array<Array<[number, number]>> = [];
-    const glyphRow: Array<[number, number]> = [];
-    const free = (row: Array<[number, number]>, a: number, b: number) => row.every(([lo, hi]) => b + gap <= lo || a >= hi + gap);
+    const rows: Span[][] = [];
+    const glyphRow: Span[] = [];
     // Named first where a redshift is usually read from; the others in wavelength order.
     const bySide = markers.filter((mk) => MARKER_STYLE[mk.kind].side === side);
     for (const m of [...bySide].sort((a, b) => labelPriority(a) - labelPriority(b))) {
@@ -86,7 +85,7 @@ export function markersInRange(z: number, loAngstrom: number, hiAngstrom: number
       const halfWidth = ((m.label.length + 2) * geometry.charPx) / 2;
       // A label near an edge moves inward so that it is not cut off; its line stays where it is.
       const centre = inward(wavePx, halfWidth, geometry.widthPx);
-      let row = rows.findIndex((r) => free(r, centre - halfWidth, centre + halfWidth));
+      let row = rows.findIndex((r) => clear(r, centre - halfWidth, centre + halfWidth, gap));
       if (row < 0 && rows.length < geometry.maxRows) row = rows.push([]) - 1;
       if (row >= 0) {
         rows[row].push([centre - halfWidth, centre + halfWidth]);
@@ -99,7 +98,7 @@ export function markersInRange(z: number, loAngstrom: number, hiAngstrom: number
       const glyphCentre = inward(wavePx, glyphHalf, geometry.widthPx);
       m.row = geometry.maxRows;
       m.labelWaveAngstrom = loAngstrom + glyphCentre / pxPerAngstrom;
-      m.shows = glyphRow.every(([lo, hi]) => glyphCentre + glyphHalf <= lo || glyphCentre - glyphHalf >= hi) ? 'glyph' : 'line';
+      m.shows = clear(glyphRow, glyphCentre - glyphHalf, glyphCentre + glyphHalf, 0) ? 'glyph' : 'line';
       if (m.shows === 'glyph') glyphRow.push([glyphCentre - glyphHalf, glyphCentre + glyphHalf]);
     }
   }
@@ -115,6 +114,14 @@ const KEY_LINES = ['Halpha', 'Hbeta', '[OIII]5008', '[OII]3727', 'Lya', 'CIV', '
 function labelPriority(m: LineMarker): number {
   const i = m.ids.reduce((best, id) => Math.min(best, KEY_LINES.includes(id) ? KEY_LINES.indexOf(id) : Infinity), Infinity);
   return Number.isFinite(i) ? i - KEY_LINES.length : 0;
+}
+
+/** A label's extent in a row, px. */
+type Span = [number, number];
+
+/** Whether [a, b] keeps at least `gap` px from every span of the row. */
+function clear(row: readonly Span[], a: number, b: number, gap: number): boolean {
+  return row.every(([lo, hi]) => b + gap <= lo || a >= hi + gap);
 }
 
 /** Half the width of a glyph drawn alone, in characters. */
