@@ -1,13 +1,6 @@
 import { readdir, realpath, stat } from 'node:fs/promises';
 import { join } from 'node:path';
-
-/** File endings zvet treats as spectra when it walks a folder. */
-export const SPECTRUM_EXTENSIONS = ['.fits', '.fit', '.fts', '.fits.gz', '.fit.gz', '.fts.gz', '.csv', '.tsv', '.txt', '.dat', '.ascii'];
-
-export function hasSpectrumExtension(name: string): boolean {
-  const lower = name.toLowerCase();
-  return SPECTRUM_EXTENSIONS.some((ext) => lower.endsWith(ext));
-}
+import { hasSpectrumExtension } from '../spectrum/file-extensions.js';
 
 export interface ListOptions {
   /**
