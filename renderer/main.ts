@@ -82,7 +82,7 @@ function renderOverlay(state: AppState): void {
   if (state.modal === 'help') renderHelp(box);
   else if (state.modal === 'remeasure') {
     const templates = (state.view?.measurement?.correlations ?? []).map((c) => c.template);
-    renderRemeasure(box, templates, (o) => void controller.remeasure(o), () => controller.closeModal());
+    renderRemeasure(box, { templates, options: state.view?.measuredWith ?? {}, meta: state.view?.meta ?? null }, (o) => void controller.remeasure(o), () => controller.closeModal());
   }
   else if (state.modal === 'line-pick' && state.linePick) renderLinePick(box, state.linePick, state.linePick.choices, (i) => controller.chooseLine(i));
   else fill(box);

@@ -32,6 +32,8 @@ export interface RemeasureOptions {
   templates?: string[];
   maskTelluric?: boolean;
   maskSky?: boolean;
+  /** Read the file's wavelengths as air or vacuum, whatever the file says; as the file says when absent. */
+  medium?: 'air' | 'vacuum';
 }
 
 export interface SpectrumListItem {
@@ -75,6 +77,7 @@ export interface SpectrumMetaView {
   exposureS: number | null;
   mediumInFile: 'air' | 'vacuum';
   mediumReason: string;
+  mediumSource: 'file' | 'assumed' | 'user';
   /** The wavelength unit guessed from the values with a doubt (e.g. nm or Å), else null. */
   waveUnitDoubt: string | null;
   velocityFrame: string;
@@ -92,6 +95,8 @@ export interface SpectrumView {
   templateModel: { template: string; z: number; flux: (number | null)[] } | null;
   verdict: Verdict | null;
   error: string | null;
+  /** The options this view was read and measured with (the defaults are absent). */
+  measuredWith: RemeasureOptions;
 }
 
 /**

@@ -9,7 +9,7 @@
  * nothing else is lost; a torn last line (power cut during a write) is expected and reported
  * as such.
  */
-import { CONFIDENCES, OBJECT_CLASSES, VERDICT_STATUSES, type Verdict } from './verdict.js';
+import { CONFIDENCES, OBJECT_CLASSES, VERDICT_STATUSES, WAVELENGTH_MEDIA, type Verdict } from './verdict.js';
 
 export const JOURNAL_FORMAT_VERSION = 1;
 
@@ -37,6 +37,7 @@ export function verdictProblem(v: unknown): string | null {
   if (!oneOf(OBJECT_CLASSES, o.objectClass)) return `objectClass must be one of ${OBJECT_CLASSES.join(', ')}`;
   if (!(o.template === null || typeof o.template === 'string')) return 'template must be a string or null';
   for (const key of ['note', 'time', 'user'] as const) if (typeof o[key] !== 'string') return `${key} must be a string`;
+  if (o.medium !== undefined && !oneOf(WAVELENGTH_MEDIA, o.medium)) return `medium must be one of ${WAVELENGTH_MEDIA.join(', ')} when given`;
   return null;
 }
 

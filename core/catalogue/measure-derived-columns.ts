@@ -7,7 +7,7 @@
 import type { CosmologyModel } from '../astro/cosmology.js';
 import { correctFrames, type FrameResult } from '../astro/frames.js';
 import type { MeasureColumn, MeasureRowInput } from '../redshift/measure-columns.js';
-import type { Site, SpectrumMeta } from '../spectrum/spectrum.js';
+import type { Site, SpectrumMeta, WavelengthMedium } from '../spectrum/spectrum.js';
 import { cosmologyParameters, DISTANCE_FIELDS, FRAME_FIELDS, type Field } from './frame-fields.js';
 import { HOST_CLASS_FIELDS, HOST_DUST_SFR_FIELDS, HOST_FILE_FLUX_FIELDS, type HostSummary } from './host-fields.js';
 
@@ -15,6 +15,8 @@ import { HOST_CLASS_FIELDS, HOST_DUST_SFR_FIELDS, HOST_FILE_FLUX_FIELDS, type Ho
 export interface MeasureRowExtras {
   /** The spectrum's metadata (time, target, site, velocity frame): what the frames need. */
   meta?: SpectrumMeta | null;
+  /** Whether the file's wavelengths were read as air or vacuum, and what decided it. */
+  medium?: { inFile: WavelengthMedium; reason: string } | null;
   /** Host diagnostics at the best z, when asked for and computable. */
   lines?: HostSummary | null;
   /** Why `lines` is missing, when it was asked for. */
@@ -39,6 +41,15 @@ function framesOfRow(row: MeasureRow, site: Site | undefined, cosmology: Cosmolo
     return `not corrected: ${(err as Error).message}`;
   }
 }
+
+/**
+ * How the file's wavelengths were read: air ones are converted to vacuum before measuring, so an
+ * assumed medium that is wrong shifts z by about 83 km/s (Hα: 6562.80 Å in air, 6564.61 Å in vacuum).
+ */
+export const MEASURE_MEDIUM_COLUMNS: readonly MeasureColumn[] = [
+  { key: 'medium_in_file', value: (row: MeasureRow) => row.medium?.inFile ?? null },
+  { key: 'medium_reason', value: (row: MeasureRow) => row.medium?.reason ?? null },
+];
 
 export function measureFrameColumns(options: { site?: Site; cosmology: CosmologyModel }): MeasureColumn[] {
   const memo = new WeakMap<MeasureRow, FrameResult | string>();

@@ -10,7 +10,7 @@ import { Worker } from 'node:worker_threads';
 import type { CosmologyModel } from '../astro/cosmology.js';
 import type { MeasureRowExtras } from '../catalogue/measure-derived-columns.js';
 import type { Measurement, MeasureOptions } from '../redshift/types.js';
-import type { Site, Spectrum } from '../spectrum/spectrum.js';
+import type { Site, Spectrum, WavelengthMedium } from '../spectrum/spectrum.js';
 
 /** Carries the spectrum's metadata always, and host diagnostics when asked for. */
 export interface MeasureFileResult extends MeasureRowExtras {
@@ -36,6 +36,8 @@ export interface WorkerRequest {
   id: number;
   path: string;
   options: MeasureOptions;
+  /** Medium of the file's wavelengths set by the user, null = as the file says (or zvet assumes). */
+  medium: WavelengthMedium | null;
   includeSpectrum: boolean;
   /** Measure the host lines at the best z, null = don't. */
   hostLines: HostLinesRequest | null;
@@ -51,6 +53,13 @@ export interface WorkerReply {
   id: number;
   result: MeasureFileResult;
   times: Omit<StageTotals, 'files'>;
+}
+
+/** The engine's options, and how to read the file and what to return besides the measurement. */
+export interface FileMeasureOptions extends MeasureOptions {
+  medium?: WavelengthMedium;
+  includeSpectrum?: boolean;
+  hostLines?: HostLinesRequest;
 }
 
 interface Job {
@@ -116,11 +125,11 @@ export class MeasurePool {
     for (let i = 0; i < jobs; i++) this.slots.push(this.spawn());
   }
 
-  measureFile(path: string, options: MeasureOptions & { includeSpectrum?: boolean; hostLines?: HostLinesRequest } = {}): Promise<MeasureFileResult> {
+  measureFile(path: string, options: FileMeasureOptions = {}): Promise<MeasureFileResult> {
     if (this.closed) return Promise.reject(new Error('MeasurePool is closed'));
-    const { includeSpectrum, hostLines, ...measureOptions } = options;
+    const { includeSpectrum, hostLines, medium, ...measureOptions } = options;
     return new Promise((resolve) => {
-      this.queue.push({ req: { id: this.nextId++, path, options: measureOptions, includeSpectrum: !!includeSpectrum, hostLines: hostLines ?? null }, resolve });
+      this.queue.push({ req: { id: this.nextId++, path, options: measureOptions, medium: medium ?? null, includeSpectrum: !!includeSpectrum, hostLines: hostLines ?? null }, resolve });
       this.dispatch();
     });
   }

@@ -30,10 +30,11 @@ async function handle(req: WorkerRequest): Promise<void> {
   let spectrum: Spectrum | undefined;
   let result: MeasureFileResult;
   try {
-    spectrum = await readSpectrumFile(req.path);
+    spectrum = await readSpectrumFile(req.path, req.medium ? { medium: req.medium } : undefined);
     times.readMs = performance.now() - t0;
     const measurement = measureRedshift(spectrum, req.options as MeasureOptions, times);
-    result = { file: req.path, hdu: spectrum.provenance.hdu, status: 'ok', error: null, measurement, meta: spectrum.meta };
+    const { medium, mediumReason } = spectrum.provenance;
+    result = { file: req.path, hdu: spectrum.provenance.hdu, status: 'ok', error: null, measurement, meta: spectrum.meta, medium: { inFile: medium, reason: mediumReason } };
     if (req.hostLines) Object.assign(result, hostLinesAt(spectrum, measurement.best, req.hostLines));
   } catch (err) {
     if (!times.readMs) times.readMs = performance.now() - t0;

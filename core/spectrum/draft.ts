@@ -9,6 +9,8 @@ import type { WaveUnit } from './units.js';
 export interface MediumDecision {
   medium: WavelengthMedium;
   reason: string;
+  /** Who decided, when not the file: zvet's assumption, or the user. */
+  source?: 'assumed' | 'user';
 }
 
 export interface SpectrumDraft {

@@ -77,6 +77,7 @@ export function finishSpectrum(draft: SpectrumDraft, fileName: string, override?
       spectrumHdus: draft.spectrumHdus,
       medium: medium.medium,
       mediumReason: medium.reason,
+      mediumSource: medium.source ?? 'file',
       dispersion: draft.dispersion,
       errorKind: draft.errorKind,
       waveUnitInFile: draft.waveUnit.assumed ? `${draft.waveUnit.name} (assumed from the values${draft.waveUnit.doubt ? `; ${draft.waveUnit.doubt}` : ''})` : draft.waveUnit.name,

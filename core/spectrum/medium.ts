@@ -44,9 +44,10 @@ export function mediumFromName(name: string): MediumDecision | undefined {
  */
 export const ASSUMED_AIR: MediumDecision = {
   medium: 'air',
-  reason: 'assumed air: nothing in the file says, and ground-based optical spectra are usually calibrated in air (override with --vacuum)',
+  reason: 'assumed air: nothing in the file says, and ground-based optical spectra are usually calibrated in air (override with --vacuum, or in the window under "measure again")',
+  source: 'assumed',
 };
 
 export function userMedium(medium: 'air' | 'vacuum'): MediumDecision {
-  return { medium, reason: `set by the user (--${medium})` };
+  return { medium, reason: 'set by the user, whatever the file says', source: 'user' };
 }

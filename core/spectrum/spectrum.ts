@@ -65,6 +65,8 @@ export interface SpectrumProvenance {
   spectrumHdus: number[];
   medium: WavelengthMedium;
   mediumReason: string;
+  /** Whether the file said (or zvet assumed, or the user set) the medium. */
+  mediumSource: 'file' | 'assumed' | 'user';
   dispersion: Dispersion;
   errorKind: ErrorKind;
   /** Unit of the wavelengths in the file before conversion to Å. */

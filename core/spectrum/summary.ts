@@ -23,6 +23,7 @@ export interface SpectrumSummary {
   /** Medium of the wavelengths in the file; zvet's own are always vacuum. */
   medium_in_file: 'air' | 'vacuum';
   medium_reason: string;
+  medium_source: 'file' | 'assumed' | 'user';
   dispersion: string;
   wave_unit_in_file: string;
   wave_flipped: boolean;
@@ -80,6 +81,7 @@ export function summariseSpectrum(s: Spectrum): SpectrumSummary {
     wave_max_angstrom: s.waveAngstrom[s.waveAngstrom.length - 1],
     medium_in_file: p.medium,
     medium_reason: p.mediumReason,
+    medium_source: p.mediumSource,
     dispersion: p.dispersion,
     wave_unit_in_file: p.waveUnitInFile,
     wave_flipped: p.flipped,

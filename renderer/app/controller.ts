@@ -168,7 +168,7 @@ export class Controller {
     try {
       view = await this.cache.get(id);
     } catch (err) {
-      view = { id, arrays: null, meta: null, measurement: null, templateModel: null, verdict: this.itemOf(id)?.verdict ?? null, error: `${id}: ${(err as Error).message}` };
+      view = { id, arrays: null, meta: null, measurement: null, templateModel: null, verdict: this.itemOf(id)?.verdict ?? null, error: `${id}: ${(err as Error).message}`, measuredWith: {} };
     }
     if (this.s.currentId !== id) return;
     if (timed) performance.mark('zvet:loaded');

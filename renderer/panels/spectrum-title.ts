@@ -1,4 +1,5 @@
 /** The line above the plot: which object and file, and what the file says about its wavelengths. */
+import type { SpectrumMetaView } from '../../core/api/host-api.js';
 import type { AppState } from '../app/state.js';
 import { el, fill } from '../ui/dom.js';
 
@@ -17,7 +18,7 @@ export function renderSpectrumTitle(state: AppState, box: HTMLElement, move: (ac
     ? [
         el('span', {}, `${meta.format}${meta.hdu !== null ? `, HDU ${meta.hdu}` : ''}`),
         meta.waveUnitDoubt ? el('span', { class: 'warn', id: 'wave-unit-doubt', title: meta.waveUnitDoubt }, `⚠ wavelength unit guessed: ${meta.waveUnitDoubt}`) : null,
-        el('span', { title: meta.mediumReason }, meta.mediumInFile === 'vacuum' ? 'vacuum wavelengths in the file' : `${meta.mediumInFile} wavelengths in the file, shown in vacuum`),
+        mediumFact(meta),
         el('span', { title: meta.velocityFrameReason }, `frame: ${meta.velocityFrame}`),
         meta.dateObsUtc ? el('span', {}, `${readableUtc(meta.dateObsUtc)} UTC${meta.exposureS ? `, ${meta.exposureS} s` : ''}`) : null,
       ].filter((f) => f !== null)
@@ -32,6 +33,19 @@ export function renderSpectrumTitle(state: AppState, box: HTMLElement, move: (ac
     el('span', { class: 'meta mono' }, state.currentId),
     state.loading ? el('span', { class: 'meta' }, 'loading…') : null,
     factLine);
+}
+
+/**
+ * How the wavelengths were read. An assumed medium is flagged: if it is wrong, z is off by about
+ * 83 km/s (Hα: 6562.80 Å in air, 6564.61 Å in vacuum), and "measure again" can change it.
+ */
+function mediumFact(meta: SpectrumMetaView): HTMLElement {
+  const shown = meta.mediumInFile === 'air' ? ', shown in vacuum' : '';
+  if (meta.mediumSource === 'assumed') {
+    return el('span', { class: 'warn', id: 'medium-fact', title: `${meta.mediumReason}. If the file is in the other medium, z is off by about 83 km/s: change it with "measure again" (Shift+M).` }, `⚠ ${meta.mediumInFile} wavelengths assumed${shown}`);
+  }
+  if (meta.mediumSource === 'user') return el('span', { id: 'medium-fact', title: meta.mediumReason }, `${meta.mediumInFile} wavelengths, as you set${shown}`);
+  return el('span', { id: 'medium-fact', title: meta.mediumReason }, `${meta.mediumInFile} wavelengths in the file${shown}`);
 }
 
 /** 2026-03-14T02:48:00.000Z → 2026-03-14 02:48:00 */

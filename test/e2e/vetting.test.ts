@@ -173,6 +173,30 @@ describe('vetting in the window', () => {
     expect(await page.locator('#verdict-now').textContent()).toContain('accepted');
   });
 
+  it('opens the form again on the options in force, and reads the wavelengths in the medium chosen there', async () => {
+    expect(await page.locator('#medium-fact').textContent()).toBe('air wavelengths in the file, shown in vacuum');
+    const before = await candidateZ(0);
+    const measureAgain = async (medium: string) => {
+      await press('Shift+M');
+      await page.waitForSelector('#remeasure-card');
+      expect([await page.inputValue('#remeasure-zmin'), await page.inputValue('#remeasure-zmax')]).toEqual(['0', '0.3']);
+      await page.selectOption('#remeasure-medium', medium);
+      await page.click('#remeasure-go');
+      await page.waitForSelector('#remeasure-card', { state: 'detached' });
+    };
+    await measureAgain('vacuum');
+    await expect.poll(() => page.locator('#medium-fact').textContent(), { timeout: 30_000 }).toBe('vacuum wavelengths, as you set');
+    // Not converted from air, the wavelengths are shorter by the air/vacuum ratio (Hα: 6562.80 Å
+    // air, 6564.61 Å vacuum; IAU standard, Morton 1991), and so is 1 + z.
+    expect((1 + before) / (1 + (await candidateZ(0)))).toBeCloseTo(6564.61 / 6562.8, 4);
+    await press('Shift+M');
+    expect(await page.inputValue('#remeasure-medium')).toBe('vacuum');
+    await press('Escape');
+    await measureAgain('');
+    await expect.poll(() => page.locator('#medium-fact').textContent(), { timeout: 30_000 }).toBe('air wavelengths in the file, shown in vacuum');
+    expect(await candidateZ(0)).toBe(before);
+  });
+
   it('takes another candidate: its number, then Enter', async () => {
     await nextUntil('KRT-26-0012.fits');
     const second = await candidateZ(1);

@@ -209,6 +209,33 @@ describe('host handlers: verdicts', () => {
     expect(state.items.find((i) => i.id === 'KRT-26-0011.fits')!.verdict).toEqual(verdict);
   });
 
+  it('keeps the medium the user set for the wavelengths: the verdict records it and a reopened worklist reads the file so again', async () => {
+    const id = 'KRT-26-0011.fits';
+    const h = handlers();
+    await h.openWorklist({ path: folder });
+    const asFile = await h.loadSpectrum({ id });
+    expect(asFile.meta!.mediumInFile).toBe('air');
+    expect(asFile.measuredWith).toEqual({});
+    const vacuum = await h.remeasure({ id, options: { medium: 'vacuum' } });
+    expect(vacuum.meta).toMatchObject({ mediumInFile: 'vacuum', mediumReason: 'set by the user, whatever the file says', mediumSource: 'user' });
+    expect(vacuum.measuredWith).toEqual({ medium: 'vacuum' });
+    // Read as vacuum, the air wavelengths are not converted: 1 + z drops by about the air/vacuum
+    // ratio at Hα, 6564.61/6562.80 (IAU standard, Morton 1991).
+    expect((1 + asFile.measurement!.best!.z) / (1 + vacuum.measurement!.best!.z)).toBeCloseTo(6564.61 / 6562.8, 4);
+    const { verdict } = await h.saveVerdict(accept(id, vacuum.measurement!.best!.z));
+    expect(verdict.medium).toBe('vacuum');
+
+    const again = handlers();
+    await again.openWorklist({ path: folder });
+    const reopened = await again.loadSpectrum({ id });
+    expect(reopened.measuredWith).toEqual({ medium: 'vacuum' });
+    expect(reopened.meta!.mediumInFile).toBe('vacuum');
+    expect(reopened.measurement!.best!.z).toBe(vacuum.measurement!.best!.z);
+    // Back to what the file says: the next verdict carries no medium.
+    await again.remeasure({ id, options: {} });
+    expect((await again.saveVerdict(accept(id, asFile.measurement!.best!.z))).verdict).not.toHaveProperty('medium');
+  });
+
   it('undoes the last verdict and says which spectrum it was', async () => {
     const h = handlers();
     await h.openWorklist({ path: folder });

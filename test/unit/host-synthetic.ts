@@ -4,7 +4,7 @@ import { normalDeviates } from '../support/prng.js';
 
 /** Provenance of a spectrum made in a test: vacuum, log-linear, with σ. */
 export const SYNTHETIC_PROVENANCE: Spectrum['provenance'] = {
-  format: 'synthetic', hdu: null, spectrumHdus: [], medium: 'vacuum', mediumReason: 'synthetic', dispersion: 'log10',
+  format: 'synthetic', hdu: null, spectrumHdus: [], medium: 'vacuum', mediumReason: 'synthetic', mediumSource: 'file', dispersion: 'log10',
   errorKind: 'sigma', waveUnitInFile: 'Å', waveUnitDoubt: null, hasMask: false, hasSky: false, flipped: false, header: [],
 };
 

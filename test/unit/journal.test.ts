@@ -44,7 +44,14 @@ describe('journal format', () => {
     expect(r.state.current().get('a.fits')).toEqual(v);
   });
 
+  it('round-trips the medium a user set for the wavelengths; a verdict without one has none', () => {
+    const v = verdict('a.fits', 0.1234, { medium: 'vacuum' });
+    expect(replayJournal(serialiseVerdictRecord(v), 'j').state.current().get('a.fits')).toEqual(v);
+    expect(replayJournal(serialiseVerdictRecord(verdict('b.fits', 0.2)), 'j').state.current().get('b.fits')).not.toHaveProperty('medium');
+  });
+
   it('refuses to write an invalid verdict', () => {
+    expect(() => serialiseVerdictRecord({ ...verdict('a.fits', 0.1), medium: 'glass' as never })).toThrow(/medium must be one of air, vacuum/);
     expect(() => serialiseVerdictRecord({ ...verdict('a.fits', 0.1), confidence: 'sure' as never })).toThrow(/confidence/);
     expect(() => serialiseVerdictRecord({ ...verdict('a.fits', 0.1), z: NaN })).toThrow(/z must be/);
   });

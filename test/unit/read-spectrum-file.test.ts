@@ -70,7 +70,7 @@ describe('zvet inspect', () => {
   });
   it('--vacuum/--air override and --hdu choose', () => {
     const air = JSON.parse(zvet('inspect', '--json', '--air', sdss).stdout);
-    expect(air.medium_reason).toBe('set by the user (--air)');
+    expect(air.medium_reason).toBe('set by the user, whatever the file says');
     const galah = JSON.parse(zvet('inspect', '--json', '--hdu', '1', join(OPEN_SPECTRA, 'other/2101150001010011.fits')).stdout);
     expect(galah).toMatchObject({ hdu: 1, spectrum_hdus: [0, 1], flux_unit: 'normalised (continuum = 1)' });
   });

@@ -10,7 +10,7 @@ import { nudgeZ } from '../../renderer/science/z-math.js';
 
 const cand = (z: number, template: string, templateClass: Candidate['templateClass']): Candidate => ({ z, zErr: 1e-4, r: 8, template, templateClass, overlap: 0.9, lines: [] });
 const view = (verdict: Verdict | null = null): SpectrumView => ({
-  id: 'a.fits', arrays: null, meta: null, templateModel: null, verdict, error: null,
+  id: 'a.fits', arrays: null, meta: null, templateModel: null, verdict, error: null, measuredWith: {},
   measurement: { candidates: [cand(0.1, 'sf', 'star-forming'), cand(0.35, 'qso', 'qso')], best: cand(0.1001, 'sf', 'star-forming'), refinement: { method: 'line-fit', chi2Red: 1, nLinesFitted: 4 }, confidence: 'likely', nLines: 4, notes: [] },
 });
 const savedVerdict = (over: Partial<Verdict>): Verdict => ({ spectrum: 'a.fits', hdu: 0, status: 'revised', z: 0.35, zErr: null, confidence: 'secure', objectClass: 'qso', template: 'qso', note: 'n', time: '2026-03-15T03:00:00Z', user: 'obs', ...over });

@@ -7,32 +7,29 @@
 import type { Command } from 'commander';
 import { pixelTable, summariseSpectrum, type SpectrumSummary } from '../../spectrum/summary.js';
 import { readSpectrumFile } from '../read-spectrum-file.js';
+import { mediumOption, withMediumOptions, type MediumFlags } from './medium-option.js';
 import { runAction } from './run-action.js';
 import { UsageError } from './usage-error.js';
 import { parseDecimal } from '../../util/decimal.js';
 
-interface InspectOptions {
+interface InspectOptions extends MediumFlags {
   hdu?: string;
   json?: boolean;
   pixels?: boolean;
-  air?: boolean;
-  vacuum?: boolean;
 }
 
 export function registerInspect(program: Command): void {
-  program
+  const command = program
     .command('inspect')
     .description('show what zvet reads from a spectrum file (FITS or text)')
     .argument('<file>', 'spectrum file (FITS, gzip-compressed FITS, CSV/TSV/whitespace text)')
     .option('--hdu <n>', 'read this HDU (0 = primary) instead of the first one holding a spectrum')
     .option('--json', 'print one JSON object (snake_case keys, units in the names)')
-    .option('--pixels', 'with --json: add every pixel (vacuum wavelength in Å, flux, 1σ error, mask)')
-    .option('--air', "treat the file's wavelengths as air, whatever it says")
-    .option('--vacuum', "treat the file's wavelengths as vacuum, whatever it says")
+    .option('--pixels', 'with --json: add every pixel (vacuum wavelength in Å, flux, 1σ error, mask)');
+  withMediumOptions(command, "the file's")
     .action(runAction(async (file: string, opts: InspectOptions) => {
-      if (opts.air && opts.vacuum) throw new UsageError('--air and --vacuum exclude each other');
+      const medium = mediumOption(opts);
       const hdu = opts.hdu === undefined ? undefined : parseHdu(opts.hdu);
-      const medium = opts.air ? 'air' : opts.vacuum ? 'vacuum' : undefined;
       const spectrum = await readSpectrumFile(file, { hdu, medium });
       const summary = { ...summariseSpectrum(spectrum), file };
       if (opts.json) {

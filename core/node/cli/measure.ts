@@ -1,7 +1,7 @@
 /**
  * `zvet measure PATH... [--out FILE|-] [--format csv|jsonl] [--jobs N] [--templates LIST]
  * [--zmin Z] [--zmax Z] [--line-list FILE] [--template-spectrum FILE] [--site NAME]
- * [--preset NAME | --h0 H --om M --ol L] [--lines]`: automatic redshift candidates for every
+ * [--preset NAME | --h0 H --om M --ol L] [--lines] [--air|--vacuum]`: automatic redshift candidates for every
  * spectrum file (folders: every spectrum file below them), measured in parallel, one row per
  * input in input order, streamed; each row also has the best z in the barycentric (or
  * heliocentric) and CMB frames with distances, and with --lines the host diagnostics at that z.
@@ -14,7 +14,7 @@ import { createWriteStream, type WriteStream } from 'node:fs';
 import { readFile, realpath } from 'node:fs/promises';
 import { availableParallelism } from 'node:os';
 import { basename, resolve } from 'node:path';
-import { MEASURE_LINE_COLUMNS, measureFrameColumns } from '../../catalogue/measure-derived-columns.js';
+import { MEASURE_LINE_COLUMNS, MEASURE_MEDIUM_COLUMNS, measureFrameColumns } from '../../catalogue/measure-derived-columns.js';
 import { csvCells, csvHeader, csvLine, jsonlLine, MEASURE_COLUMNS, type MeasureColumn } from '../../redshift/measure-columns.js';
 import { resolveTemplates, TemplateChoiceError } from '../../redshift/template-set.js';
 import type { MeasureOptions } from '../../redshift/types.js';
@@ -24,13 +24,14 @@ import { realTarget } from '../output-target.js';
 import { readSpectrumFile } from '../read-spectrum-file.js';
 import { listSpectrumFiles } from '../spectrum-files.js';
 import { ChunkedLines } from './chunked-lines.js';
+import { mediumOption, withMediumOptions, type MediumFlags } from './medium-option.js';
 import { modelFromOptions, withCosmologyOptions } from './cosmo.js';
 import { SITE_OPTION_HELP, siteOption } from './site-option.js';
 import { EXIT_OK, EXIT_SOME_FAILED, runAction } from './run-action.js';
 import { UsageError } from './usage-error.js';
 import { parseDecimal } from '../../util/decimal.js';
 
-interface MeasureCliOptions {
+interface MeasureCliOptions extends MediumFlags {
   out?: string;
   format?: string;
   jobs?: string;
@@ -52,7 +53,7 @@ interface MeasureCliOptions {
 const AHEAD_PER_JOB = 8;
 
 export function registerMeasure(program: Command, columns: MeasureColumn[] = MEASURE_COLUMNS): void {
-  withCosmologyOptions(program.command('measure'))
+  const command = withCosmologyOptions(program.command('measure'))
     .description('automatic redshift candidates for spectrum files and folders (suggestions until vetted)')
     .argument('<paths...>', 'spectrum files or folders (searched recursively)')
     .option('--out <file>', 'write the table here ("-" = standard output)', '-')
@@ -65,14 +66,16 @@ export function registerMeasure(program: Command, columns: MeasureColumn[] = MEA
     .option('--template-spectrum <file...>', 'extra templates from rest-frame spectra (any file zvet reads)')
     .option('--site <name>', SITE_OPTION_HELP)
     .option('--lines', 'also measure the host lines at the best z: Hα, Hβ, [O III], [N II] fluxes, BPT class, E(B−V), SFR')
-    .option('--stage-times', 'print the time spent per stage (read, preprocess, correlate, refine) to standard error')
+    .option('--stage-times', 'print the time spent per stage (read, preprocess, correlate, refine) to standard error');
+  withMediumOptions(command, "every file's")
     .action(runAction(async (paths: string[], opts: MeasureCliOptions) => measure(paths, opts, columns)));
 }
 
 async function measure(paths: string[], opts: MeasureCliOptions, baseColumns: MeasureColumn[]): Promise<number> {
+  const medium = mediumOption(opts);
   const cosmology = modelFromOptions(opts);
   const site = siteOption(opts.site);
-  const columns = [...baseColumns, ...measureFrameColumns({ site, cosmology }), ...(opts.lines ? MEASURE_LINE_COLUMNS : [])];
+  const columns = [...baseColumns, ...MEASURE_MEDIUM_COLUMNS, ...measureFrameColumns({ site, cosmology }), ...(opts.lines ? MEASURE_LINE_COLUMNS : [])];
   const format = opts.format ?? formatFromOut(opts.out);
   if (format !== 'csv' && format !== 'jsonl') throw new UsageError(`--format: "${format}" is not csv or jsonl`);
   const jobs = opts.jobs === undefined ? undefined : positiveInt(opts.jobs, '--jobs');
@@ -122,7 +125,7 @@ async function measure(paths: string[], opts: MeasureCliOptions, baseColumns: Me
   try {
     if (format === 'csv') await lines.write(csvLine(csvHeader(columns)));
     for (let i = 0; i < files.length; i++) {
-      while (submitted < files.length && submitted < i + ahead) pending.push(pool.measureFile(files[submitted++], { ...options, hostLines: opts.lines ? { cosmology, site } : undefined }));
+      while (submitted < files.length && submitted < i + ahead) pending.push(pool.measureFile(files[submitted++], { ...options, medium, hostLines: opts.lines ? { cosmology, site } : undefined }));
       const result = await pending.shift()!;
       if (result.status !== 'ok') failed++;
       await lines.write(format === 'csv' ? csvLine(csvCells(columns, result)) : jsonlLine(columns, result));

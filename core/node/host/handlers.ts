@@ -130,7 +130,7 @@ class Handlers implements HostHandlers {
       queued: [],
       lastWriteError: null,
       cache: same?.cache ?? new MeasurementCache(),
-      optionsFor: same?.optionsFor ?? new Map(),
+      optionsFor: same?.optionsFor ?? mediaSetIn(worklist.journal.current()),
       hduFor: same?.hduFor ?? new Map(),
       closed: false,
     };
@@ -199,7 +199,7 @@ class Handlers implements HostHandlers {
     for (const [id, entry] of s.entries) {
       if (s.closed) return;
       if (entry.refusal || s.cache.suggestions.has(id)) continue;
-      await this.measured(s, id, {}).catch(() => undefined);
+      await this.measured(s, id, s.optionsFor.get(id) ?? {}).catch(() => undefined);
     }
   }
 
@@ -212,7 +212,7 @@ class Handlers implements HostHandlers {
   private async view(s: Session, id: string, options: RemeasureOptions): Promise<SpectrumView> {
     const result = await this.measured(s, id, options);
     const verdict = this.verdictsInForce(s).get(id) ?? null;
-    if (!result.spectrum) return { id, arrays: null, meta: null, measurement: null, templateModel: null, verdict, error: result.error ?? `${id}: the file could not be read` };
+    if (!result.spectrum) return { id, arrays: null, meta: null, measurement: null, templateModel: null, verdict, error: result.error ?? `${id}: the file could not be read`, measuredWith: options };
     const best = result.measurement?.best ?? null;
     const model = best ? modelOrNull(best.template, best.z, result.spectrum, options) : null;
     return {
@@ -223,6 +223,7 @@ class Handlers implements HostHandlers {
       templateModel: model,
       verdict,
       error: result.error,
+      measuredWith: options,
     };
   }
 
@@ -283,6 +284,7 @@ class Handlers implements HostHandlers {
       objectClass: req.objectClass,
       template: req.template,
       note: req.note,
+      ...mediumOf(s.optionsFor.get(req.id)),
       time: this.now().toISOString(),
       user: settings.user,
     };
@@ -395,3 +397,14 @@ export function createHostHandlers(options: HostHandlerOptions = {}): HostHandle
   return new Handlers(options.settings ?? new SettingsStore(), options.services ?? defaultServices(), options.now ?? (() => new Date()));
 }
 
+/** The verdict's medium field: present only when the user set the medium of the file's wavelengths. */
+function mediumOf(options: RemeasureOptions | undefined): Pick<Verdict, 'medium'> {
+  return options?.medium ? { medium: options.medium } : {};
+}
+
+/** Each spectrum's reading set by its verdict in force (the medium the user chose), so that a reopened worklist shows what was vetted. */
+function mediaSetIn(verdicts: ReadonlyMap<string, Verdict>): Map<string, RemeasureOptions> {
+  const out = new Map<string, RemeasureOptions>();
+  for (const [id, v] of verdicts) if (v.medium) out.set(id, { medium: v.medium });
+  return out;
+}

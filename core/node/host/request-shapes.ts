@@ -3,7 +3,7 @@
  * before a handler sees it. A failed check gives one line naming the field and what is wrong.
  * Unknown fields are refused too, so a typo never passes silently.
  */
-import { CONFIDENCES, OBJECT_CLASSES, VERDICT_STATUSES } from '../../catalogue/verdict.js';
+import { CONFIDENCES, OBJECT_CLASSES, VERDICT_STATUSES, WAVELENGTH_MEDIA } from '../../catalogue/verdict.js';
 import { HOST_METHODS, type HostApi, type HostMethod } from '../../api/host-api.js';
 
 export type HostRequest<M extends HostMethod> = Parameters<HostApi[M]>[0];
@@ -116,6 +116,7 @@ const remeasureOptions = object(
     templates: opt(arrayOf(string(200), 1)),
     maskTelluric: opt(boolean),
     maskSky: opt(boolean),
+    medium: opt(oneOf(WAVELENGTH_MEDIA)),
   },
   (v, at) =>
     typeof v.zmin === 'number' && typeof v.zmax === 'number' && v.zmin >= v.zmax ? `${at}: zmin must be below zmax` : null,

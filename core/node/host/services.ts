@@ -6,7 +6,7 @@
  */
 import type { ExportFormat } from '../../api/host-api.js';
 import type { MeasureOptions, Measurement } from '../../redshift/types.js';
-import type { Spectrum } from '../../spectrum/spectrum.js';
+import type { Spectrum, WavelengthMedium } from '../../spectrum/spectrum.js';
 import type { ExportOptions } from '../export-catalogue.js';
 import type { Worklist } from '../worklist.js';
 
@@ -20,7 +20,7 @@ export interface MeasuredFile {
 
 export interface HostServices {
   openWorklist(target: string | string[]): Promise<Worklist>;
-  measureFile(path: string, options: MeasureOptions): Promise<MeasuredFile>;
+  measureFile(path: string, options: MeasureOptions & { medium?: WavelengthMedium }): Promise<MeasuredFile>;
   /** Builds the catalogue from the verdicts in force and writes it atomically; returns the row count. */
   writeCatalogue(worklist: Worklist, format: ExportFormat, path: string, options: Pick<ExportOptions, 'cosmology' | 'site'>): Promise<number>;
   close(): Promise<void>;

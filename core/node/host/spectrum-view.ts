@@ -30,6 +30,7 @@ export function spectrumMetaView(s: Spectrum): SpectrumMetaView {
     exposureS: m.exposureS ?? null,
     mediumInFile: s.provenance.medium,
     mediumReason: s.provenance.mediumReason,
+    mediumSource: s.provenance.mediumSource,
     waveUnitDoubt: s.provenance.waveUnitDoubt,
     velocityFrame: m.velocityFrame,
     velocityFrameReason: m.velocityFrameReason,
