@@ -4,7 +4,7 @@
  * diagnostics) by appending definitions to CATALOGUE_COLUMNS or passing their own list.
  */
 import type { FrameResult } from '../astro/frames.js';
-import type { SpectrumMeta } from '../spectrum/spectrum.js';
+import type { SpectrumMeta, WavelengthMedium } from '../spectrum/spectrum.js';
 import type { HostSummary } from './host-fields.js';
 import type { Cell, ColumnSpec, Table } from './table.js';
 import type { Verdict } from './verdict.js';
@@ -19,6 +19,8 @@ export interface CatalogueSource {
   meta: SpectrumMeta | null;
   /** HDU the reader used (null for text files or unreadable files). */
   hdu: number | null;
+  /** Medium the file's wavelengths were read in (the verdict's, when the user set one), or null when the file could not be read. */
+  medium?: WavelengthMedium | null;
   /** One-line reason the file could not be read, or null. */
   readProblem: string | null;
   /** What was derived from the verdict's z (derived-columns.ts); absent or null = nothing. */
@@ -54,6 +56,7 @@ export const CATALOGUE_COLUMNS: readonly CatalogueColumn[] = [
   { name: 'z', unit: null, type: 'float64', description: 'redshift measured on the file wavelengths (vacuum), in the frame given by z_frame', value: (s) => s.verdict?.z ?? null },
   { name: 'z_err', unit: null, type: 'float64', description: '1-sigma uncertainty of z', value: (s) => s.verdict?.zErr ?? null },
   { name: 'z_frame', unit: null, type: 'string', description: 'frame of the file wavelengths: topocentric, heliocentric, barycentric or unknown', value: (s) => orNull(s.meta?.velocityFrame) },
+  { name: 'medium_in_file', unit: null, type: 'string', description: 'medium the file wavelengths were read in: air (converted to vacuum) or vacuum', value: (s) => s.medium ?? null },
   { name: 'confidence', unit: null, type: 'string', description: 'confidence of the verdict: secure, likely or tentative', value: (s) => s.verdict?.confidence ?? null },
   { name: 'class', unit: null, type: 'string', description: 'object class: galaxy, agn, qso, star or unknown', value: (s) => s.verdict?.objectClass ?? null },
   { name: 'template', unit: null, type: 'string', description: 'template of the chosen candidate', value: (s) => s.verdict?.template ?? null },

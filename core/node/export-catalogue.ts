@@ -42,8 +42,9 @@ export const EXPORT_CAVEAT = 'z is the vetted redshift only where status is acce
 async function sourceOf(worklist: Worklist, spectrum: string, absPath: string, derive: DeriveOptions): Promise<CatalogueSource> {
   const verdict = worklist.journal.current().get(spectrum) ?? null;
   try {
-    const s = await readSpectrumFile(absPath, verdict?.hdu != null ? { hdu: verdict.hdu } : undefined);
-    return { spectrum, verdict, meta: s.meta, hdu: s.provenance.hdu, readProblem: null, derived: deriveForCatalogue(verdict, s, derive) };
+    // Read as when it was vetted: the verdict's z holds for the HDU and the medium it names.
+    const s = await readSpectrumFile(absPath, { ...(verdict?.hdu != null ? { hdu: verdict.hdu } : {}), ...(verdict?.medium ? { medium: verdict.medium } : {}) });
+    return { spectrum, verdict, meta: s.meta, hdu: s.provenance.hdu, medium: s.provenance.medium, readProblem: null, derived: deriveForCatalogue(verdict, s, derive) };
   } catch (err) {
     if (!(err instanceof SpectrumReadError)) throw err;
     return { spectrum, verdict, meta: null, hdu: null, readProblem: err.reason };

@@ -224,6 +224,11 @@ describe('host handlers: verdicts', () => {
     expect((1 + asFile.measurement!.best!.z) / (1 + vacuum.measurement!.best!.z)).toBeCloseTo(6564.61 / 6562.8, 4);
     const { verdict } = await h.saveVerdict(accept(id, vacuum.measurement!.best!.z));
     expect(verdict.medium).toBe('vacuum');
+    // The catalogue reads the file as it was vetted (its host lines are measured on that reading).
+    const csv = readFileSync((await h.exportCatalogue({ format: 'csv', path: join(tmp, 'media.csv') })).path, 'utf8').split('\n').filter((l) => !l.startsWith('#'));
+    const column = csv[0].split(',').indexOf('medium_in_file');
+    const mediumOfRow = (spectrum: string) => csv.find((l) => l.startsWith(`${spectrum},`))!.split(',')[column];
+    expect([mediumOfRow(id), mediumOfRow('KRT-26-0012.fits')]).toEqual(['vacuum', 'air']);
 
     const again = handlers();
     await again.openWorklist({ path: folder });
