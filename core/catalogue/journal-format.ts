@@ -2,10 +2,11 @@
  * The verdict journal's format: one JSON object per line (JSON Lines), appended, never
  * rewritten. Two kinds of record:
  *   {"v":1,"kind":"verdict","verdict":{…Verdict…}}
- *   {"v":1,"kind":"undo","spectrum":"<spectrum of the verdict undone>","time":"<UTC ISO>"}
+ *   {"v":1,"kind":"undo","spectrum":"<spectrum of the verdict undone>","undoes":{"time":…,"user":…},"time":"<UTC ISO>"}
  * Replaying the lines in order gives the verdicts in force: the last verdict per spectrum
- * wins; an undo cancels the most recent verdict still in force (a stack, like the window's
- * undo key). A line that cannot be read is skipped with a warning naming its line number, and
+ * wins; an undo cancels the verdict it names by its spectrum, time and user, so that two
+ * programs writing one journal cannot undo each other's verdicts. An undo without `undoes`
+ * (written before it existed) cancels the most recent verdict still in force (a stack). A line that cannot be read is skipped with a warning naming its line number, and
  * nothing else is lost; a torn last line (power cut during a write) is expected and reported
  * as such.
  */
@@ -13,9 +14,15 @@ import { CONFIDENCES, OBJECT_CLASSES, VERDICT_STATUSES, WAVELENGTH_MEDIA, type V
 
 export const JOURNAL_FORMAT_VERSION = 1;
 
+/** What tells one verdict on a spectrum from another: when it was made, and by whom. */
+export interface VerdictStamp {
+  time: string;
+  user: string;
+}
+
 export type JournalRecord =
   | { kind: 'verdict'; verdict: Verdict }
-  | { kind: 'undo'; spectrum: string; time: string };
+  | { kind: 'undo'; spectrum: string; time: string; undoes?: VerdictStamp };
 
 /** Why a value is not a Verdict, or null when it is one. */
 export function verdictProblem(v: unknown): string | null {
@@ -50,7 +57,7 @@ export function serialiseVerdictRecord(verdict: Verdict): string {
 
 /** One journal line (with its newline) undoing the most recent verdict in force. */
 export function serialiseUndoRecord(undone: Verdict, timeUtc: string): string {
-  return `${JSON.stringify({ v: JOURNAL_FORMAT_VERSION, kind: 'undo', spectrum: undone.spectrum, time: timeUtc })}\n`;
+  return `${JSON.stringify({ v: JOURNAL_FORMAT_VERSION, kind: 'undo', spectrum: undone.spectrum, undoes: { time: undone.time, user: undone.user }, time: timeUtc })}\n`;
 }
 
 /** Reads one line; returns the record or the reason it cannot be used. */
@@ -71,7 +78,10 @@ export function parseRecord(line: string): JournalRecord | { problem: string } {
   }
   if (o.kind === 'undo') {
     if (typeof o.spectrum !== 'string' || typeof o.time !== 'string') return { problem: 'undo record without spectrum and time' };
-    return { kind: 'undo', spectrum: o.spectrum, time: o.time };
+    if (o.undoes === undefined) return { kind: 'undo', spectrum: o.spectrum, time: o.time };
+    const u = o.undoes as Record<string, unknown> | null;
+    if (typeof u !== 'object' || u === null || typeof u.time !== 'string' || typeof u.user !== 'string') return { problem: 'undo record whose "undoes" is not {time, user}' };
+    return { kind: 'undo', spectrum: o.spectrum, time: o.time, undoes: { time: u.time, user: u.user } };
   }
   return { problem: `unknown record kind ${JSON.stringify(o.kind)}` };
 }
@@ -88,9 +98,15 @@ export class JournalState {
     return this.bySpectrum;
   }
 
-  /** The verdict an undo would cancel, or null. */
-  lastInForce(): Verdict | null {
-    return this.stack.length ? this.stack[this.stack.length - 1] : null;
+  /** The most recent verdict in force that `mayUndo` allows (every one by default), or null. */
+  lastInForce(mayUndo: (v: Verdict) => boolean = () => true): Verdict | null {
+    for (let i = this.stack.length - 1; i >= 0; i--) if (mayUndo(this.stack[i])) return this.stack[i];
+    return null;
+  }
+
+  /** Every verdict not undone, oldest first. */
+  verdicts(): readonly Verdict[] {
+    return this.stack;
   }
 
   applyVerdict(v: Verdict): void {
@@ -100,8 +116,20 @@ export class JournalState {
 
   /** Cancels the most recent verdict in force; returns it, or null when there is none. */
   applyUndo(): Verdict | null {
-    const undone = this.stack.pop() ?? null;
-    if (!undone) return null;
+    return this.stack.length ? this.cancel(this.stack.length - 1) : null;
+  }
+
+  /** Cancels the verdict on `spectrum` with this stamp; returns it, or null when it is not in force. */
+  applyUndoOf(spectrum: string, stamp: VerdictStamp): Verdict | null {
+    for (let i = this.stack.length - 1; i >= 0; i--) {
+      const v = this.stack[i];
+      if (v.spectrum === spectrum && v.time === stamp.time && v.user === stamp.user) return this.cancel(i);
+    }
+    return null;
+  }
+
+  private cancel(index: number): Verdict {
+    const [undone] = this.stack.splice(index, 1);
     this.bySpectrum.delete(undone.spectrum);
     for (let i = this.stack.length - 1; i >= 0; i--) {
       if (this.stack[i].spectrum === undone.spectrum) {
@@ -144,6 +172,10 @@ export function replayJournal(text: string, fileName: string): JournalReplay {
     }
     if (record.kind === 'verdict') {
       state.applyVerdict(record.verdict);
+      return;
+    }
+    if (record.undoes) {
+      if (!state.applyUndoOf(record.spectrum, record.undoes)) warnings.push(`${fileName}: line ${number} undoes the verdict on ${record.spectrum} of ${record.undoes.time}, which is not in force; ignored`);
       return;
     }
     const undone = state.applyUndo();

@@ -3,42 +3,71 @@
  * decision and fsync'd before the promise resolves, never rewritten. Each record goes out in a
  * single write() to a file opened for appending, so a crash (power cut, SIGKILL) can at worst
  * leave the last line torn, which replay skips with a warning.
+ *
+ * Another program may append to the same journal (a second window on the worklist): before each
+ * write, and when asked (refresh), a journal whose size is not what this one wrote reads the file
+ * again, so that its verdicts are in force here too; an undo here never cancels one of them.
  */
-import { open, readFile } from 'node:fs/promises';
+import { open, readFile, stat } from 'node:fs/promises';
 import { dirname } from 'node:path';
 import { JournalState, replayJournal, serialiseUndoRecord, serialiseVerdictRecord } from '../catalogue/journal-format.js';
 import type { Verdict } from '../catalogue/verdict.js';
 import { syncFolder } from './atomic-write.js';
 import { describeFailure } from './cli/run-action.js';
 
+/** Said once when another program is found writing to the same journal. */
+export const OTHER_WRITER_WARNING = 'another zvet (or another program) is saving verdicts to this journal too: they show here as well, and undo here takes back only verdicts made here';
+
+/** Identity of a verdict in the journal (an undo names it so). */
+const stampOf = (v: Verdict) => `${v.spectrum}\u0000${v.time}\u0000${v.user}`;
+
 export class VerdictJournal {
   readonly path: string;
   readonly warnings: string[];
-  private readonly state: JournalState;
+  private state: JournalState;
   /** True when the file's last byte is not a newline (torn line, or a failed write). */
   private endsMidLine: boolean;
   private exists: boolean;
+  /** Bytes of the file as last read or written here; another size means another writer. */
+  private size: number;
+  /** Verdicts that another program wrote while this journal was open (stampOf). */
+  private readonly othersVerdicts = new Set<string>();
   private queue: Promise<unknown> = Promise.resolve();
 
-  private constructor(path: string, state: JournalState, warnings: string[], endsMidLine: boolean, exists: boolean) {
+  private constructor(path: string, replay: { state: JournalState; warnings: string[]; endsMidLine: boolean }, size: number | null) {
     this.path = path;
-    this.state = state;
-    this.warnings = warnings;
-    this.endsMidLine = endsMidLine;
-    this.exists = exists;
+    this.state = replay.state;
+    this.warnings = replay.warnings;
+    this.endsMidLine = replay.endsMidLine;
+    this.exists = size !== null;
+    this.size = size ?? 0;
   }
 
   /** Reads the journal if it exists (creating nothing until the first append). */
   static async open(path: string): Promise<VerdictJournal> {
-    let text: string;
-    try {
-      text = await readFile(path, 'utf8');
-    } catch (err) {
-      if ((err as NodeJS.ErrnoException).code !== 'ENOENT') throw new Error(`cannot read the verdict journal: ${describeFailure(err)}`);
-      return new VerdictJournal(path, new JournalState(), [], false, false);
-    }
-    const replay = replayJournal(text, path);
-    return new VerdictJournal(path, replay.state, replay.warnings, replay.endsMidLine, true);
+    const read = await readJournal(path);
+    return read ? new VerdictJournal(path, replayJournal(read.text, path), read.size) : new VerdictJournal(path, { state: new JournalState(), warnings: [], endsMidLine: false }, null);
+  }
+
+  /** Reads the file again if another program has written to it; resolves true when it had. */
+  refresh(): Promise<boolean> {
+    return this.enqueue(() => this.readOthers());
+  }
+
+  private async readOthers(): Promise<boolean> {
+    const size = await stat(this.path).then((s) => s.size, () => null);
+    if (size === null || size === this.size) return false;
+    const read = await readJournal(this.path);
+    if (!read) return false;
+    const known = new Set(this.state.verdicts().map(stampOf));
+    const replay = replayJournal(read.text, this.path);
+    for (const v of replay.state.verdicts()) if (!known.has(stampOf(v))) this.othersVerdicts.add(stampOf(v));
+    this.state = replay.state;
+    this.endsMidLine = replay.endsMidLine;
+    this.size = read.size;
+    this.exists = true;
+    if (!this.warnings.includes(OTHER_WRITER_WARNING)) this.warnings.push(OTHER_WRITER_WARNING);
+    return true;
   }
 
   /** The verdicts in force, by spectrum (path relative to the worklist). */
@@ -50,22 +79,25 @@ export class VerdictJournal {
   append(v: Verdict): Promise<void> {
     const line = serialiseVerdictRecord(v);
     return this.enqueue(async () => {
+      await this.readOthers();
       await this.writeLine(line);
       this.state.applyVerdict(v);
     });
   }
 
   /**
-   * Undoes the most recent verdict in force (appending an undo record); returns the verdict
-   * now in force for that spectrum, or null (also when there was nothing to undo).
+   * Undoes the most recent verdict in force made here, not by another program (appending an
+   * undo record that names it); returns it with the verdict now in force for its spectrum, or
+   * null when there was nothing to undo.
    */
-  undo(): Promise<Verdict | null> {
+  undo(): Promise<{ undone: Verdict; now: Verdict | null } | null> {
     return this.enqueue(async () => {
-      const last = this.state.lastInForce();
+      await this.readOthers();
+      const last = this.state.lastInForce((v) => !this.othersVerdicts.has(stampOf(v)));
       if (!last) return null;
       await this.writeLine(serialiseUndoRecord(last, new Date().toISOString()));
-      this.state.applyUndo();
-      return this.state.current().get(last.spectrum) ?? null;
+      this.state.applyUndoOf(last.spectrum, last);
+      return { undone: last, now: this.state.current().get(last.spectrum) ?? null };
     });
   }
 
@@ -86,6 +118,7 @@ export class VerdictJournal {
         await handle.write(text);
         await handle.sync();
         this.endsMidLine = false;
+        this.size += Buffer.byteLength(text);
       } finally {
         await handle.close();
       }
@@ -94,9 +127,22 @@ export class VerdictJournal {
         this.exists = true;
       }
     } catch (err) {
+      // Part of the line may have reached the disk: those bytes are this journal's own, not another writer's.
+      this.size = await stat(this.path).then((s) => s.size, () => this.size);
       const e = err as NodeJS.ErrnoException;
       if (typeof e.path !== 'string') e.path = this.path;
       throw new Error(`the verdict was not saved: ${describeFailure(e)}`);
     }
+  }
+}
+
+/** The journal's text and size in bytes, or null when there is no journal yet. */
+async function readJournal(path: string): Promise<{ text: string; size: number } | null> {
+  try {
+    const bytes = await readFile(path);
+    return { text: bytes.toString('utf8'), size: bytes.length };
+  } catch (err) {
+    if ((err as NodeJS.ErrnoException).code === 'ENOENT') return null;
+    throw new Error(`cannot read the verdict journal: ${describeFailure(err)}`);
   }
 }

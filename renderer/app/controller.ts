@@ -2,7 +2,7 @@
  * The window's behaviour: what each key, button and click does to the state, which host calls
  * it makes, and what is redrawn. Panels only draw; this is the one place that decides.
  */
-import type { ExportFormat, HostApi, RemeasureOptions, SpectrumView, VerdictInput } from '../../core/api/host-api.js';
+import type { ExportFormat, HostApi, RemeasureOptions, SpectrumView, VerdictInput, WorklistState } from '../../core/api/host-api.js';
 import type { Confidence, ObjectClass, Verdict } from '../../core/catalogue/verdict.js';
 import type { FrameResult } from '../../core/astro/frames.js';
 import type { HostAnalysis } from '../../core/hosts/analyse.js';
@@ -126,15 +126,18 @@ export class Controller {
     this.pollSuggestions();
   }
 
-  /** While the host measures in the background, refresh the list now and then so suggestions appear. */
+  /**
+   * Refreshes the list now and then: often while the host measures in the background, so that
+   * suggestions appear, then every LONGEST_POLL_MS, so that verdicts another window saves to the
+   * same journal appear too. A verdict still on its way to the journal from here stays as it is.
+   */
   private pollSuggestions(): void {
     if (this.pollTimer) clearTimeout(this.pollTimer);
-    const waiting = this.s.worklist?.items.some((it) => !it.suggestion && !it.error && !it.verdict);
-    if (!waiting) return;
+    if (!this.s.worklist) return;
     this.pollTimer = setTimeout(async () => {
       try {
         const fresh = await this.api.listSpectra({});
-        if (this.s.worklist) this.s.worklist = { ...fresh, items: fresh.items.map((it) => ({ ...it, verdict: this.itemOf(it.id)?.verdict ?? it.verdict })) };
+        if (this.s.worklist && this.s.worklist.root === fresh.root) this.adoptList(fresh);
         this.view.panels(this.s);
       } catch {
         // The next poll tries again; a host that is gone shows on the next real call.
@@ -142,6 +145,14 @@ export class Controller {
       this.pollDelayMs = Math.min(LONGEST_POLL_MS, 1.5 * this.pollDelayMs);
       this.pollSuggestions();
     }, this.pollDelayMs);
+  }
+
+  private adoptList(fresh: WorklistState): void {
+    const saving = new Set(this.queue.pending.map((q) => q.input.id));
+    this.s.worklist = { ...fresh, items: fresh.items.map((it) => (saving.has(it.id) ? { ...it, verdict: this.itemOf(it.id)?.verdict ?? it.verdict } : it)) };
+    const v = this.s.view;
+    const now = v && this.itemOf(v.id);
+    if (v && now && !saving.has(v.id) && JSON.stringify(now.verdict) !== JSON.stringify(v.verdict)) this.s.view = { ...v, verdict: now.verdict };
   }
 
   private itemOf(id: string) {

@@ -11,6 +11,7 @@ import { createHostHandlers, type HostHandlers } from '../../core/node/host/hand
 import { HostFailure } from '../../core/node/host/host-failure';
 import type { HostServices } from '../../core/node/host/services';
 import { SettingsStore } from '../../core/node/host/settings-store';
+import { OTHER_WRITER_WARNING } from '../../core/node/journal';
 import { DEMO_WORKLIST, ROOT } from '../support/paths';
 
 const NOW = new Date('2026-03-14T09:30:00.000Z');
@@ -239,6 +240,22 @@ describe('host handlers: verdicts', () => {
     // Back to what the file says: the next verdict carries no medium.
     await again.remeasure({ id, options: {} });
     expect((await again.saveVerdict(accept(id, asFile.measurement!.best!.z))).verdict).not.toHaveProperty('medium');
+  });
+
+  it('lists the verdicts another window saves to the same journal, says so, and undoes only its own', async () => {
+    const here = handlers();
+    const there = handlers();
+    await here.openWorklist({ path: folder });
+    await there.openWorklist({ path: folder });
+    await here.saveVerdict(accept('KRT-26-0011.fits', 0.04823));
+    const { verdict: theirs } = await there.saveVerdict(accept('KRT-26-0012.fits', 0.13752));
+    const listed = await here.listSpectra({});
+    expect(listed.items.find((i) => i.id === 'KRT-26-0012.fits')!.verdict).toEqual(theirs);
+    expect(listed.warnings).toContain(OTHER_WRITER_WARNING);
+    expect(await here.undoLast({})).toEqual({ id: 'KRT-26-0011.fits', verdict: null });
+    expect(await here.undoLast({})).toEqual({ id: null, verdict: null });
+    const after = await there.listSpectra({});
+    expect(after.items.filter((i) => i.verdict).map((i) => i.id)).toEqual(['KRT-26-0012.fits']);
   });
 
   it('undoes the last verdict and says which spectrum it was', async () => {

@@ -1,5 +1,5 @@
-// The verdict journal: replay rules (last verdict wins, undo is a stack, torn and garbled lines
-// skipped with warnings) and the file behaviour (fsync'd appends in order, nothing created
+// The verdict journal: replay rules (last verdict wins, an undo cancels the verdict it names, torn
+// and garbled lines skipped with warnings) and the file behaviour (fsync'd appends in order, nothing created
 // before the first verdict, memory unchanged when the disk refuses a write).
 import { afterAll, describe, expect, it } from 'vitest';
 import { mkdtempSync, readFileSync, rmSync, symlinkSync, writeFileSync, existsSync } from 'node:fs';
@@ -7,7 +7,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { replayJournal, serialiseUndoRecord, serialiseVerdictRecord } from '../../core/catalogue/journal-format.js';
 import type { Verdict } from '../../core/catalogue/verdict.js';
-import { VerdictJournal } from '../../core/node/journal.js';
+import { OTHER_WRITER_WARNING, VerdictJournal } from '../../core/node/journal.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'zvet-journal-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -72,7 +72,24 @@ describe('journal format', () => {
     lines.push(serialiseUndoRecord(a1, 't'));
     const r = replayJournal(lines.join(''), 'j');
     expect(zOf(r.state.current())).toEqual({});
-    expect(r.warnings).toEqual(['j: line 7 undoes a verdict but none is in force; ignored']);
+    expect(r.warnings).toEqual(['j: line 7 undoes the verdict on a.fits of 2026-03-14T12:00:00.000Z, which is not in force; ignored']);
+  });
+
+  it('an undo cancels the verdict it names, so that two programs writing one journal never undo each other', () => {
+    const mine = verdict('a.fits', 0.1, { user: 'observer' });
+    const theirs = verdict('b.fits', 0.2, { user: 'colleague', time: '2026-03-14T12:00:01.000Z' });
+    const text = [serialiseVerdictRecord(mine), serialiseVerdictRecord(theirs), serialiseUndoRecord(mine, 't')].join('');
+    const r = replayJournal(text, 'j');
+    expect(zOf(r.state.current())).toEqual({ 'b.fits': 0.2 });
+    expect(r.warnings).toEqual([]);
+  });
+
+  it('replays an undo written without the verdict it undoes (older journals) as the undo of the latest verdict', () => {
+    const legacyUndo = (spectrum: string) => `${JSON.stringify({ v: 1, kind: 'undo', spectrum, time: 't' })}\n`;
+    const text = [serialiseVerdictRecord(verdict('a.fits', 0.1)), serialiseVerdictRecord(verdict('b.fits', 0.2)), legacyUndo('b.fits'), legacyUndo('a.fits'), legacyUndo('a.fits')].join('');
+    const r = replayJournal(text, 'j');
+    expect(zOf(r.state.current())).toEqual({});
+    expect(r.warnings).toEqual(['j: line 5 undoes a verdict but none is in force; ignored']);
   });
 
   it('skips a torn last line with a warning and keeps everything before it', () => {
@@ -140,14 +157,37 @@ describe('VerdictJournal on disk', () => {
     expect(await j.undo()).toBeNull();
     expect(existsSync(path)).toBe(false);
     await j.append(verdict('a.fits', 0.1));
-    await j.append(verdict('a.fits', 0.2));
-    expect((await j.undo())?.z).toBe(0.1);
-    expect(await j.undo()).toBeNull();
+    await j.append(verdict('a.fits', 0.2, { time: '2026-03-14T12:00:01.000Z' }));
+    expect(await j.undo()).toMatchObject({ undone: { z: 0.2 }, now: { z: 0.1 } });
+    expect(await j.undo()).toMatchObject({ undone: { z: 0.1 }, now: null });
     expect(await j.undo()).toBeNull();
     expect(j.current().size).toBe(0);
     const again = await VerdictJournal.open(path);
     expect(again.warnings).toEqual([]);
     expect(again.current().size).toBe(0);
+  });
+
+  it('two journals open on one file (two windows on one worklist) see each other\'s verdicts and undo only their own', async () => {
+    const path = freshPath();
+    const here = await VerdictJournal.open(path);
+    const there = await VerdictJournal.open(path);
+    await here.append(verdict('a.fits', 0.1, { time: '2026-03-14T12:00:00.000Z' }));
+    await there.append(verdict('b.fits', 0.2, { time: '2026-03-14T12:00:01.000Z', user: 'colleague' }));
+    expect(await here.refresh()).toBe(true);
+    expect(zOf(here.current())).toEqual({ 'a.fits': 0.1, 'b.fits': 0.2 });
+    expect(here.warnings).toEqual([OTHER_WRITER_WARNING]);
+    expect(await here.refresh()).toBe(false);
+    // The latest verdict in force is the other window's; undo here takes back this window's own.
+    expect(await here.undo()).toMatchObject({ undone: { spectrum: 'a.fits' }, now: null });
+    expect(zOf(here.current())).toEqual({ 'b.fits': 0.2 });
+    expect(await here.undo()).toBeNull();
+    expect(zOf(here.current())).toEqual({ 'b.fits': 0.2 });
+    // The other window learns of the undo before its next write, and the file replays to the same.
+    await there.append(verdict('c.fits', 0.3, { time: '2026-03-14T12:00:02.000Z', user: 'colleague' }));
+    expect(zOf(there.current())).toEqual({ 'b.fits': 0.2, 'c.fits': 0.3 });
+    const reopened = await VerdictJournal.open(path);
+    expect(reopened.warnings).toEqual([]);
+    expect(zOf(reopened.current())).toEqual({ 'b.fits': 0.2, 'c.fits': 0.3 });
   });
 
   it('serialises concurrent appends: every line whole, memory equal to the replayed file', async () => {

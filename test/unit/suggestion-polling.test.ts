@@ -1,29 +1,33 @@
 // While the host measures a worklist in the background, the window asks for the list again:
 // soon at first, so a night's suggestions appear within a second or two, then less often, so a
-// long batch is not re-listed many times a second. Runs the controller on fake timers against
-// a stub host; no wall-clock time is measured.
+// long batch is not re-listed many times a second, and on every 2.5 s so that verdicts another
+// window saves to the same journal appear. Runs the controller on fake timers against a stub
+// host; no wall-clock time is measured.
 import { afterEach, beforeEach, expect, it, vi } from 'vitest';
 import type { HostApi, SpectrumListItem, WorklistState } from '../../core/api/host-api.js';
+import type { Verdict } from '../../core/catalogue/verdict.js';
 import { Controller, type View } from '../../renderer/app/controller.js';
 
 const ids = ['a.fits', 'b.fits', 'c.fits'];
 
-function listing(measured: boolean): WorklistState {
-  const items: SpectrumListItem[] = ids.map((id) => ({ id, verdict: null, error: null, suggestion: measured ? { z: 0.1, zErr: 1e-4, confidence: 'secure', template: 'passive' } : null }));
+const othersVerdict: Verdict = { spectrum: 'b.fits', hdu: null, status: 'accepted', z: 0.1, zErr: 1e-4, confidence: 'secure', objectClass: 'galaxy', template: 'passive', note: '', time: '2026-03-14T03:00:00.000Z', user: 'colleague' };
+
+function listing(measured: boolean, othersSaved = false): WorklistState {
+  const items: SpectrumListItem[] = ids.map((id) => ({ id, verdict: othersSaved && id === 'b.fits' ? othersVerdict : null, error: null, suggestion: measured ? { z: 0.1, zErr: 1e-4, confidence: 'secure', template: 'passive' } : null }));
   return { root: '/night', name: 'night', journalPath: '/night/night.verdicts.jsonl', items, warnings: [] };
 }
 
-/** A host whose background measuring ends after `listsUntilMeasured` list calls; records when each came. */
-function stubHost(listsUntilMeasured: number) {
+/** A host whose background measuring ends after `listsUntilMeasured` list calls (and another window saves a verdict on b.fits after `listsUntilOthersSave`); records when each came. */
+function stubHost(listsUntilMeasured: number, listsUntilOthersSave = Infinity) {
   const listedAt: number[] = [];
   const unused = () => Promise.reject(new Error('not used in this test'));
   const api = new Proxy({}, {
     get: (_t, name: string) => {
       if (name === 'listSpectra') return () => {
         listedAt.push(Date.now());
-        return Promise.resolve(listing(listedAt.length > listsUntilMeasured));
+        return Promise.resolve(listing(listedAt.length > listsUntilMeasured, listedAt.length > listsUntilOthersSave));
       };
-      if (name === 'loadSpectrum') return ({ id }: { id: string }) => Promise.resolve({ id, arrays: null, meta: null, measurement: null, templateModel: null, verdict: null, error: `${id}: not read in this test` });
+      if (name === 'loadSpectrum') return ({ id }: { id: string }) => Promise.resolve({ id, arrays: null, meta: null, measurement: null, templateModel: null, verdict: null, error: `${id}: not read in this test`, measuredWith: {} });
       return unused;
     },
   }) as HostApi;
@@ -42,7 +46,7 @@ afterEach(() => {
   vi.unstubAllGlobals();
 });
 
-it('asks for the list again after 0.4 s, then each time 1.5 times later, at most every 2.5 s, and stops once all are measured', async () => {
+it('asks for the list again after 0.4 s, then each time 1.5 times later, then every 2.5 s', async () => {
   const { api, listedAt } = stubHost(8);
   void new Controller(api, view).start();
   await vi.advanceTimersByTimeAsync(30_000);
@@ -51,9 +55,22 @@ it('asks for the list again after 0.4 s, then each time 1.5 times later, at most
   expect(first).toBeGreaterThanOrEqual(400);
   expect(first).toBeLessThan(450);
   const gaps = listedAt.slice(2).map((t, i) => t - listedAt[i + 1]);
-  expect(gaps).toEqual([600, 900, 1350, 2025, 2500, 2500, 2500]);
-  // the ninth list had every suggestion: no more polling
-  expect(listedAt).toHaveLength(9);
+  expect(gaps.slice(0, 7)).toEqual([600, 900, 1350, 2025, 2500, 2500, 2500]);
+  // Once every suggestion is in, the list is still asked for every 2.5 s.
+  expect(gaps.length).toBeGreaterThan(10);
+  expect(new Set(gaps.slice(4))).toEqual(new Set([2500]));
+});
+
+it("shows a verdict another window saved, on the list and on the spectrum in view", async () => {
+  const { api } = stubHost(2, 4);
+  const controller = new Controller(api, view);
+  void controller.start();
+  await vi.advanceTimersByTimeAsync(1000);
+  expect(controller.s.worklist!.items.find((it) => it.id === 'b.fits')!.verdict).toBeNull();
+  void controller.show('b.fits');
+  await vi.advanceTimersByTimeAsync(10_000);
+  expect(controller.s.worklist!.items.find((it) => it.id === 'b.fits')!.verdict).toEqual(othersVerdict);
+  expect(controller.s.view!.verdict).toEqual(othersVerdict);
 });
 
 it('starts again at 0.4 s when another worklist is opened', async () => {

@@ -142,7 +142,10 @@ class Handlers implements HostHandlers {
   }
 
   async listSpectra(): Promise<WorklistState> {
-    return this.state(this.requireSession());
+    const s = this.requireSession();
+    // Verdicts another window saved to the same journal are in force here too.
+    await s.worklist.journal.refresh();
+    return this.state(s);
   }
 
   private state(s: Session, extra: string[] = []): WorklistState {
@@ -323,16 +326,12 @@ class Handlers implements HostHandlers {
       return { id, verdict: this.verdictsInForce(s).get(id) ?? null };
     }
     await this.writing;
-    const before = new Map(s.worklist.journal.current());
-    let verdict: Verdict | null;
     try {
-      verdict = await s.worklist.journal.undo();
+      const undo = await s.worklist.journal.undo();
+      return undo ? { id: undo.undone.spectrum, verdict: undo.now } : { id: null, verdict: null };
     } catch (err) {
       throw new HostFailure(503, `undo not saved: ${describeFailure(err)}`);
     }
-    const after = s.worklist.journal.current();
-    const id = [...new Set([...before.keys(), ...after.keys()])].find((k) => before.get(k) !== after.get(k)) ?? null;
-    return { id, verdict };
   }
 
   // ---- export and settings -----------------------------------------------------------------
