@@ -28,6 +28,13 @@ describe('zvet lines', () => {
     expect(r.stdout).toMatch(/Halpha/);
   });
 
+  it('reads the wavelengths as --air says: the vacuum SDSS spectrum taken as air puts Hα 83 km/s redder (Morton 1991: 6562.80 Å air is 6564.61 Å vacuum)', () => {
+    const halpha = (...flags: string[]) => JSON.parse(run('lines', SF, '--z', '0.0178204', '--json', ...flags).stdout).lines.find((l: { name: string }) => l.name === 'Halpha');
+    const shift = halpha('--air').velocity_offset_kms - halpha().velocity_offset_kms;
+    expect(shift).toBeCloseTo((6564.61 / 6562.8 - 1) * 299792.458, 0);
+    expect(run('lines', SF, '--z', '0.0178204', '--air', '--vacuum').stderr).toBe('zvet: --air and --vacuum exclude each other\n');
+  });
+
   it('ends bad input with one line and exit code 2', () => {
     const bad = run('lines', SF, '--z', 'abc');
     expect(bad.status).toBe(2);

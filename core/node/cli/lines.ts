@@ -1,6 +1,6 @@
 /**
  * `zvet lines FILE --z Z [--json] [--hdu N] [--preset NAME] [--curve calzetti2000|ccm89]
- * [--instrumental-fwhm Å] [--site NAME]`: emission-line fluxes, equivalent widths and widths at a
+ * [--instrumental-fwhm Å] [--site NAME] [--air|--vacuum]`: emission-line fluxes, equivalent widths and widths at a
  * given redshift, the diagnostic-diagram classes, the Balmer decrement and the Hα star-formation
  * rate, with the luminosity distance at the CMB-frame z where the header allows that correction.
  */
@@ -12,12 +12,13 @@ import { maxInstrumentalFwhmAngstrom } from '../../hosts/measure-lines.js';
 import { distanceBasis } from '../../hosts/sfr.js';
 import { readSpectrumFile } from '../read-spectrum-file.js';
 import { modelFromOptions } from './cosmo.js';
+import { mediumOption, withMediumOptions, type MediumFlags } from './medium-option.js';
 import { numberOption } from './number-option.js';
 import { runAction } from './run-action.js';
 import { SITE_OPTION_HELP, siteOption } from './site-option.js';
 import { UsageError } from './usage-error.js';
 
-interface LinesOptions {
+interface LinesOptions extends MediumFlags {
   z: string;
   json?: boolean;
   hdu?: string;
@@ -30,7 +31,7 @@ interface LinesOptions {
 const CURVES: AttenuationCurve[] = ['calzetti2000', 'ccm89'];
 
 export function registerLines(program: Command): void {
-  program
+  const command = program
     .command('lines')
     .description('measure emission lines at a redshift; classify the host (BPT, [S II], [O I]); dust and Hα SFR')
     .argument('<file>', 'spectrum file (FITS or text)')
@@ -40,8 +41,10 @@ export function registerLines(program: Command): void {
     .option('--preset <name>', 'cosmology for the luminosity distance (planck18, round70; default planck18)')
     .option('--curve <name>', `attenuation curve: ${CURVES.join(', ')} (default calzetti2000)`)
     .option('--instrumental-fwhm <angstrom>', 'instrumental FWHM in observed Å, removed from the line widths')
-    .option('--site <name>', SITE_OPTION_HELP)
+    .option('--site <name>', SITE_OPTION_HELP);
+  withMediumOptions(command, "the file's")
     .action(runAction(async (file: string, opts: LinesOptions) => {
+      const medium = mediumOption(opts);
       const z = numberOption('--z', opts.z, 0);
       const hdu = opts.hdu === undefined ? undefined : numberOption('--hdu', opts.hdu, 0);
       if (hdu !== undefined && !Number.isInteger(hdu)) throw new UsageError(`--hdu: "${opts.hdu}" is not an HDU number (0 = primary)`);
@@ -53,7 +56,7 @@ export function registerLines(program: Command): void {
         throw new UsageError(`--instrumental-fwhm: ${opts.instrumentalFwhm} Å is wider than the line fit can work with at z = ${z} (at most ${widest.fwhmAngstrom.toFixed(1)} Å, a third of the narrowest fit window: ${widest.window})`);
       }
       const cosmology = modelFromOptions({ preset: opts.preset });
-      const spectrum = await readSpectrumFile(file, { hdu });
+      const spectrum = await readSpectrumFile(file, { hdu, medium });
       const frames = framesOrNull({ zObs: z, meta: spectrum.meta, site: siteOption(opts.site), cosmology });
       const analysis = analyseHost(spectrum, z, { cosmology, attenuation: curve, instrumentalFwhmAngstrom, frames });
       process.stdout.write(opts.json ? `${JSON.stringify({ file, ...analysis })}\n` : formatAnalysis(file, analysis));
