@@ -56,17 +56,27 @@ export class VerdictJournal {
 
   private async readOthers(): Promise<boolean> {
     const size = await stat(this.path).then((s) => s.size, () => null);
-    if (size === null || size === this.size) return false;
-    const read = await readJournal(this.path);
-    if (!read) return false;
-    const known = new Set(this.state.verdicts().map(stampOf));
+    if ((size ?? 0) === this.size) return false;
+    const read = (await readJournal(this.path)) ?? { text: '', size: 0 };
     const replay = replayJournal(read.text, this.path);
+    const inFile = new Set(replay.state.verdicts().map(stampOf));
+    const known = new Set(this.state.verdicts().map(stampOf));
+    const shrank = read.size < this.size;
+    // Verdicts made here that the file no longer holds (it was replaced, cut short or deleted).
+    const lost = shrank ? this.state.verdicts().filter((v) => !inFile.has(stampOf(v)) && !this.othersVerdicts.has(stampOf(v))) : [];
     for (const v of replay.state.verdicts()) if (!known.has(stampOf(v))) this.othersVerdicts.add(stampOf(v));
     this.state = replay.state;
     this.endsMidLine = replay.endsMidLine;
     this.size = read.size;
-    this.exists = true;
-    if (!this.warnings.includes(OTHER_WRITER_WARNING)) this.warnings.push(OTHER_WRITER_WARNING);
+    this.exists = size !== null;
+    if (shrank) {
+      for (const v of lost) {
+        await this.writeLine(serialiseVerdictRecord(v));
+        this.state.applyVerdict(v);
+      }
+      const n = lost.length;
+      this.warnings.push(`the journal was ${size === null ? 'deleted' : 'cut short or replaced'} by another program while open here; ${n === 0 ? 'no verdict made here was lost' : `the ${n} verdict${n === 1 ? '' : 's'} made here that it no longer held ${n === 1 ? 'was' : 'were'} written to it again`}`);
+    } else if (!this.warnings.includes(OTHER_WRITER_WARNING)) this.warnings.push(OTHER_WRITER_WARNING);
     return true;
   }
 

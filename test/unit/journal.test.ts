@@ -190,6 +190,26 @@ describe('VerdictJournal on disk', () => {
     expect(zOf(reopened.current())).toEqual({ 'b.fits': 0.2, 'c.fits': 0.3 });
   });
 
+  it('writes back the verdicts made here when another program cuts the journal short or deletes it', async () => {
+    const path = freshPath();
+    const j = await VerdictJournal.open(path);
+    const [a, b, c] = ([['a.fits', 0.1], ['b.fits', 0.2], ['c.fits', 0.3]] as const).map(([s, z], i) => verdict(s, z, { time: `2026-03-14T12:00:0${i}.000Z` }));
+    await j.append(a);
+    await j.append(b);
+    // A sync tool puts back an older copy that holds only the first line.
+    writeFileSync(path, readFileSync(path, 'utf8').split('\n')[0] + '\n');
+    expect(await j.refresh()).toBe(true);
+    expect(zOf(j.current())).toEqual({ 'a.fits': 0.1, 'b.fits': 0.2 });
+    expect(j.warnings.at(-1)).toBe('the journal was cut short or replaced by another program while open here; the 1 verdict made here that it no longer held was written to it again');
+    expect(zOf((await VerdictJournal.open(path)).current())).toEqual({ 'a.fits': 0.1, 'b.fits': 0.2 });
+    rmSync(path);
+    await j.append(c);
+    expect(j.warnings.at(-1)).toBe('the journal was deleted by another program while open here; the 2 verdicts made here that it no longer held were written to it again');
+    const reopened = await VerdictJournal.open(path);
+    expect(reopened.warnings).toEqual([]);
+    expect(zOf(reopened.current())).toEqual({ 'a.fits': 0.1, 'b.fits': 0.2, 'c.fits': 0.3 });
+  });
+
   it('serialises concurrent appends: every line whole, memory equal to the replayed file', async () => {
     const path = freshPath();
     const j = await VerdictJournal.open(path);
