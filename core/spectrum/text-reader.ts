@@ -1,5 +1,6 @@
 /**
- * Plain-text spectra: whitespace-, comma- or tab-separated columns, '#' comments, an optional
+ * Plain-text spectra: whitespace-, comma-, semicolon- or tab-separated columns (with ';', as
+ * spreadsheets write in locales whose decimal mark is a comma, '6563,2' is 6563.2), '#' comments, an optional
  * header row naming the columns (with units: 'wave_A', 'wavelength[nm]', 'lambda (um)'),
  * columns read as wavelength (or log10 λ/Å in a column named loglam), flux, error (σ, or
  * ivar/variance/S/N when the header says so) and mask: 2–4 by position, any number when named. Comment lines 'KEY = value' or 'KEY: value' are kept as header cards, so that
@@ -62,9 +63,9 @@ export function readTextSpectrum(bytes: Uint8Array, fileName: string): SpectrumD
       }
       continue;
     }
-    delimiter ??= line.includes(',') ? /\s*,\s*/ : line.includes('\t') ? /\s*\t\s*/ : /\s+/;
+    delimiter ??= line.includes(';') ? SEMICOLON : line.includes(',') ? /\s*,\s*/ : line.includes('\t') ? /\s*\t\s*/ : /\s+/;
     const fields = line.split(delimiter);
-    const numbers = fields.map(parseNumber);
+    const numbers = fields.map(delimiter === SEMICOLON ? parseDecimalCommaNumber : parseNumber);
     if (ncols === 0) {
       if (numbers.some((v) => v === null)) {
         if (headerRow) fail(`line ${ln + 1}: '${line.slice(0, 40)}' is neither a header row nor numbers`);
@@ -143,6 +144,13 @@ export function readTextSpectrum(bytes: Uint8Array, fileName: string): SpectrumD
     meta: metadataOf(keywords),
     header: cards.map((c) => ({ key: c.key, value: c.value })),
   };
+}
+
+const SEMICOLON = /\s*;\s*/;
+
+/** A number whose decimal mark may be a comma ('6563,25', '-1,5e-17'), as beside semicolon separators. */
+function parseDecimalCommaNumber(field: string): number | null {
+  return parseNumber(/^\s*[+-]?\d*,\d+([eE][+-]?\d+)?\s*$|^\s*[+-]?\d+,\s*$/.test(field) ? field.replace(',', '.') : field);
 }
 
 function parseNumber(field: string): number | null {

@@ -23,6 +23,14 @@ describe('text spectra', () => {
     expect(s.provenance.waveUnitInFile).toBe('Å');
     expect(s.error[4]).toBe(0.5);
   });
+  it('semicolon-separated, as spreadsheets write where the decimal mark is a comma: 6563,25 is 6563.25', () => {
+    const comma = readSpectrum(enc(`# AIRORVAC = vac\nwave;flux;err\n${rows(12, (i) => `${6000 + i},25;${i},5;1,5e-1`)}\n`), 'a.csv');
+    expect(comma.waveAngstrom[1]).toBe(6001.25);
+    expect(comma.flux[3]).toBe(3.5);
+    expect(comma.error[0]).toBe(0.15);
+    const point = readSpectrum(enc(`# AIRORVAC = vac\n${rows(12, (i) => `${6000 + i}.25 ; ${i}.5`)}\n`), 'b.csv');
+    expect([point.waveAngstrom[1], point.flux[3]]).toEqual([6001.25, 3.5]);
+  });
   it('TSV with wavelength[nm], ivar column, and KEY = value comments as header cards', () => {
     const text = `# OBJECT = KRT-26-0017\n# AIRORVAC = vac\n# RA = 150.1\n# DEC = 2.2\nwavelength[nm]\tflux\tivar\n${rows(12, (i) => `${400 + i}\t${i + 1}\t4`)}\n`;
     const s = readSpectrum(enc(text), 'a.tsv');
