@@ -44,6 +44,7 @@ function centreBoxes(page: Page) {
       xTitle: box('#spectrum-plot .xtitle'),
       legend: box('#spectrum-plot .legend'),
       controls: box('#plot-controls'),
+      correlation: box('#correlation-plot .main-svg'),
       candidatesOverflowPx: candidates.scrollWidth - candidates.clientWidth,
     };
   });
@@ -74,6 +75,8 @@ async function expectLaidOut(page: Page): Promise<void> {
   expect(b.legend.top, 'the legend sits below the axis title').toBeGreaterThanOrEqual(b.xTitle.bottom - 1);
   expect(b.legend.bottom, 'and inside the figure').toBeLessThanOrEqual(b.svg.bottom + 1);
   expect(b.candidatesOverflowPx, 'the candidates table fits its panel').toBeLessThanOrEqual(0);
+  // Narrower, its peaks and z axis cannot be read (at 1280 × 720 with the host panel it was 104 px).
+  expect(b.correlation.width, 'the correlation plot keeps a readable width').toBeGreaterThanOrEqual(180);
   // Label rows have a fixed height in px: a short plot gets fewer rows, not rows that overlap.
   await expect.poll(() => overlappingLabels(page), { timeout: 5_000 }).toEqual([]);
 }
@@ -104,6 +107,15 @@ it('fits the plots again when the window is resized', async () => {
   await win.page.setViewportSize({ width: 1600, height: 1000 });
   await expect.poll(async () => (await centreBoxes(win.page)).plotBox.width).toBeGreaterThan(700);
   await expectLaidOut(win.page);
+});
+
+it('keeps the correlation readable on a 1280 × 720 screen (1920 × 1080 at 150 %) with the host panel open', async () => {
+  await win.page.setViewportSize({ width: 1280, height: 720 });
+  if (!(await win.page.locator('.layout.wide-side').count())) await win.page.keyboard.press('h');
+  await expect.poll(() => win.page.locator('.layout.wide-side').count()).toBe(1);
+  await expectLaidOut(win.page);
+  await win.page.screenshot({ path: join(ROOT, 'test-artifacts', 'small-screen-host.png') });
+  await win.page.setViewportSize({ width: 1366, height: 768 });
 });
 
 it('keeps the spectrum plot in place while the first spectrum loads', async () => {
