@@ -23,6 +23,8 @@ export function renderSpectrumTitle(state: AppState, box: HTMLElement, move: (ac
         meta.dateObsUtc ? el('span', {}, `${readableUtc(meta.dateObsUtc)} UTC${meta.exposureS ? `, ${meta.exposureS} s` : ''}`) : null,
       ].filter((f) => f !== null)
     : [];
+  // Warnings first, so that an ellipsis on a narrow window never hides them.
+  facts.sort((a, b) => Number(b.classList.contains('warn')) - Number(a.classList.contains('warn')));
   // One line of facts under the name; on a narrow window it ends in an ellipsis, the whole text in its tooltip.
   // Kept (blank) while the file loads, so that the plot below does not move when the facts arrive.
   const factLine = el('span', { class: 'facts' }, ...(facts.length ? facts.flatMap((f, i) => (i === 0 ? [f] : [' · ', f])) : ['\u00a0']));
