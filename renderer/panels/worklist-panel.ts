@@ -1,7 +1,7 @@
 /** The worklist column: filters, one row per spectrum (status, z, confidence, class), progress. */
 import type { SpectrumListItem, WorklistState } from '../../core/api/host-api.js';
 import type { AppState } from '../app/state.js';
-import { SPECTRUM_EXTENSIONS } from '../../core/spectrum/file-extensions.js';
+import { PLAIN_SPECTRUM_EXTENSIONS } from '../../core/spectrum/file-extensions.js';
 import { el, fill } from '../ui/dom.js';
 import { confidenceText, fmtZ } from '../ui/format.js';
 import { FILTERS, passesFilter, progress, type WorklistFilter } from '../state/worklist-view.js';
@@ -71,6 +71,6 @@ export function renderWorklist(state: AppState, parts: { filters: HTMLElement; i
 }
 
 function emptyListText(wl: WorklistState, filter: WorklistFilter): string {
-  if (wl.items.length === 0) return `no spectrum files in ${wl.root}: zvet lists the files ending in ${SPECTRUM_EXTENSIONS.join(' ')} in the folder and its subfolders`;
+  if (wl.items.length === 0) return `no spectrum files in ${wl.root}: zvet lists the files ending in ${PLAIN_SPECTRUM_EXTENSIONS.join(' ')} (each also with .gz) in the folder and its subfolders`;
   return `no spectra are ${filter}`;
 }

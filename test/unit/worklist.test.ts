@@ -9,7 +9,7 @@ import { Worklist } from '../../core/node/worklist.js';
 const base = mkdtempSync(join(tmpdir(), 'zvet-worklist-'));
 const night = join(base, 'night-a');
 mkdirSync(join(night, 'red'), { recursive: true });
-for (const f of ['b.fits', 'a.csv', 'red/c.fits.gz', 'notes.md', 'night-a.verdicts.jsonl']) writeFileSync(join(night, f), '');
+for (const f of ['b.fits', 'a.csv', 'red/c.fits.gz', 'red/d.txt.gz', 'notes.md', 'night-a.verdicts.jsonl']) writeFileSync(join(night, f), '');
 afterAll(() => rmSync(base, { recursive: true, force: true }));
 
 describe('Worklist.open', () => {
@@ -19,7 +19,7 @@ describe('Worklist.open', () => {
     expect(w.name).toBe('night-a');
     expect(w.journalPath).toBe(join(night, 'night-a.verdicts.jsonl'));
     expect(w.journal.path).toBe(w.journalPath);
-    expect(w.entries.map((e) => e.spectrum)).toEqual(['a.csv', 'b.fits', 'red/c.fits.gz']);
+    expect(w.entries.map((e) => e.spectrum)).toEqual(['a.csv', 'b.fits', 'red/c.fits.gz', 'red/d.txt.gz']);
     expect(w.entries[2].absPath).toBe(join(night, 'red', 'c.fits.gz'));
   });
 
