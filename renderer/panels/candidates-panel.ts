@@ -26,7 +26,7 @@ export function renderCandidates(state: AppState, box: HTMLElement, onTry: (inde
       el('td', { class: 'num' }, `${Math.round(100 * c.overlap)} %`)));
   fill(box,
     el('div', { class: 'panel-head' }, el('h2', {}, 'Candidates'), el('span', { class: 'nowrap' }, 'suggested:'), m.confidence === 'none' ? el('span', {}, 'none credible') : confidenceBadge(m.confidence), el('span', { class: 'nowrap' }, `· ${m.nLines} lines`),
-      el('button', { type: 'button', class: 'ghost nowrap', onclick: onRemeasure, title: 'measure this spectrum again with other settings (Shift+M)' }, 're-measure…')),
+      el('button', { type: 'button', class: 'ghost nowrap', onclick: onRemeasure, title: 'measure this spectrum again with another z range, templates, masks or wavelength medium (Shift+M)' }, 're-measure…')),
     el('table', {}, el('thead', {}, head), el('tbody', {}, ...rows)),
     el('p', { class: 'muted', id: 'candidate-order' }, `1 = best${refined ? ` (z, σz from the ${refined})` : ''} · order: √Δχ², then lines, not r alone`),
     m.notes.length ? el('p', { class: 'muted' }, m.notes.join(' · ')) : null);

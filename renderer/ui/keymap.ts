@@ -104,7 +104,7 @@ export const KEYMAP: readonly Binding[] = [
   { action: 'tab-host', keys: ['h'], group: 'Panels', label: 'Show host galaxy lines and diagram' },
   { action: 'export', keys: ['Shift+E'], group: 'Panels', label: 'Export the catalogue (CSV, ECSV, FITS)' },
   { action: 'cycle-correlation', keys: ['c'], group: 'View', label: 'Correlation curve: next template' },
-  { action: 'remeasure', keys: ['Shift+M'], group: 'View', label: 'Measure again: z range, templates, masks' },
+  { action: 'remeasure', keys: ['Shift+M'], group: 'View', label: 'Measure again: z range, templates, masks, air or vacuum wavelengths' },
   { action: 'help', keys: ['?'], group: 'Panels', label: 'This list of keys' },
   { action: 'escape', keys: ['Escape'], group: 'Panels', label: 'Close a panel, cancel identifying a line' },
 ];
