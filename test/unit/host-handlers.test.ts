@@ -258,6 +258,18 @@ describe('host handlers: verdicts', () => {
     expect(after.items.filter((i) => i.verdict).map((i) => i.id)).toEqual(['KRT-26-0012.fits']);
   });
 
+  it('still lists the worklist, with the reason, when the journal cannot be read again', async () => {
+    const h = handlers();
+    await h.openWorklist({ path: folder });
+    await h.saveVerdict(accept('KRT-26-0011.fits', 0.04823));
+    const journal = join(folder, 'kestrel-2026-03-14.verdicts.jsonl');
+    rmSync(journal);
+    mkdirSync(journal);
+    const listed = await h.listSpectra({});
+    expect(listed.items).toHaveLength(truth.size);
+    expect(listed.warnings.some((w) => w.startsWith('cannot read the verdict journal:'))).toBe(true);
+  });
+
   it('undoes the last verdict and says which spectrum it was', async () => {
     const h = handlers();
     await h.openWorklist({ path: folder });

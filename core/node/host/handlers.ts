@@ -143,9 +143,10 @@ class Handlers implements HostHandlers {
 
   async listSpectra(): Promise<WorklistState> {
     const s = this.requireSession();
-    // Verdicts another window saved to the same journal are in force here too.
-    await s.worklist.journal.refresh();
-    return this.state(s);
+    // Verdicts another window saved to the same journal are in force here too; a journal that
+    // cannot be read again (or written back) leaves the list as it was, with the reason.
+    const problem = await s.worklist.journal.refresh().then(() => null, (err: unknown) => describeFailure(err));
+    return this.state(s, problem ? [problem] : []);
   }
 
   private state(s: Session, extra: string[] = []): WorklistState {
