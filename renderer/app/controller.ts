@@ -299,11 +299,12 @@ export class Controller {
   decide(decision: Decision): void {
     const s = this.s;
     if (!s.view) return;
-    if (!s.view.arrays && decision.kind !== 'no-redshift') return this.say('this file cannot be read: only "no redshift" can be saved for it');
+    if (!s.view.arrays && decision.kind !== 'no-redshift' && decision.kind !== 'note') return this.say('this file cannot be read: only "no redshift" (and a note) can be saved for it');
     const input = verdictFor(s.view, decision, s.trial, s.grade);
     if ('refused' in input) return this.say(input.refused);
-    // From now on the grade is the one being saved (pressed, no longer a suggestion).
-    s.grade = { confidence: input.confidence, objectClass: input.objectClass, note: input.note };
+    // From now on the grade is the one being saved (pressed, no longer a suggestion); a note
+    // kept on a spectrum not vetted leaves the rest of the grade being chosen as it is.
+    s.grade = decision.kind === 'note' ? { ...s.grade, note: input.note } : { confidence: input.confidence, objectClass: input.objectClass, note: input.note };
     const trialDropped = decision.kind === 'accept-best' && s.trial.z !== null && s.trial.candidateIndex !== 0 && s.trial.source !== 'saved';
     if (decision.kind === 'accept-best') s.trial = candidateTrial(s.view, 0);
     if (decision.kind === 'no-redshift') {
@@ -342,9 +343,13 @@ export class Controller {
     this.regrade();
   }
 
+  /** Keeps the note: with the verdict in force, or on a spectrum not vetted yet as a pending verdict (a note left only in the form was lost on moving on). */
   setNote(text: string): void {
     this.s.grade = { ...this.s.grade, note: text };
-    this.regrade();
+    const v = this.s.view?.verdict;
+    if (v && v.status !== 'pending') this.decide({ kind: 'regrade', verdict: v });
+    else if (text !== (v?.note ?? '')) this.decide({ kind: 'note' });
+    else this.view.panels(this.s);
   }
 
   async undo(): Promise<void> {

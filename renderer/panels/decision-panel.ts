@@ -50,14 +50,15 @@ export class DecisionPanel {
       e.stopPropagation();
     });
     this.noteInput = el('textarea', { id: 'note', 'aria-label': 'note', placeholder: 'note (m); Enter keeps it, Shift+Enter for a new line' });
+    // Enter, Escape or a click elsewhere leaves the field, and leaving it keeps what was typed.
     this.noteInput.addEventListener('keydown', (e) => {
       if (e.key === 'Enter' && !e.shiftKey) {
         e.preventDefault();
-        this.on.note(this.noteInput.value);
         this.noteInput.blur();
       } else if (e.key === 'Escape') this.noteInput.blur();
       e.stopPropagation();
     });
+    this.noteInput.addEventListener('change', () => this.on.note(this.noteInput.value));
     fill(box, this.dynamicTop,
       el('div', { class: 'row' }, el('span', { class: 'label' }, 'type z'), this.zInput, el('kbd', {}, 'z'), el('span', { class: 'muted' }, 'then Enter')),
       this.typedProblem,

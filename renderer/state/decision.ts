@@ -110,7 +110,7 @@ export function nudgedTrial(trial: Trial, velocityKmS: number): Trial {
 export function openingGrade(view: SpectrumView | null): Grade {
   const v = view?.verdict;
   if (v && v.status !== 'pending') return { confidence: v.confidence, objectClass: v.objectClass, note: v.note };
-  return { confidence: null, objectClass: null, note: '' };
+  return { confidence: null, objectClass: null, note: v?.note ?? '' };
 }
 
 /**
@@ -138,7 +138,8 @@ export function gradeToSave(view: SpectrumView | null, trial: Trial, grade: Grad
 
 const NO_CONFIDENCE = 'the automatic measurement found nothing credible: choose a confidence first (s, l or t), or x for no redshift';
 
-export type Decision = { kind: 'accept-best' } | { kind: 'candidate'; index: number } | { kind: 'trial' } | { kind: 'no-redshift' } | { kind: 'regrade'; verdict: Verdict };
+/** `note`: a note kept on a spectrum not vetted yet (saved as a pending verdict, so that it is not lost). */
+export type Decision = { kind: 'accept-best' } | { kind: 'candidate'; index: number } | { kind: 'trial' } | { kind: 'no-redshift' } | { kind: 'regrade'; verdict: Verdict } | { kind: 'note' };
 
 /** The verdict to save for a decision, or a one-line reason why it cannot be made. */
 export function verdictFor(view: SpectrumView, decision: Decision, trial: Trial, grade: Grade): VerdictInput | { refused: string } {
@@ -167,6 +168,8 @@ export function verdictFor(view: SpectrumView, decision: Decision, trial: Trial,
     case 'no-redshift':
       // With no z there is no template to take a class from: unknown unless chosen.
       return { ...base, objectClass: grade.objectClass ?? 'unknown', status: 'no-redshift', z: null, zErr: null, confidence: null, template: null };
+    case 'note':
+      return { ...base, objectClass: grade.objectClass ?? 'unknown', status: 'pending', z: null, zErr: null, confidence: null, template: null };
     case 'regrade': {
       const v = decision.verdict;
       return { ...base, status: v.status, z: v.z, zErr: v.zErr, confidence: v.status === 'no-redshift' ? null : (confidence ?? v.confidence), template: v.template };

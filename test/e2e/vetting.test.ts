@@ -438,6 +438,29 @@ print(json.dumps({'rows': [{c: cell(r[c]) for c in ('spectrum', 'status', 'z')} 
     expect(await page.locator('#export-unvetted').textContent()).toBe('9 of 13 not vetted yet: their rows say pending, with no z');
   });
 
+  it('keeps a note typed on a spectrum not vetted yet, through moving on and a reload', async () => {
+    const id = 'KRT-26-0016.fits';
+    expect(vetted[id]).toBeUndefined();
+    await nextUntil(id);
+    const note = 'check the blend at 6700 Å in the morning';
+    await press('m');
+    await page.keyboard.type(note);
+    // Leaving the field keeps the note (Escape here; Enter and a click elsewhere too).
+    await press('Escape');
+    await expect.poll(() => page.locator('.save-state .saving').count()).toBe(0);
+    await press('n');
+    await press('p');
+    await expect.poll(() => page.locator('#spectrum-plot').getAttribute('data-spectrum')).toBe(id);
+    expect(await page.inputValue('#note')).toBe(note);
+    await page.reload();
+    await page.waitForSelector('#worklist-items li[data-id]');
+    await nextUntil(id);
+    expect(await page.inputValue('#note')).toBe(note);
+    // Still not vetted: a note alone is no verdict.
+    expect(await page.locator('#verdict-now').textContent()).toContain('pending');
+    expect(await page.locator('#progress').textContent()).toContain('4 of 13 vetted');
+  });
+
   it('made no request outside 127.0.0.1 and threw no page error', () => {
     const origin = `http://127.0.0.1:${server.port}/`;
     const outside = win.requests.filter((u) => !u.startsWith(origin) && !u.startsWith('data:') && !u.startsWith('blob:'));

@@ -36,6 +36,12 @@ describe('decisions', () => {
     expect(verdictFor(view(), { kind: 'accept-best' }, openingTrial(view()), openingGrade(view()))).toMatchObject({ confidence: 'likely', objectClass: 'galaxy' });
     expect(verdictFor(view(), { kind: 'candidate', index: 1 }, openingTrial(view()), openingGrade(view()))).toMatchObject({ confidence: 'tentative', objectClass: 'qso' });
   });
+  it('keeps a note on a spectrum not vetted as a pending verdict, and opens on it again', () => {
+    const input = verdictFor(view(), { kind: 'note' }, openingTrial(view()), { ...openingGrade(view()), note: 'blend?' }) as VerdictInput;
+    expect(input).toMatchObject({ status: 'pending', z: null, zErr: null, confidence: null, objectClass: 'unknown', template: null, note: 'blend?' });
+    const pending: Verdict = { ...input, spectrum: 'a.fits', hdu: null, time: '2026-03-14T03:00:00.000Z', user: 'observer' } as Verdict;
+    expect(openingGrade(view(pending))).toEqual({ confidence: null, objectClass: null, note: 'blend?' });
+  });
   it('"none credible" suggests no confidence: accepting asks for one first', () => {
     const hopeless = view();
     hopeless.measurement!.confidence = 'none';
