@@ -155,6 +155,12 @@ export class Controller {
     if (v && now && !saving.has(v.id) && JSON.stringify(now.verdict) !== JSON.stringify(v.verdict)) this.s.view = { ...v, verdict: now.verdict };
   }
 
+  /** The grade of the latest verdict for `id` still on its way to the journal, if any (so that coming back to it shows what was just decided). */
+  private queuedGrade(id: string): AppState['grade'] | null {
+    const input = [...this.queue.pending].reverse().find((q) => q.input.id === id)?.input;
+    return input ? { confidence: input.confidence, objectClass: input.status === 'pending' ? null : input.objectClass, note: input.note } : null;
+  }
+
   private itemOf(id: string) {
     return this.s.worklist?.items.find((it) => it.id === id) ?? null;
   }
@@ -187,7 +193,7 @@ export class Controller {
     s.view = { ...view, verdict: this.itemOf(id)?.verdict ?? view.verdict };
     s.loading = false;
     s.trial = openingTrial(s.view);
-    s.grade = openingGrade(s.view);
+    s.grade = this.queuedGrade(id) ?? openingGrade(s.view);
     s.xRange = null;
     s.correlationTemplate = s.trial.template ?? candidates(s.view)[0]?.template ?? null;
     s.overlay = view.templateModel ? { key: overlayKey(view.templateModel.template, view.templateModel.z), flux: view.templateModel.flux } : null;

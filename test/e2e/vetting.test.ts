@@ -447,15 +447,17 @@ print(json.dumps({'rows': [{c: cell(r[c]) for c in ('spectrum', 'status', 'z')} 
     await page.keyboard.type(note);
     // Leaving the field keeps the note (Escape here; Enter and a click elsewhere too).
     await press('Escape');
-    await expect.poll(() => page.locator('.save-state .saving').count()).toBe(0);
+    // Back at once, the note is there even if its save is still on its way.
     await press('n');
+    await expect.poll(() => page.locator('#spectrum-plot').getAttribute('data-spectrum')).not.toBe(id);
     await press('p');
     await expect.poll(() => page.locator('#spectrum-plot').getAttribute('data-spectrum')).toBe(id);
-    expect(await page.inputValue('#note')).toBe(note);
+    await expect.poll(() => page.inputValue('#note')).toBe(note);
+    await expect.poll(() => page.locator('.save-state').textContent(), { timeout: 20_000 }).toContain(`saved ${id}`);
     await page.reload();
     await page.waitForSelector('#worklist-items li[data-id]');
     await nextUntil(id);
-    expect(await page.inputValue('#note')).toBe(note);
+    await expect.poll(() => page.inputValue('#note')).toBe(note);
     // Still not vetted: a note alone is no verdict.
     expect(await page.locator('#verdict-now').textContent()).toContain('pending');
     expect(await page.locator('#progress').textContent()).toContain('4 of 13 vetted');
