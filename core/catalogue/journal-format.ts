@@ -6,9 +6,9 @@
  * Replaying the lines in order gives the verdicts in force: the last verdict per spectrum
  * wins; an undo cancels the verdict it names by its spectrum, time and user, so that two
  * programs writing one journal cannot undo each other's verdicts. An undo without `undoes`
- * (written before it existed) cancels the most recent verdict still in force (a stack). A line that cannot be read is skipped with a warning naming its line number, and
- * nothing else is lost; a torn last line (power cut during a write) is expected and reported
- * as such.
+ * (written before it existed) cancels the most recent verdict still in force (a stack). A line
+ * that cannot be read is skipped with a warning naming its line number, and nothing else is
+ * lost; a torn last line (power cut during a write) is expected and reported as such.
  */
 import { CONFIDENCES, OBJECT_CLASSES, VERDICT_STATUSES, WAVELENGTH_MEDIA, type Verdict } from './verdict.js';
 
@@ -55,7 +55,7 @@ export function serialiseVerdictRecord(verdict: Verdict): string {
   return `${JSON.stringify({ v: JOURNAL_FORMAT_VERSION, kind: 'verdict', verdict })}\n`;
 }
 
-/** One journal line (with its newline) undoing the most recent verdict in force. */
+/** One journal line (with its newline) undoing the verdict `undone`, named by its spectrum, time and user. */
 export function serialiseUndoRecord(undone: Verdict, timeUtc: string): string {
   return `${JSON.stringify({ v: JOURNAL_FORMAT_VERSION, kind: 'undo', spectrum: undone.spectrum, undoes: { time: undone.time, user: undone.user }, time: timeUtc })}\n`;
 }

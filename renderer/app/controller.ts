@@ -53,6 +53,9 @@ export class Controller {
   private readonly overlayCall: LatestOnly<{ id: string; template: string; z: number }, { flux: (number | null)[] }>;
   private pollTimer: ReturnType<typeof setTimeout> | null = null;
   private pollDelayMs = FIRST_POLL_MS;
+  /** Verdict changes made here (saves confirmed, undos) are counted, so that a list asked for before one of them cannot undo it on screen. */
+  private localChanges = 0;
+  private readonly changedAt = new Map<string, number>();
 
   constructor(private readonly api: HostApi, private readonly view: View) {
     this.cache = new SpectrumCache((id) => api.loadSpectrum({ id }));
@@ -136,8 +139,9 @@ export class Controller {
     if (!this.s.worklist) return;
     this.pollTimer = setTimeout(async () => {
       try {
+        const asked = this.localChanges;
         const fresh = await this.api.listSpectra({});
-        if (this.s.worklist && this.s.worklist.root === fresh.root) this.adoptList(fresh);
+        if (this.s.worklist && this.s.worklist.root === fresh.root) this.adoptList(fresh, asked);
         this.view.panels(this.s);
       } catch {
         // The next poll tries again; a host that is gone shows on the next real call.
@@ -147,12 +151,18 @@ export class Controller {
     }, this.pollDelayMs);
   }
 
-  private adoptList(fresh: WorklistState): void {
+  /** Takes the host's list, asked for when `asked` local changes had been made, keeping the verdicts changed here since and those still being saved. */
+  private adoptList(fresh: WorklistState, asked: number): void {
     const saving = new Set(this.queue.pending.map((q) => q.input.id));
-    this.s.worklist = { ...fresh, items: fresh.items.map((it) => (saving.has(it.id) ? { ...it, verdict: this.itemOf(it.id)?.verdict ?? it.verdict } : it)) };
+    const keepLocal = (id: string) => saving.has(id) || (this.changedAt.get(id) ?? 0) > asked;
+    this.s.worklist = { ...fresh, items: fresh.items.map((it) => (keepLocal(it.id) ? { ...it, verdict: this.itemOf(it.id)?.verdict ?? null } : it)) };
     const v = this.s.view;
     const now = v && this.itemOf(v.id);
-    if (v && now && !saving.has(v.id) && JSON.stringify(now.verdict) !== JSON.stringify(v.verdict)) this.s.view = { ...v, verdict: now.verdict };
+    if (v && now && !keepLocal(v.id) && JSON.stringify(now.verdict) !== JSON.stringify(v.verdict)) this.s.view = { ...v, verdict: now.verdict };
+  }
+
+  private changedHere(id: string): void {
+    this.changedAt.set(id, ++this.localChanges);
   }
 
   /** The grade of the latest verdict for `id` still on its way to the journal, if any (so that coming back to it shows what was just decided). */
@@ -326,6 +336,7 @@ export class Controller {
     const s = this.s;
     const item = this.itemOf(input.id);
     if (item) item.verdict = verdict;
+    this.changedHere(input.id);
     this.cache.drop(input.id);
     if (s.currentId === input.id && s.view) s.view = { ...s.view, verdict };
     s.lastSaved = { id: input.id, time: verdict.time.slice(11, 19) };
@@ -364,6 +375,7 @@ export class Controller {
       if (id === null) return this.say('nothing to undo');
       const item = this.itemOf(id);
       if (item) item.verdict = verdict;
+      this.changedHere(id);
       this.cache.drop(id);
       const s = this.s;
       if (s.currentId === id && s.view) {

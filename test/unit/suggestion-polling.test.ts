@@ -90,3 +90,28 @@ it('starts again at 0.4 s when another worklist is opened', async () => {
   expect(after[1]).toBeLessThan(450);
   expect(after[2] - after[1]).toBe(600);
 });
+
+it('keeps a verdict saved here while an older list was on its way', async () => {
+  let controller: Controller | null = null;
+  let lists = 0;
+  const api = new Proxy({}, {
+    get: (_t, name: string) => {
+      if (name === 'listSpectra') return () => {
+        // The third list is slow to come back, and a verdict is saved meanwhile.
+        const slow = ++lists === 3;
+        if (slow) controller!.decide({ kind: 'no-redshift' });
+        return new Promise((done) => setTimeout(() => done(listing(true)), slow ? 300 : 0));
+      };
+      if (name === 'loadSpectrum') return ({ id }: { id: string }) => Promise.resolve({ id, arrays: null, meta: null, measurement: null, templateModel: null, verdict: null, error: `${id}: not read in this test`, measuredWith: {} });
+      if (name === 'saveVerdict') return (input: { id: string }) => Promise.resolve({ verdict: { ...othersVerdict, spectrum: input.id, status: 'no-redshift', z: null, zErr: null, confidence: null, template: null, user: 'observer' } });
+      return () => Promise.reject(new Error('not used in this test'));
+    },
+  }) as HostApi;
+  controller = new Controller(api, view);
+  void controller.start();
+  await vi.advanceTimersByTimeAsync(2000);
+  expect(lists).toBeGreaterThanOrEqual(3);
+  const shown = controller.s.currentId!;
+  expect(controller.s.worklist!.items.find((it) => it.id === shown)!.verdict?.status).toBe('no-redshift');
+  expect(controller.s.view!.verdict?.status).toBe('no-redshift');
+});
