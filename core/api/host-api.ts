@@ -45,6 +45,8 @@ export interface SpectrumListItem {
   suggestion: { z: number; zErr: number; confidence: Measurement['confidence']; template: string } | null;
   /** One-line reason when the file cannot be read or measured. */
   error: string | null;
+  /** Changes when the file is rewritten (modification time and size); null when it cannot be looked at. */
+  fileVersion: string | null;
 }
 
 export interface WorklistState {

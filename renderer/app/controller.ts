@@ -155,6 +155,13 @@ export class Controller {
   private adoptList(fresh: WorklistState, asked: number): void {
     const saving = new Set(this.queue.pending.map((q) => q.input.id));
     const keepLocal = (id: string) => saving.has(id) || (this.changedAt.get(id) ?? 0) > asked;
+    // A file rewritten on disk (re-reduced) is read and measured again when next shown; at once if in view.
+    const rewritten = fresh.items.filter((it) => { const was = this.itemOf(it.id)?.fileVersion; return was != null && it.fileVersion != null && was !== it.fileVersion; }).map((it) => it.id);
+    for (const id of rewritten) this.cache.drop(id);
+    if (this.s.currentId && rewritten.includes(this.s.currentId)) {
+      const id = this.s.currentId;
+      void this.show(id).then(() => this.say(`${id} changed on disk: it is shown and measured again as it is now`));
+    }
     this.s.worklist = { ...fresh, items: fresh.items.map((it) => (keepLocal(it.id) ? { ...it, verdict: this.itemOf(it.id)?.verdict ?? null } : it)) };
     const v = this.s.view;
     const now = v && this.itemOf(v.id);

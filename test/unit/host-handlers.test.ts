@@ -162,6 +162,21 @@ describe('host handlers: spectra and measurements', () => {
     expect(calls.filter((c) => c.includes('KRT-26-0013.fits'))).toHaveLength(2);
   });
 
+  it('reads and measures a file again once it is rewritten on disk (re-reduced), and its list entry says the file changed', async () => {
+    const h = handlers();
+    await h.openWorklist({ path: folder });
+    const id = 'KRT-26-0013.fits';
+    const first = await h.loadSpectrum({ id });
+    const versionBefore = (await h.listSpectra({})).items.find((i) => i.id === id)!.fileVersion;
+    expect(versionBefore).not.toBeNull();
+    // Another night's spectrum written over it stands in for a new reduction.
+    writeFileSync(join(folder, id), readFileSync(join(folder, 'KRT-26-0012.fits')));
+    const again = await h.loadSpectrum({ id });
+    expect(again.measurement!.best!.z).not.toBe(first.measurement!.best!.z);
+    expect(again.measurement!.best!.z).toBeCloseTo(truth.get('KRT-26-0012.fits')!, 2);
+    expect((await h.listSpectra({})).items.find((i) => i.id === id)!.fileVersion).not.toBe(versionBefore);
+  });
+
   it('fills the list with suggestions in the background', async () => {
     const h = handlers();
     await h.openWorklist({ path: folder });

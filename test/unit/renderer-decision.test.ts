@@ -116,7 +116,7 @@ describe('decisions', () => {
   });
 });
 
-const item = (id: string, verdict: Partial<Verdict> | null): SpectrumListItem => ({ id, verdict: verdict ? savedVerdict({ spectrum: id, ...verdict }) : null, suggestion: null, error: null });
+const item = (id: string, verdict: Partial<Verdict> | null): SpectrumListItem => ({ id, verdict: verdict ? savedVerdict({ spectrum: id, ...verdict }) : null, suggestion: null, error: null, fileVersion: null });
 
 describe('worklist view', () => {
   const items = [item('a', null), item('b', { status: 'accepted', confidence: 'secure' }), item('c', null), item('d', { status: 'revised', confidence: 'tentative' })];

@@ -12,8 +12,8 @@ const ids = ['a.fits', 'b.fits', 'c.fits'];
 
 const othersVerdict: Verdict = { spectrum: 'b.fits', hdu: null, status: 'accepted', z: 0.1, zErr: 1e-4, confidence: 'secure', objectClass: 'galaxy', template: 'passive', note: '', time: '2026-03-14T03:00:00.000Z', user: 'colleague' };
 
-function listing(measured: boolean, othersSaved = false): WorklistState {
-  const items: SpectrumListItem[] = ids.map((id) => ({ id, verdict: othersSaved && id === 'b.fits' ? othersVerdict : null, error: null, suggestion: measured ? { z: 0.1, zErr: 1e-4, confidence: 'secure', template: 'passive' } : null }));
+function listing(measured: boolean, othersSaved = false, versionOfB = '1'): WorklistState {
+  const items: SpectrumListItem[] = ids.map((id) => ({ id, verdict: othersSaved && id === 'b.fits' ? othersVerdict : null, error: null, suggestion: measured ? { z: 0.1, zErr: 1e-4, confidence: 'secure', template: 'passive' } : null, fileVersion: id === 'b.fits' ? versionOfB : '1' }));
   return { root: '/night', name: 'night', journalPath: '/night/night.verdicts.jsonl', items, warnings: [] };
 }
 
@@ -114,4 +114,27 @@ it('keeps a verdict saved here while an older list was on its way', async () => 
   const shown = controller.s.currentId!;
   expect(controller.s.worklist!.items.find((it) => it.id === shown)!.verdict?.status).toBe('no-redshift');
   expect(controller.s.view!.verdict?.status).toBe('no-redshift');
+});
+
+it('reads and measures again a spectrum in view whose file was rewritten on disk, and says so', async () => {
+  let lists = 0;
+  const loads: string[] = [];
+  const api = new Proxy({}, {
+    get: (_t, name: string) => {
+      // From the fourth list on, b.fits has been re-reduced.
+      if (name === 'listSpectra') return () => Promise.resolve(listing(true, false, ++lists >= 4 ? '2' : '1'));
+      if (name === 'loadSpectrum') return ({ id }: { id: string }) => (loads.push(id), Promise.resolve({ id, arrays: null, meta: null, measurement: null, templateModel: null, verdict: null, error: `${id}: not read in this test`, measuredWith: {} }));
+      return () => Promise.reject(new Error('not used in this test'));
+    },
+  }) as HostApi;
+  const controller = new Controller(api, view);
+  void controller.start();
+  await vi.advanceTimersByTimeAsync(300);
+  void controller.show('b.fits');
+  await vi.advanceTimersByTimeAsync(200);
+  const before = loads.filter((id) => id === 'b.fits').length;
+  await vi.advanceTimersByTimeAsync(5000);
+  expect(lists).toBeGreaterThanOrEqual(4);
+  expect(loads.filter((id) => id === 'b.fits').length).toBe(before + 1);
+  expect(controller.s.message).toBe('b.fits changed on disk: it is shown and measured again as it is now');
 });

@@ -138,7 +138,7 @@ class Handlers implements HostHandlers {
     const warnings: string[] = [];
     await this.settings.rememberWorklist(worklist.root).catch((err: unknown) => warnings.push(`settings not saved: ${describeFailure(err)}`));
     void this.measureInBackground(session);
-    return this.state(session, warnings);
+    return this.state(session, await fileVersions(session), warnings);
   }
 
   async listSpectra(): Promise<WorklistState> {
@@ -146,16 +146,17 @@ class Handlers implements HostHandlers {
     // Verdicts another window saved to the same journal are in force here too; a journal that
     // cannot be read again (or written back) leaves the list as it was, with the reason.
     const problem = await s.worklist.journal.refresh().then(() => null, (err: unknown) => describeFailure(err));
-    return this.state(s, problem ? [problem] : []);
+    return this.state(s, await fileVersions(s), problem ? [problem] : []);
   }
 
-  private state(s: Session, extra: string[] = []): WorklistState {
+  private state(s: Session, versions: ReadonlyMap<string, string | null>, extra: string[] = []): WorklistState {
     const verdicts = this.verdictsInForce(s);
     const items = [...s.entries].map(([id, entry]) => ({
       id,
       verdict: verdicts.get(id) ?? null,
       suggestion: s.cache.suggestions.get(id) ?? null,
       error: entry.refusal ?? s.cache.errors.get(id) ?? null,
+      fileVersion: versions.get(id) ?? null,
     }));
     const links = s.worklist.linksWarning();
     const warnings = [...this.settings.warnings, ...s.worklist.journal.warnings, ...(links ? [links] : []), ...extra];
@@ -185,7 +186,9 @@ class Handlers implements HostHandlers {
   private async measured(s: Session, id: string, options: RemeasureOptions): Promise<MeasuredFile> {
     const entry = this.entryOf(s, id);
     if (entry.refusal) return { hdu: null, error: `${id}: ${entry.refusal}`, measurement: null, spectrum: null };
-    const result = await s.cache.get(optionsKey(id, options), () => {
+    // A file rewritten since it was measured (re-reduced at the telescope) is measured again.
+    const version = await fileVersion(entry.absPath);
+    const result = await s.cache.get(`${optionsKey(id, options)}\u0000${version}`, () => {
       const job = this.services.measureFile(entry.absPath, { ...options, withCorrelation: true });
       this.measuring.add(job);
       job.finally(() => this.measuring.delete(job)).catch(() => undefined);
@@ -407,4 +410,15 @@ function mediaSetIn(verdicts: ReadonlyMap<string, Verdict>): Map<string, Remeasu
   const out = new Map<string, RemeasureOptions>();
   for (const [id, v] of verdicts) if (v.medium) out.set(id, { medium: v.medium });
   return out;
+}
+
+/** Modification time and size of a file, which change when it is rewritten; null when it cannot be looked at. */
+function fileVersion(path: string): Promise<string | null> {
+  return stat(path).then((st) => `${st.mtimeMs}:${st.size}`, () => null);
+}
+
+async function fileVersions(s: Session): Promise<Map<string, string | null>> {
+  const ids = [...s.entries.keys()];
+  const versions = await Promise.all(ids.map((id) => fileVersion(s.entries.get(id)!.absPath)));
+  return new Map(ids.map((id, i) => [id, versions[i]]));
 }
