@@ -1,7 +1,7 @@
 /**
  * Plain-text spectra: whitespace-, comma-, semicolon- or tab-separated columns (with ';', as
- * spreadsheets write in locales whose decimal mark is a comma, '6563,2' is 6563.2), '#' comments, an optional
- * header row naming the columns (with units: 'wave_A', 'wavelength[nm]', 'lambda (um)'),
+ * spreadsheets write in locales whose decimal mark is a comma, '6563,2' is 6563.2), '#'
+ * comments, an optional header row naming the columns (with units: 'wave_A', 'wavelength[nm]', 'lambda (um)'),
  * columns read as wavelength (or log10 λ/Å in a column named loglam), flux, error (σ, or
  * ivar/variance/S/N when the header says so) and mask: 2–4 by position, any number when named. Comment lines 'KEY = value' or 'KEY: value' are kept as header cards, so that
  * OBJECT, RA, DATE-OBS, AIRORVAC, SPECSYS and the like work as in FITS.
