@@ -6,7 +6,8 @@ import { cpSync, mkdirSync, mkdtempSync, rmSync, symlinkSync, writeFileSync } fr
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_WORKLIST } from '../support/paths';
+import { spawnSync } from 'node:child_process';
+import { DEMO_WORKLIST, ZVET_BIN } from '../support/paths';
 import { call, rawRequest, request, startServe, type ServeProcess } from './server-harness';
 
 const SECRET = 'outside-the-worklist-secret-7f3a';
@@ -266,5 +267,13 @@ describe('zvet serve: stopping', () => {
     const second = await startServe(worklist, join(tmp, 'config'));
     expect(second.token).not.toBe(server.token);
     expect(await second.stop('SIGINT')).toBe(0);
+  });
+
+  it('a start on a port in use says so in one line and exits with code 2 (it stayed up, its measuring threads running)', () => {
+    const r = spawnSync(process.execPath, [ZVET_BIN, 'serve', worklist, '--port', String(server.port), '--no-open'], { encoding: 'utf8', timeout: 30_000, env: { ...process.env, ZVET_CONFIG_DIR: join(tmp, 'config') } });
+    expect(r.signal).toBeNull();
+    expect(r.status).toBe(2);
+    expect(r.stdout).toBe('');
+    expect(r.stderr.trimEnd().split('\n').at(-1)).toBe(`zvet: port ${server.port} on 127.0.0.1 is in use (another zvet serve?): give another with --port, or --port 0 for a free one`);
   });
 });

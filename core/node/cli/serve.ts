@@ -49,14 +49,22 @@ export function registerServe(program: Command): void {
       runAction(async (folder: string | undefined, opts: { port: string; open: boolean }) => {
         const port = parsePort(opts.port);
         const handlers = createHostHandlers();
-        if (folder !== undefined) {
-          const path = resolve(folder);
-          const info = await stat(path);
-          if (!info.isDirectory()) throw new UsageError(`${path}: not a folder (give the worklist folder)`);
-          const state = await handlers.openWorklist({ path });
-          for (const w of state.warnings) process.stderr.write(`zvet: ${w}\n`);
+        let server: Awaited<ReturnType<typeof startHostServer>>;
+        try {
+          if (folder !== undefined) {
+            const path = resolve(folder);
+            const info = await stat(path);
+            if (!info.isDirectory()) throw new UsageError(`${path}: not a folder (give the worklist folder)`);
+            const state = await handlers.openWorklist({ path });
+            for (const w of state.warnings) process.stderr.write(`zvet: ${w}\n`);
+          }
+          server = await startHostServer({ api: handlers, staticRoot: rendererRoot(), port });
+        } catch (err) {
+          // The worklist's measuring threads would keep the process alive after the message.
+          await handlers.close();
+          if ((err as NodeJS.ErrnoException).code === 'EADDRINUSE') throw new UsageError(`port ${port} on 127.0.0.1 is in use (another zvet serve?): give another with --port, or --port 0 for a free one`);
+          throw err;
         }
-        const server = await startHostServer({ api: handlers, staticRoot: rendererRoot(), port });
         // Listen for the stop signals before printing: a pipe write is synchronous on Linux, so
         // whoever reads the line may signal at once.
         const stopped = new Promise<void>((done) => {
