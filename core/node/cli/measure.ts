@@ -49,6 +49,9 @@ interface MeasureCliOptions extends MediumFlags {
   lines?: boolean;
 }
 
+/** Exit code after Ctrl+C, as shells report a process ended by SIGINT (128 + 2). */
+const EXIT_INTERRUPTED = 130;
+
 /** Files submitted ahead of the one being written, per job (keeps memory flat). */
 const AHEAD_PER_JOB = 8;
 
@@ -121,17 +124,24 @@ async function measure(paths: string[], opts: MeasureCliOptions, baseColumns: Me
   const pool = new MeasurePool({ jobs: workers });
   const ahead = AHEAD_PER_JOB * workers;
   const pending: Promise<MeasureFileResult>[] = [];
-  let submitted = 0, failed = 0;
+  let submitted = 0, failed = 0, written = 0;
+  // Ctrl+C ends the batch after the row being written, so the table holds whole rows, in input
+  // order, for the first `written` inputs; a second Ctrl+C stops at once.
+  let interrupted = false;
+  const interrupt = () => (interrupted = true);
+  process.once('SIGINT', interrupt);
   try {
     if (format === 'csv') await lines.write(csvLine(csvHeader(columns)));
-    for (let i = 0; i < files.length; i++) {
+    for (let i = 0; i < files.length && !interrupted; i++) {
       while (submitted < files.length && submitted < i + ahead) pending.push(pool.measureFile(files[submitted++], { ...options, medium, hostLines: opts.lines ? { cosmology, site } : undefined }));
       const result = await pending.shift()!;
       if (result.status !== 'ok') failed++;
       await lines.write(format === 'csv' ? csvLine(csvCells(columns, result)) : jsonlLine(columns, result));
+      written++;
       bar?.increment();
     }
   } finally {
+    process.removeListener('SIGINT', interrupt);
     bar?.stop();
     if (opts.stageTimes) {
       const t = pool.totals;
@@ -140,6 +150,10 @@ async function measure(paths: string[], opts: MeasureCliOptions, baseColumns: Me
     await pool.close();
     await lines.end();
     if (out !== process.stdout) await closeOutput(out as WriteStream);
+  }
+  if (interrupted) {
+    process.stderr.write(`zvet: interrupted: the first ${written} of ${files.length} spectra were measured and written (whole rows, in input order); the rest were not\n`);
+    return EXIT_INTERRUPTED;
   }
   // The last line on standard error says how the batch went, so a long run ends with its tally.
   if (failed < files.length) process.stderr.write('the z and confidence of every row are automatic suggestions until a person vets them (zvet serve)\n');
