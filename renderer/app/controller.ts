@@ -407,7 +407,10 @@ export class Controller {
       await this.api.remeasure({ id, options });
       this.cache.drop(id);
       await this.show(id);
-      this.say(`${id} measured again`);
+      // A verdict saved on the other reading of the wavelengths holds for that reading only.
+      const v = this.s.view?.verdict;
+      const savedOnOther = v && v.z !== null && (v.medium ?? null) !== (options.medium ?? null);
+      this.say(savedOnOther ? `${id} measured again; its verdict was saved with the wavelengths read ${v.medium ? `as ${v.medium}` : 'as the file says'}: save it again to keep it on this reading` : `${id} measured again`);
     } catch (err) {
       this.say(`not measured again: ${(err as Error).message}`);
     }

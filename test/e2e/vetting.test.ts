@@ -186,6 +186,8 @@ describe('vetting in the window', () => {
     };
     await measureAgain('vacuum');
     await expect.poll(() => page.locator('#medium-fact').textContent(), { timeout: 30_000 }).toBe('vacuum wavelengths, as you set');
+    // The verdict saved above holds for the file's own reading: the window says so.
+    await expect.poll(() => page.locator('#decision-message').textContent()).toBe('KRT-26-0011.fits measured again; its verdict was saved with the wavelengths read as the file says: save it again to keep it on this reading');
     // Not converted from air, the wavelengths are shorter by the air/vacuum ratio (Hα: 6562.80 Å
     // air, 6564.61 Å vacuum; IAU standard, Morton 1991), and so is 1 + z.
     expect((1 + before) / (1 + (await candidateZ(0)))).toBeCloseTo(6564.61 / 6562.8, 4);
