@@ -5,6 +5,8 @@
 // tolerance of 1.5e-8 Hubble times, and a tight scipy quad (epsrel 1e-13) agrees with zvet there.
 import { afterAll, describe, expect, it } from 'vitest';
 import { distances, type CosmologyModel, type Distances } from '../../core/astro/cosmology.js';
+import { execFileSync } from 'node:child_process';
+import { ZVET_BIN } from '../support/paths.js';
 import { astropyJson } from '../support/tools.js';
 
 interface Case { h0: number; om: number; ol: number; tcmb: number; z: number }
@@ -79,6 +81,24 @@ describe('cosmology against astropy LambdaCDM', () => {
     const dmu = Math.abs(d.distanceModulusMag - ref.mu);
     if (dmu > worst.muMag) Object.assign(worst, { muMag: dmu, muWhere: label });
     expect(dmu).toBeLessThanOrEqual(2.2e-6);
+  });
+
+  it("states in `zvet cosmo` what leaving radiation out of the presets costs, as astropy measures it (photons and neutrinos: Tcmb0 = 2.7255 K, Neff = 3.046)", () => {
+    const effect = astropyJson<Array<{ z: number; age: number; dl: number }>>(`
+import json
+from astropy.cosmology import FlatLambdaCDM
+with_r = FlatLambdaCDM(H0=67.66, Om0=0.3111, Tcmb0=2.7255, Neff=3.046)
+without = FlatLambdaCDM(H0=67.66, Om0=0.3111, Tcmb0=0)
+print(json.dumps([dict(z=z, age=float(without.age(z).value / with_r.age(z).value - 1), dl=float(without.luminosity_distance(z).value / with_r.luminosity_distance(z).value - 1)) for z in (2, 5, 10, 20, 1100)]))
+`);
+    const at = (z: number) => effect.find((e) => e.z === z)!;
+    for (const z of [2, 5, 10]) {
+      expect(at(z).dl).toBeLessThan(0.0005);
+      expect(at(z).age).toBeLessThan(0.005);
+    }
+    const note = execFileSync(process.execPath, [ZVET_BIN, 'cosmo', '1100'], { encoding: 'utf8' }).trimEnd().split('\n').at(-1)!;
+    expect(note).toContain(`at z = 20 the age comes out ${(100 * at(20).age).toFixed(1)} % and at z = 1100 ${(100 * at(1100).age).toFixed(0)} % higher`);
+    expect(execFileSync(process.execPath, [ZVET_BIN, 'cosmo', '10'], { encoding: 'utf8' })).not.toContain('radiation');
   });
 
   afterAll(() => {

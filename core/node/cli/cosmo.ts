@@ -91,6 +91,12 @@ function formatTable(rows: Distances[], model: CosmologyModel): string {
     `source: ${model.source}`,
     line(header),
     ...body.map(line),
+    ...(!model.omegaR && rows.some((d) => d.z > RADIATION_MATTERS_ABOVE_Z) ? [RADIATION_NOTE] : []),
     '',
   ].join('\n');
 }
+
+/** Above this z, leaving radiation out of the model changes the ages by more than 0.5 %. */
+const RADIATION_MATTERS_ABOVE_Z = 10;
+/** Our comparison in astropy 5.2: FlatLambdaCDM(67.66, 0.3111) with Tcmb0 = 2.7255 K and Neff = 3.046 against Tcmb0 = 0. */
+const RADIATION_NOTE = 'note: radiation is left out of this model: below z = 10 that changes distances by under 0.05 % and ages by under 0.5 %, but at z = 20 the age comes out 0.8 % and at z = 1100 29 % higher than with photons and neutrinos (Tcmb = 2.7255 K, Neff = 3.046)';
