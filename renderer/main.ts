@@ -141,6 +141,15 @@ const view: View = {
 
 controller = new Controller(api, view);
 
+// In browser mode the tab is all that holds a verdict the host has not written yet (its host may
+// have stopped): closing or reloading the tab then asks first. The desktop window's host is its
+// own process, so there it is not asked.
+if (!window.zvetHost) {
+  window.addEventListener('beforeunload', (e) => {
+    if (controller.s.saves.length > 0) e.preventDefault();
+  });
+}
+
 // Plotly keeps the size a plot was drawn at. Whenever a plot's box changes (the side column
 // widens, the title wraps to another line, the window is resized) both are fitted again, once
 // per frame, and the spectrum is redrawn for its new width.

@@ -312,6 +312,9 @@ describe('vetting in the window', () => {
     expect(banner).toContain('NOT SAVED');
     expect(banner).toContain('KRT-26-0021.fits');
     expect(await page.locator('#verdict-now').textContent()).toContain('NOT SAVED');
+    // Closing or reloading the tab now would lose it: the page asks first (and no longer once it is saved).
+    const leavingIsStopped = () => page.evaluate(() => { const e = new Event('beforeunload', { cancelable: true }); window.dispatchEvent(e); return e.defaultPrevented; });
+    expect(await leavingIsStopped()).toBe(true);
     await shot('save-failed');
     rmdirSync(journal);
     renameSync(`${journal}.aside`, journal);
@@ -319,6 +322,7 @@ describe('vetting in the window', () => {
     await page.waitForSelector('#save-failure', { state: 'hidden' });
     await savedAs('no-redshift');
     expect(await page.locator('.save-state .saved').textContent()).toContain('KRT-26-0021.fits');
+    expect(await leavingIsStopped()).toBe(false);
     // Journal records (core/catalogue/journal-format.ts): the last one for this spectrum is the regraded verdict.
     const records = readFileSync(journal, 'utf8').trim().split('\n').map((l) => JSON.parse(l));
     const last = records.filter((r) => (r.kind === 'verdict' ? r.verdict.spectrum : r.spectrum) === 'KRT-26-0021.fits').at(-1);
