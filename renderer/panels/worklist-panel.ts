@@ -22,13 +22,15 @@ function row(item: SpectrumListItem, current: boolean, saving: Map<string, strin
   const v = item.verdict && item.verdict.status !== 'pending' ? item.verdict : null;
   const status = item.error ? { glyph: '⚠', word: 'unreadable' } : STATUS_GLYPH[v?.status ?? 'pending'];
   const zText = v ? (v.status === 'no-redshift' ? 'no z' : fmtZ(v.z, 4)) : item.suggestion ? `${fmtZ(item.suggestion.z, 4)}?` : '';
+  // A note (kept even on a spectrum not vetted) is marked, its text in the row's tooltip.
+  const note = item.verdict?.note ? ' · note' : '';
   const sub = item.error
     ? el('span', { class: 'problem' }, item.error)
     : v
-      ? [confidenceBadge(v.status === 'no-redshift' ? null : v.confidence), el('span', {}, v.objectClass)]
-      : el('span', {}, item.suggestion ? `suggested: ${item.suggestion.confidence}, not vetted` : 'measuring…');
+      ? [confidenceBadge(v.status === 'no-redshift' ? null : v.confidence), el('span', {}, `${v.objectClass}${note}`)]
+      : el('span', {}, `${item.suggestion ? `suggested: ${item.suggestion.confidence}, not vetted` : 'measuring…'}${note}`);
   return el('li', {
-    'data-id': item.id, 'aria-current': current ? 'true' : 'false', tabindex: '-1', title: `${item.id}: ${status.word}`,
+    'data-id': item.id, 'aria-current': current ? 'true' : 'false', tabindex: '-1', title: `${item.id}: ${status.word}${item.verdict?.note ? `; note: ${item.verdict.note}` : ''}`,
     onclick: () => onPick(item.id),
   },
   el('span', { class: 'status', 'aria-label': status.word }, status.glyph),

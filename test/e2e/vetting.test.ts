@@ -460,6 +460,10 @@ print(json.dumps({'rows': [{c: cell(r[c]) for c in ('spectrum', 'status', 'z')} 
     await expect.poll(() => page.locator('#spectrum-plot').getAttribute('data-spectrum')).toBe(id);
     await expect.poll(() => page.inputValue('#note')).toBe(note);
     await expect.poll(() => page.locator('.save-state').textContent(), { timeout: 20_000 }).toContain(`saved ${id}`);
+    // The list marks the note, its text in the row's tooltip.
+    const row = page.locator(`#worklist-items li[data-id="${id}"]`);
+    await expect.poll(() => row.locator('.sub').textContent()).toContain('not vetted · note');
+    expect(await row.getAttribute('title')).toBe(`${id}: pending; note: ${note}`);
     await page.reload();
     await page.waitForSelector('#worklist-items li[data-id]');
     await nextUntil(id);
