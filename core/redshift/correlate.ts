@@ -210,7 +210,6 @@ function productBuffersFor(fft: ComplexFft): [Float64Array, Float64Array] {
 }
 
 function spectrumTransforms(p: CorrelationInput, lay: Layout, fft: ComplexFft): SpectrumTransforms {
-  const n = fft.size;
   const off = p.grid.start - lay.specOrigin;
   const { packed, sw, w: ww, s2Sum, goodSum } = transformBuffersFor(fft, p.binFactor);
   packed.fill(0);

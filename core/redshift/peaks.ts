@@ -29,7 +29,6 @@ export interface Peak {
 /** Local maxima of ρ with ρ > 0, away from the ends of the searched range and with a Tonry–Davis r, best `maxPeaks` by score. */
 export function findPeaks(curve: CorrelationCurveData, maxPeaks: number): Peak[] {
   const { rho, score, searchLo, searchHi } = curve;
-  const n = rho.length;
   const idx: number[] = [];
   for (let i = searchLo + 2; i <= searchHi - 2; i++) {
     const v = rho[i];
@@ -49,7 +48,6 @@ export function findPeaks(curve: CorrelationCurveData, maxPeaks: number): Peak[]
 
 export function describePeak(curve: CorrelationCurveData, i: number): Peak {
   const { rho, score, overlap, step, lagMin } = curve;
-  const n = rho.length;
   const y0 = rho[i - 1], y1 = rho[i], y2 = rho[i + 1];
   const den = y0 - 2 * y1 + y2;
   const delta = den < 0 ? Math.max(-0.5, Math.min(0.5, (0.5 * (y0 - y2)) / den)) : 0;

@@ -39,7 +39,7 @@ export class DecisionPanel {
   /** The spectrum the typed z belongs to: another one empties the field. */
   private typedFor: string | null = null;
 
-  constructor(private readonly box: HTMLElement, private readonly on: DecisionHandlers) {
+  constructor(box: HTMLElement, private readonly on: DecisionHandlers) {
     this.zInput = el('input', { id: 'typed-z', class: 'typed-z', type: 'text', inputmode: 'decimal', 'aria-label': 'type a redshift', placeholder: 'e.g. 0.1234' });
     this.zInput.addEventListener('keydown', (e) => {
       if (e.key === 'Enter') {
